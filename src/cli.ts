@@ -1,0 +1,34 @@
+/** Argument parsing and dispatch for the `crosswise` command. */
+
+const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
+
+usage:
+  crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu]
+  crosswise plan <config>
+  crosswise cell <config> --index I [--out DIR]
+  crosswise cluster <config> --out DIR
+  crosswise report <DIR>
+  crosswise check <file>...
+  crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]
+  crosswise explore [world] [--seed N]
+  crosswise bench [--json] [--quick]
+  crosswise schema`;
+
+type Command = (args: readonly string[]) => Promise<number>;
+
+const COMMANDS: Record<string, Command> = {};
+
+/** Runs one command line and returns the process exit code. */
+export async function main(argv: readonly string[]): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name == null || name === '--help' || name === '-h' || name === 'help') {
+    console.log(USAGE);
+    return 0;
+  }
+  const command = COMMANDS[name];
+  if (command == null) {
+    console.error(`crosswise: unknown command '${name}'\n${USAGE}`);
+    return 1;
+  }
+  return command(rest);
+}

@@ -1,0 +1,52 @@
+import type { ChannelName } from '../senses/channel.js';
+
+/** Ground-truth variables recorded every step, usable as probe targets. */
+export const LATENT_NAMES = [
+  'x', 'y', 'heading', 'material_under', 'material_ahead', 'wall_ahead',
+  'nearest_emitter', 'nearest_distance_m', 'nearest_azimuth_deg',
+  'emitter_in_view', 'moved', 'bumped',
+] as const;
+export type LatentName = (typeof LATENT_NAMES)[number];
+
+/**
+ * Everything the agent experienced, one row per step.
+ *
+ * Channel arrays are flattened row-major: [steps, channelSize[c]]. Categorical latents
+ * hold class indices as floats (heading 0..3 in HEADINGS order, materials and emitters
+ * as indices into the world's lists, booleans 0/1).
+ */
+export interface Dataset {
+  readonly steps: number;
+  readonly channelSize: Readonly<Record<ChannelName, number>>;
+  readonly channels: Readonly<Record<ChannelName, Float32Array>>;
+  readonly latents: Readonly<Record<LatentName, Float32Array>>;
+  /** Episode index of each step. */
+  readonly episode: Int32Array;
+  /** 1 where step t + 1 belongs to the same episode as step t (so t → t+1 is a real transition). */
+  readonly hasNext: Uint8Array;
+  /** Class names for each categorical latent, in index order. */
+  readonly classNames: Readonly<Partial<Record<LatentName, readonly string[]>>>;
+}
+
+/** Step indices of each split; whole episodes go to one split. */
+export interface DatasetSplit {
+  readonly train: Int32Array;
+  readonly validation: Int32Array;
+  readonly test: Int32Array;
+}
+
+/** Whether a latent is read out by regression (continuous) or classification (categorical). */
+export const LATENT_KIND: Readonly<Record<LatentName, 'continuous' | 'categorical'>> = {
+  x: 'continuous',
+  y: 'continuous',
+  heading: 'categorical',
+  material_under: 'categorical',
+  material_ahead: 'categorical',
+  wall_ahead: 'categorical',
+  nearest_emitter: 'categorical',
+  nearest_distance_m: 'continuous',
+  nearest_azimuth_deg: 'continuous',
+  emitter_in_view: 'categorical',
+  moved: 'categorical',
+  bumped: 'categorical',
+};

@@ -1,0 +1,57 @@
+import type { ChannelName } from '../senses/channel.js';
+import type { LatentName } from '../collect/dataset.js';
+
+export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'supervised', 'untrained'] as const;
+export type ObjectiveName = (typeof OBJECTIVES)[number];
+
+export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'] as const;
+export type RuleName = (typeof RULES)[number];
+
+export const ACTIVATIONS = ['relu', 'tanh', 'sigmoid'] as const;
+export type ActivationName = (typeof ACTIVATIONS)[number];
+
+export const OPTIMIZERS = ['adam', 'sgd'] as const;
+export type OptimizerName = (typeof OPTIMIZERS)[number];
+
+export const BACKENDS = ['wasm', 'cpu'] as const;
+export type BackendName = (typeof BACKENDS)[number];
+
+/** Everything needed to train one learner; the config loader fills every default. */
+export interface LearnerSpec {
+  readonly name: string;
+  readonly objective: ObjectiveName;
+  /** Channels the encoder reads, concatenated in CHANNELS order. */
+  readonly input: readonly ChannelName[];
+  /** predict and contrast only: the channels to predict or align with. */
+  readonly target: readonly ChannelName[];
+  /** predict only: 0 predicts the target at the same step, 1 at the next step. */
+  readonly offset: 0 | 1;
+  /** supervised only: the latents predicted directly. */
+  readonly supervisedTargets: readonly LatentName[];
+  readonly encoder: { readonly hidden: readonly number[]; readonly activation: ActivationName };
+  readonly rule: RuleName;
+  readonly train: {
+    readonly optimizer: OptimizerName;
+    readonly learningRate: number;
+    readonly batch: number;
+    readonly epochs: number;
+    /** Stop after this many epochs without a lower validation loss. */
+    readonly patience: number;
+    /** contrast only: InfoNCE temperature. */
+    readonly temperature: number;
+    /** Non-backprop rules: record update/gradient angles every this many steps. */
+    readonly alignEvery: number;
+  };
+  /** Write features and latents as .npy files beside the cell's results. */
+  readonly saveFeatures: boolean;
+}
+
+/** One line of the training log. */
+export interface EpochLog {
+  readonly epoch: number;
+  readonly trainLoss: number;
+  readonly validationLoss: number;
+  readonly seconds: number;
+  /** Mean update/true-gradient angle in degrees per weight layer; empty for backprop. */
+  readonly alignmentDeg: readonly number[];
+}

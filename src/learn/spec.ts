@@ -55,3 +55,18 @@ export interface EpochLog {
   /** Mean update/true-gradient angle in degrees per weight layer; empty for backprop. */
   readonly alignmentDeg: readonly number[];
 }
+
+/** A trained, frozen encoder as the probes see it. */
+export interface FeatureExtractor {
+  /** Channels the encoder reads. */
+  readonly input: readonly ChannelName[];
+  /** Width of the representation (the last hidden layer). */
+  readonly featureSize: number;
+  /**
+   * Features for n rows of raw (unstandardised) channel values, each [n, channelSize];
+   * the encoder applies the standardisation fitted on its training split. Returns [n, featureSize].
+   */
+  features(inputs: Readonly<Partial<Record<ChannelName, Float32Array>>>, n: number): Float32Array;
+  /** Frees the encoder's tensors. */
+  dispose(): void;
+}

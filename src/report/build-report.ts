@@ -62,12 +62,12 @@ async function comboPlots(run: StoredRun, combo: Combination, index: number | nu
         learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
       const title = `${target} under ${channel} ${kind} noise`;
       out.push([robustnessPlotPath(target, channel, kind, index),
-        await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' })]);
+        await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
     }
   }
   const training = trainingPoints(run, combo);
   if (training.length > 0) {
-    out.push([trainingPlotPath(index), await bandPlotSvg(training, learners, { title: 'Validation loss', x: 'epoch', y: 'validation loss (mean over seeds, 95% CI)' })]);
+    out.push([trainingPlotPath(index), await bandPlotSvg(training, learners, { title: 'Validation loss', x: 'epoch', y: 'validation loss (mean over seeds, 95% CI)' }, null)]);
   }
   return out;
 }

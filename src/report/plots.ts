@@ -28,23 +28,36 @@ export interface PlotLabels {
  * vega-lite → vega with no renderer (offline, no canvas). Learners keep their colour
  * across plots because the colour domain is the full learner list.
  */
-export async function bandPlotSvg(points: readonly BandPoint[], learners: readonly string[], labels: PlotLabels): Promise<string> {
+export async function bandPlotSvg(
+  points: readonly BandPoint[], learners: readonly string[], labels: PlotLabels, baseline: string | null = null,
+): Promise<string> {
   const values = points.filter((p) => Number.isFinite(p.mean)).map((p) => ({
     ...p, low: Number.isFinite(p.low) ? p.low : p.mean, high: Number.isFinite(p.high) ? p.high : p.mean,
   }));
-  const colour = {
-    field: 'learner', type: 'nominal', title: 'learner',
-    scale: { domain: [...learners], range: learners.map((_, i) => PALETTE[i % PALETTE.length]) },
-  } as const;
+  const scale = { domain: [...learners], range: learners.map((_, i) => PALETTE[i % PALETTE.length]) };
+  // One merged legend (fill and stroke share the field), drawn as solid line swatches.
+  const legend = { symbolType: 'stroke', symbolStrokeWidth: 3, symbolOpacity: 1, symbolFillColor: 'transparent' } as const;
   const x = { field: 'x', type: 'quantitative', title: labels.x, axis: { tickMinStep: 1 } } as const;
+  const dashed = baseline == null ? 'false' : `datum.learner === ${JSON.stringify(baseline)}`;
   const spec: TopLevelSpec = {
-    title: labels.title,
+    title: baseline == null ? labels.title : { text: labels.title, subtitle: `dashed: baseline ${baseline}` },
     width: 420,
     height: 260,
     data: { values },
     layer: [
-      { mark: { type: 'area', opacity: 0.18 }, encoding: { x, y: { field: 'low', type: 'quantitative' }, y2: { field: 'high' }, color: colour } },
-      { mark: { type: 'line', strokeWidth: 2 }, encoding: { x, y: { field: 'mean', type: 'quantitative', title: labels.y, scale: { zero: false } }, color: colour } },
+      {
+        mark: { type: 'area', opacity: 0.18 },
+        encoding: { x, y: { field: 'low', type: 'quantitative' }, y2: { field: 'high' }, fill: { field: 'learner', type: 'nominal', title: 'learner', scale, legend } },
+      },
+      {
+        mark: { type: 'line', strokeWidth: 2, point: { filled: true, size: 28 } },
+        encoding: {
+          x,
+          y: { field: 'mean', type: 'quantitative', title: labels.y, scale: { zero: false } },
+          color: { field: 'learner', type: 'nominal', title: 'learner', scale, legend },
+          strokeDash: { condition: { test: dashed, value: [6, 3] }, value: [1, 0] },
+        },
+      },
     ],
     config: { font: 'sans-serif', view: { stroke: '#999999' }, axis: { gridColor: '#e4e4e4' } },
   };

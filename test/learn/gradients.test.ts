@@ -9,7 +9,6 @@ import { createRng, normal } from '../../src/random.js';
 /** Plain float64 forward pass and MSE loss of a one-hidden-layer tanh tower (independent of tfjs). */
 function referenceLoss(p: number[][], x: number[][], y: number[][], hidden: number): number {
   const [W1, b1, W2, b2] = p;
-  const inputs = x[0].length;
   const outputs = y[0].length;
   let sum = 0;
   x.forEach((row, r) => {

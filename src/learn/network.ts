@@ -39,7 +39,8 @@ export const ACTIVATIONS: Record<ActivationName, Activation> = {
 };
 
 function dense(W: Float32Array, fanIn: number, fanOut: number): Dense {
-  return { W: tf.variable(tf.tensor2d(W, [fanIn, fanOut])), b: tf.variable(tf.zeros([fanOut])) };
+  // tidy frees the initial-value tensors; the variables it returns stay alive.
+  return tf.tidy(() => ({ W: tf.variable(tf.tensor2d(W, [fanIn, fanOut])), b: tf.variable(tf.zeros([fanOut])) }));
 }
 
 /** Builds a tower; weights come from the rng only (biases start at zero). */

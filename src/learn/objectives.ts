@@ -142,6 +142,7 @@ function latentTargets(stats: TrainingStatistics, names: readonly LatentName[], 
 const supervised: ObjectiveFactory = (spec, data) => {
   const names = spec.supervisedTargets;
   const widths = names.map((name) => latentWidth(data, name));
+  const offsets = widths.map((_, j) => widths.slice(0, j).reduce((a, b) => a + b, 0));
   return {
     towers: [tower(spec, channelWidth(data.channelSize, spec.input), widths.reduce((a, b) => a + b, 0))],
     signal: {
@@ -153,11 +154,13 @@ const supervised: ObjectiveFactory = (spec, data) => {
       }),
       loss(outputs, target) {
         if (target == null) throw new Error('supervised loss needs a target');
-        const parts = tf.split(outputs[0], widths, 1) as tf.Tensor2D[];
-        const columns = tf.split(target, names.length, 1) as tf.Tensor2D[];
-        const losses = names.map((name, j) => LATENT_KIND[name] === 'continuous'
-          ? meanSquaredError(parts[j], columns[j])
-          : softmaxCrossEntropy(parts[j], tf.reshape(columns[j], [-1]) as tf.Tensor1D));
+        const losses = names.map((name, j) => {
+          const part = tf.slice(outputs[0], [0, offsets[j]], [-1, widths[j]]); // [batch, width_j]
+          const column = tf.slice(target, [0, j], [-1, 1]); // [batch, 1]
+          return LATENT_KIND[name] === 'continuous'
+            ? meanSquaredError(part, column)
+            : softmaxCrossEntropy(part, tf.reshape(column, [-1]) as tf.Tensor1D);
+        });
         return tf.div(tf.addN(losses), losses.length);
       },
     },

@@ -54,8 +54,10 @@ export function episodeSplit(data: Dataset): DatasetSplit {
   return { train: pick(0, 0.6), validation: pick(0.6, 0.8), test: pick(0.8, 1) };
 }
 
+type SpecOverrides = Partial<Omit<LearnerSpec, 'train'>> & { readonly train?: Partial<LearnerSpec['train']> };
+
 /** A learner spec with small defaults, overridable per test. */
-export function learnerSpec(overrides: Partial<LearnerSpec> & { train?: Partial<LearnerSpec['train']> }): LearnerSpec {
+export function learnerSpec(overrides: SpecOverrides): LearnerSpec {
   const base: LearnerSpec = {
     name: 'test-learner',
     objective: 'predict',

@@ -1,4 +1,5 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { exploreCommand } from './commands/explore.js';
 import { reportCommand } from './commands/report.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
@@ -18,6 +19,7 @@ usage:
 type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
+  explore: exploreCommand,
   report: reportCommand,
 };
 

@@ -95,10 +95,10 @@ describe('explore view: noise', () => {
 
   it('names the kind, severity and parameter of each channel', () => {
     expect(exploreView(press(start(), '+', '+', '+', 'n', 'k', 'k', 'k', '+')).noise).toEqual([
-      { text: 'sight  gaussian 3 σ 1', selected: false },
-      { text: 'sound  masking 1 SNR 20 dB', selected: true },
-      { text: 'touch  gaussian 0 clean', selected: false },
-      { text: 'motor  gaussian 0 clean', selected: false },
+      { text: 'sight gaussian 3 σ 1', selected: false },
+      { text: 'sound masking 1 SNR 20dB', selected: true },
+      { text: 'touch gaussian 0 clean', selected: false },
+      { text: 'motor gaussian 0 clean', selected: false },
     ]);
   });
 });

@@ -15,7 +15,7 @@ export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
 function NoiseList({ noise }: { readonly noise: ExploreView['noise'] }) {
   return (
     <Box flexDirection="column">
-      <Text bold>noise · n channel k kind +- level</Text>
+      <Text bold>noise · keys n k + -</Text>
       {noise.map((n) => <Text key={n.text} bold={n.selected}>{`${n.selected ? '>' : ' '} ${n.text}`}</Text>)}
     </Box>
   );
@@ -27,21 +27,21 @@ export function ExploreScreen({ view }: { readonly view: ExploreView }) {
     <Box flexDirection="column">
       <Text wrap="truncate-end">{view.status}</Text>
       <Box gap={2}>
-        <MapPanel rows={view.map} />
-        <Box flexDirection="column">
+        <Box flexShrink={0}><MapPanel rows={view.map} /></Box>
+        <Box flexDirection="column" flexShrink={0}>
           <SightPanel title={view.sight.title} rows={view.sight.rows} />
-          <BarList title="touch" bars={view.touch} labelWidth={13} barWidth={8} />
+          <BarList title="touch" bars={view.touch} labelWidth={10} barWidth={8} />
         </Box>
-        <Box flexDirection="column">
+        <Box flexDirection="column" flexShrink={0}>
           <NoiseList noise={view.noise} />
           <BarList title="motor · last command" bars={view.motor} labelWidth={10} barWidth={8} />
           {view.legend.map((line) => <Text key={line}>{line}</Text>)}
         </Box>
       </Box>
       <Box gap={2}>
-        <SoundPanel {...view.sound} />
+        <Box flexShrink={0}><SoundPanel {...view.sound} /></Box>
         {view.truth == null ? null : (
-          <Box flexDirection="column">{view.truth.map((line) => <Text key={line}>{line}</Text>)}</Box>
+          <Box flexDirection="column" flexShrink={0}>{view.truth.map((line) => <Text key={line}>{line}</Text>)}</Box>
         )}
       </Box>
       {view.help ? <HelpLine keys={EXPLORE_KEYS} /> : <Text dimColor>? keys · q quit</Text>}

@@ -6,7 +6,7 @@ import { exploreView } from '../../src/tui/explore/explore-view.js';
 import { noisySenses } from '../../src/tui/explore/noisy-senses.js';
 import { BELL_AHEAD, bellRoom } from './worlds.js';
 
-const start = (): ExploreState => initialExploreState([{ path: 'a', world: bellRoom(BELL_AHEAD) }], 7, true);
+const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD)], 7, true);
 const press = (state: ExploreState, ...keys: string[]) => keys.reduce(reduceExplore, state);
 
 /** 16 band centres equally spaced in mel from 100 Hz to 8 kHz, mel = 2595·log10(1 + f/700) (O'Shaughnessy 1987). */

@@ -1,25 +1,13 @@
 import { Box, Text } from 'ink';
+import { EXPLORE_KEYS } from '../explore/explore-state.js';
 import type { ExploreView } from '../explore/explore-view.js';
 import { BarList } from './bar-list.js';
 import { HelpLine } from './help-line.js';
 import { MapPanel } from './map-panel.js';
+import { NoiseList } from './noise-list.js';
 import { SightPanel } from './sight-panel.js';
 import { SoundPanel } from './sound-panel.js';
 
-/** The explore keys, as the help line lists them. */
-export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
-  ['↑↓←→/wasd', 'move'], ['.', 'stay'], ['t', 'clock'], ['n k + -', 'noise'],
-  ['g', 'world'], ['c', 'colour'], ['l', 'truth'], ['?', 'help'], ['q', 'quit'],
-];
-
-function NoiseList({ noise }: { readonly noise: ExploreView['noise'] }) {
-  return (
-    <Box flexDirection="column">
-      <Text bold>noise · keys n k + -</Text>
-      {noise.map((n) => <Text key={n.text} bold={n.selected}>{`${n.selected ? '>' : ' '} ${n.text}`}</Text>)}
-    </Box>
-  );
-}
 
 /** The whole explore screen: status, map, every sense, noise settings and keys. */
 export function ExploreScreen({ view }: { readonly view: ExploreView }) {

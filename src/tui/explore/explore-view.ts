@@ -32,7 +32,7 @@ const DB_SPAN = 60;
 
 /** The explore screen's content for a state. */
 export function exploreView(state: ExploreState): ExploreView {
-  const { world } = state.worlds[state.worldIndex];
+  const world = state.worlds[state.worldIndex];
   const senses = noisySenses(state);
   const { pose, transition } = state;
   const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : 'stayed';

@@ -1,4 +1,6 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { checkCommand } from './commands/check.js';
+import { senseCommand } from './commands/sense.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -16,7 +18,10 @@ usage:
 
 type Command = (args: readonly string[]) => Promise<number>;
 
-const COMMANDS: Record<string, Command> = {};
+const COMMANDS: Record<string, Command> = {
+  check: checkCommand,
+  sense: senseCommand,
+};
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {

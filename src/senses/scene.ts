@@ -1,6 +1,7 @@
 import type { World } from '../world/types.js';
 import { dbToPower, spectrumShapeDb, THUD } from './acoustics.js';
-import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from './channel.js';
+import { DEFAULT_SENSE_SETTINGS, type ChannelName, type SenseSettings } from './channel.js';
+import { channelSize } from './registry.js';
 import { bandCentresHz } from './mel.js';
 import { buildSightRays, illumination, type SightRays } from './sight-rays.js';
 import { soundCellTable } from './sound-table.js';
@@ -20,6 +21,8 @@ export interface SensoryScene {
   readonly cellColour: Float32Array; // [cells, 3] what the eye sees at each cell
   readonly rays: readonly SightRays[]; // one per heading
   readonly light: Float32Array; // [depth, width]
+  /** Numbers per step of each channel, in CHANNELS order (registry.ts). */
+  readonly sizes: Readonly<Record<ChannelName, number>>;
   /** Per-cell sound tables, built on the agent's first visit to a cell. */
   readonly soundCells: (Float64Array | undefined)[];
 }
@@ -61,6 +64,7 @@ export function createScene(world: World, settings: SenseSettings = DEFAULT_SENS
   return {
     world, settings, bandsHz, ambientPower: dbToPower(world.ambientDb), emitterPower1m, footstepPower, thudPower,
     cellColour: colours(world), rays: buildSightRays(width, depth), light: illumination(width, depth),
+    sizes: { sight: channelSize('sight', settings), sound: channelSize('sound', settings), touch: channelSize('touch', settings), motor: channelSize('motor', settings) },
     soundCells: new Array(world.width * world.height),
   };
 }

@@ -96,6 +96,16 @@ describe('crosswise sense --json on a hand-made closet', () => {
   });
 });
 
+describe('crosswise sense without --json', () => {
+  it('prints a readable table headed by the world, pose, action and step', async () => {
+    expect(await senseCommand([join(dir, 'closet.yaml'), '--at', '2,1,east', '--action', 'forward', '--step', '3'])).toBe(0);
+    const lines = out.join('\n').split('\n');
+    expect(lines[0]).toBe("closet: x=2 y=1 facing east, after 'forward', step 3");
+    expect(lines[2]).toBe('  d0  0.00 0.00 0.00 | 0.25 0.25 0.25 | 0.00 0.00 1.00 | 0.25 0.25 0.25 | 0.00 0.00 0.00');
+    expect(lines).toContain('  nearest_emitter     buzzer');
+  });
+});
+
 describe('crosswise sense argument errors', () => {
   it('rejects a missing --at with one line and exit 1', async () => {
     expect(await senseCommand([join(dir, 'closet.yaml')])).toBe(1);

@@ -1,5 +1,7 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
 import { reportCommand } from './commands/report.js';
+import { checkCommand } from './commands/check.js';
+import { senseCommand } from './commands/sense.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -19,6 +21,8 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   report: reportCommand,
+  check: checkCommand,
+  sense: senseCommand,
 };
 
 /** Runs one command line and returns the process exit code. */

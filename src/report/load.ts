@@ -13,8 +13,10 @@ export interface CellRecord {
   readonly status: 'done' | 'failed' | 'unknown';
   readonly reason: string;
   readonly vary: Readonly<Record<string, string>>;
-  /** Mean validation loss per epoch from train.csv, [epoch - 1]; empty without train.csv. */
+  /** This cell's validation loss per epoch from train.csv, [epoch − 1]; empty without train.csv. */
   readonly validationLoss: readonly number[];
+  /** Angle in degrees between the rule's update and the true gradient at the last epoch, per layer (alignment_deg_<layer> columns). */
+  readonly finalAlignmentDeg: Readonly<Record<string, number>>;
   readonly hasFeatures: boolean;
 }
 
@@ -91,6 +93,7 @@ async function readCell(dir: string, id: string): Promise<CellRecord> {
     for (const [k, v] of Object.entries(json.vary)) vary[k] = typeof v === 'string' ? v : JSON.stringify(v);
   }
   const trainPath = join(dir, 'train.csv');
+  const training = existsSync(trainPath) ? parseTrainCsv(await readFile(trainPath, 'utf8'), trainPath) : { validationLoss: [], finalAlignmentDeg: {} };
   return {
     id,
     learner: typeof json.learner === 'string' ? json.learner : '?',
@@ -98,13 +101,13 @@ async function readCell(dir: string, id: string): Promise<CellRecord> {
     status,
     reason: typeof json.reason === 'string' ? json.reason : '',
     vary,
-    validationLoss: existsSync(trainPath) ? validationLosses(await readFile(trainPath, 'utf8'), trainPath) : [],
+    ...training,
     hasFeatures: existsSync(join(dir, 'test_features.npy')),
   };
 }
 
-/** The validation_loss column of a train.csv, indexed by epoch − 1. */
-function validationLosses(text: string, path: string): number[] {
+/** The validation_loss column of a train.csv indexed by epoch − 1, and the last row's alignment angles. */
+function parseTrainCsv(text: string, path: string): { validationLoss: number[]; finalAlignmentDeg: Record<string, number> } {
   const [header, ...records] = parseCsv(text, path);
   const epochAt = header?.fields.indexOf('epoch') ?? -1;
   const lossAt = header?.fields.indexOf('validation_loss') ?? -1;
@@ -113,7 +116,17 @@ function validationLosses(text: string, path: string): number[] {
   for (const { line, fields } of records) {
     const epoch = Number(fields[epochAt]);
     if (!Number.isInteger(epoch) || epoch < 1) throw new Error(`${path}:${line}: epoch: expected a positive integer, got '${fields[epochAt]}'`);
-    losses[epoch - 1] = Number(fields[lossAt]);
+    losses[epoch - 1] = numberOrNaN(fields[lossAt]);
   }
-  return Array.from(losses, (v) => v ?? NaN);
+  const finalAlignmentDeg: Record<string, number> = {};
+  const last = records.at(-1);
+  header.fields.forEach((name, i) => {
+    if (last != null && name.startsWith('alignment_deg_')) finalAlignmentDeg[name.slice('alignment_deg_'.length)] = numberOrNaN(last.fields[i]);
+  });
+  return { validationLoss: Array.from(losses, (v) => v ?? NaN), finalAlignmentDeg };
+}
+
+/** A CSV number; an empty field is a missing value, not 0. */
+function numberOrNaN(text: string | undefined): number {
+  return text == null || text.trim() === '' ? NaN : Number(text);
 }

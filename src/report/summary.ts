@@ -4,7 +4,8 @@ import type { LearnerCka } from './learner-cka.js';
 import type { StoredRun } from './load.js';
 import { meanCi, table } from './markdown.js';
 import { robustnessPlotPath, trainingPlotPath } from './plots.js';
-import { comparisonTable, robustnessTable, scoreTable, verdict } from './sections.js';
+import { FEW_SEEDS, alignmentTable, comparisonTable, iqmTable, robustnessTable, scoreTable, verdict } from './sections.js';
+import { cellsOf } from './learner-cka.js';
 
 /** Everything summary.md is written from. */
 export interface SummaryInput {
@@ -65,6 +66,10 @@ function combinationBlock(input: SummaryInput, combo: Combination, index: number
       const rows = scored.filter((r) => r.channel === noise.channel && r.kind === noise.kind);
       const chance = combo.rows.filter((r) => r.target === target && r.metric === 'chance' && r.channel === noise.channel && r.kind === noise.kind);
       lines.push(`### ${target}: ${noise.channel} ${noise.kind} noise (${METRIC_NAMES[metric]})`, '', ...scoreTable(rows, chance), '');
+      if (unique(rows.map((r) => r.seed)).length >= FEW_SEEDS) {
+        lines.push('Interquartile mean over seeds with its 95% percentile-bootstrap CI (Agarwal et al. 2021):', '',
+          ...iqmTable(rows, `${combo.index}/${target}/${noise.channel}/${noise.kind}`), '');
+      }
       const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
       if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
       lines.push(`Robustness of the mean curves (CE and relative CE against the baseline; Hendrycks & Dietterich 2019):`, '',
@@ -79,6 +84,12 @@ function combinationBlock(input: SummaryInput, combo: Combination, index: number
   lines.push(...ckaBlocks(input, combo));
   const training = trainingPlotPath(index);
   if (input.plots.has(training)) lines.push('### Training', '', `![validation loss per epoch](${training})`, '');
+  const alignment = alignmentTable(cellsOf(run, combo));
+  if (alignment.length > 0) {
+    lines.push('### Alignment of the learning rule with the gradient', '',
+      'Angle between each layer\'s update under the learning rule and the true gradient at the last epoch (0° = backprop\'s direction, 90° = unrelated).', '',
+      ...alignment, '');
+  }
   return lines;
 }
 

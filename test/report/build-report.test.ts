@@ -47,6 +47,13 @@ describe('summary.md (from the fixture test data)', () => {
       + 'and its 95% CI excludes 0: sound-from-sight and untrained were not distinguishable from sight-autoencoder.');
   });
 
+  it('tabulates the final alignment angle per layer over seeds', async () => {
+    // hidden1 ends at 61, 62, 63 degrees → mean 62, sd 1, half-width 4.3027 / √3 = 2.484 (t from standard tables).
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| learner | hidden1 (degrees) | output (degrees) |');
+    expect(text).toContain('| sound-from-sight | 62.000 ± 2.484 (n=3) | 0.000 ± 0.000 (n=3) |');
+  });
+
   it('lists the failed cell with its reason', async () => {
     const text = await readFile(files.summaryPath, 'utf8');
     expect(text).toContain('| forec-1 | sight-forecaster | 1 | loss became NaN at epoch 2 |');

@@ -3,7 +3,7 @@ import { readdir, readFile, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { parseCsv } from './csv.js';
-import { parseResultsCsv, type ResultRow } from './results-table.js';
+import { parseResultsCsv, type ResultRow, type ResultsTable } from './results-table.js';
 
 /** What a cell folder says about its cell (cells/<id>/cell.json). */
 export interface CellRecord {
@@ -35,8 +35,10 @@ export interface StoredRun {
 export async function loadRun(outDir: string): Promise<StoredRun> {
   if (!existsSync(outDir) || !(await stat(outDir)).isDirectory()) throw new Error(`${outDir}: no such directory`);
   const resultsPath = join(outDir, 'results.csv');
-  if (!existsSync(resultsPath)) throw new Error(`${resultsPath}: not found (no results to report; run the sweep first)`);
-  const table = parseResultsCsv(await readFile(resultsPath, 'utf8'), resultsPath);
+  const table = existsSync(resultsPath)
+    ? parseResultsCsv(await readFile(resultsPath, 'utf8'), resultsPath)
+    : await cellResults(join(outDir, 'cells'));
+  if (table == null) throw new Error(`${resultsPath}: not found (no results to report; run the sweep first)`);
   if (table.rows.length === 0) throw new Error(`${resultsPath}: holds no result rows (no results to report)`);
   const warnings: string[] = [];
   const config = await readConfig(join(outDir, 'config.resolved.yaml'), warnings);
@@ -49,6 +51,24 @@ export async function loadRun(outDir: string): Promise<StoredRun> {
     baseline = null;
   }
   return { outDir, name: config.name, baseline, varyKeys: table.varyKeys, rows: table.rows, cells, warnings };
+}
+
+/**
+ * Without a top-level results.csv (e.g. cells run on other machines and copied in), the
+ * union of cells/<id>/results.csv in the same format; null when there are none.
+ */
+async function cellResults(dir: string): Promise<ResultsTable | null> {
+  if (!existsSync(dir)) return null;
+  const paths = (await readdir(dir)).sort().map((id) => join(dir, id, 'results.csv')).filter(existsSync);
+  if (paths.length === 0) return null;
+  const tables = await Promise.all(paths.map(async (p) => parseResultsCsv(await readFile(p, 'utf8'), p)));
+  const varyKeys = tables[0].varyKeys;
+  tables.forEach((t, i) => {
+    if (JSON.stringify(t.varyKeys) !== JSON.stringify(varyKeys)) {
+      throw new Error(`${paths[i]}:1: vary columns ${t.varyKeys.join(', ') || '(none)'} differ from ${paths[0]}'s ${varyKeys.join(', ') || '(none)'}`);
+    }
+  });
+  return { varyKeys, rows: tables.flatMap((t) => t.rows) };
 }
 
 async function readConfig(path: string, warnings: string[]): Promise<{ name: string; baseline: string | null }> {

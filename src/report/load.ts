@@ -55,11 +55,11 @@ export async function loadRun(outDir: string): Promise<StoredRun> {
 
 /**
  * Without a top-level results.csv (e.g. cells run on other machines and copied in), the
- * union of cells/<id>/results.csv in the same format; null when there are none.
+ * union of the cells' own scores (cells/<id>/scores.csv, the same format); null when there are none.
  */
 async function cellResults(dir: string): Promise<ResultsTable | null> {
   if (!existsSync(dir)) return null;
-  const paths = (await readdir(dir)).sort().map((id) => join(dir, id, 'results.csv')).filter(existsSync);
+  const paths = (await readdir(dir)).sort().map((id) => join(dir, id, 'scores.csv')).filter(existsSync);
   if (paths.length === 0) return null;
   const tables = await Promise.all(paths.map(async (p) => parseResultsCsv(await readFile(p, 'utf8'), p)));
   const varyKeys = tables[0].varyKeys;

@@ -90,7 +90,7 @@ export function alignmentTable(cells: readonly CellRecord[]): string[] {
   const measured = cells.filter((c) => c.status === 'done' && Object.keys(c.finalAlignmentDeg).length > 0);
   const layers = unique(measured.flatMap((c) => Object.keys(c.finalAlignmentDeg)));
   if (layers.length === 0) return [];
-  return table(['learner', ...layers.map((l) => `${l} (degrees)`)], unique(measured.map((c) => c.learner)).map((learner) => [
+  return table(['learner', ...layers.map((l) => `layer ${l} (degrees)`)], unique(measured.map((c) => c.learner)).map((learner) => [
     learner, ...layers.map((layer) => meanCi(summarise(measured.filter((c) => c.learner === learner).map((c) => c.finalAlignmentDeg[layer] ?? NaN)))),
   ]));
 }

@@ -48,9 +48,9 @@ describe('summary.md (from the fixture test data)', () => {
   });
 
   it('tabulates the final alignment angle per layer over seeds', async () => {
-    // hidden1 ends at 61, 62, 63 degrees → mean 62, sd 1, half-width 4.3027 / √3 = 2.484 (t from standard tables).
+    // layer 1 ends at 61, 62, 63 degrees → mean 62, sd 1, half-width 4.3027 / √3 = 2.484 (t from standard tables).
     const text = await readFile(files.summaryPath, 'utf8');
-    expect(text).toContain('| learner | hidden1 (degrees) | output (degrees) |');
+    expect(text).toContain('| learner | layer 1 (degrees) | layer 2 (degrees) |');
     expect(text).toContain('| sound-from-sight | 62.000 ± 2.484 (n=3) | 0.000 ± 0.000 (n=3) |');
   });
 

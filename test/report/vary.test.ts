@@ -49,13 +49,13 @@ describe('report with vary keys', () => {
 });
 
 describe('report from per-cell results', () => {
-  it('reads cells/<id>/results.csv when there is no top-level results.csv', async () => {
+  it('reads the scores.csv file of every cell when there is no top-level results.csv', async () => {
     const dir = await mkdtemp(join(tmpdir(), 'report-cells-'));
     try {
       const all = rows();
       for (const cell of new Set(all.map((r) => r.cell))) {
         await mkdir(join(dir, 'cells', cell), { recursive: true });
-        await writeFile(join(dir, 'cells', cell, 'results.csv'),
+        await writeFile(join(dir, 'cells', cell, 'scores.csv'),
           formatResultsCsv(all.filter((r) => r.cell === cell), ['learners.*.encoder.hidden']));
       }
       await writeFile(join(dir, 'config.resolved.yaml'), 'name: cells-test\nprobe: { baseline: a }\n');

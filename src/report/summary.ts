@@ -1,4 +1,4 @@
-import type { Comparison } from './comparisons.js';
+import { holmFamilySize, type Comparison } from './comparisons.js';
 import { noises, scoreMetric, unique, type Combination } from './groups.js';
 import type { LearnerCka } from './learner-cka.js';
 import type { StoredRun } from './load.js';
@@ -50,7 +50,7 @@ function preamble({ run, comparisons }: SummaryInput): string[] {
     'Scores are R² for continuous targets and accuracy for categorical ones. Each cell shows the mean over seeds ± the half-width of its 95% confidence interval (Student t), with n seeds.',
   ];
   if (run.baseline != null) {
-    lines.push(`Paired differences are learner − baseline on the same seeds (same data and noise draws), tested with the paired t-test; p-values are Holm-adjusted over all ${comparisons.length} comparisons in this report (Holm 1979).`);
+    lines.push(`Paired differences are learner − baseline on the same seeds (same data and noise draws), tested with the paired t-test; p-values are Holm-adjusted (Holm 1979) over the ${holmFamilySize(comparisons)} comparisons in this report that have a defined p-value (a clean comparison repeated under several noises counts once). p and d_z are n/a with fewer than 2 seeds or when every seed gives the same difference.`);
   }
   return lines;
 }
@@ -72,7 +72,9 @@ function combinationBlock(input: SummaryInput, combo: Combination, index: number
       }
       const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
       if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
-      lines.push(`Robustness of the mean curves (CE and relative CE against the baseline; Hendrycks & Dietterich 2019):`, '',
+      lines.push('Robustness of the mean curves (Hendrycks & Dietterich 2019): normalised area is the average score over the severity range (trapezoid rule); '
+        + 'drop is the clean score minus the score at the highest severity; CE is the summed error 1 − score over noisy severities relative to the baseline\'s; '
+        + 'relative CE counts only the error added to each learner\'s own clean error.', '',
         ...robustnessTable(rows, run.baseline), '');
       if (run.baseline == null) continue;
       const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compareWithBaseline } from '../../src/report/comparisons.js';
+import { compareWithBaseline, holmFamilySize } from '../../src/report/comparisons.js';
 import type { ResultRow } from '../../src/report/results-table.js';
 
 // Test data: learners a (baseline) and b, three seeds, one target, two noises that share
@@ -38,6 +38,7 @@ describe('compareWithBaseline', () => {
       all.find((c) => c.channel === 'sound' && c.severity === 1)!.p];
     const smallest = Math.min(...distinct);
     expect(Math.min(...all.map((c) => c.pHolm))).toBeCloseTo(3 * smallest, 12);
+    expect(holmFamilySize(all)).toBe(3);
   });
 
   it('leaves out learners without a seed in common with the baseline', () => {

@@ -91,7 +91,7 @@ async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]>
     const jsonPath = join(dir, id, 'cell.json');
     if (!existsSync(jsonPath)) continue; // an unfinished cell: nothing was committed
     try {
-      cells.push(await readCell(join(dir, id), id));
+      cells.push(await readCell(join(dir, id), id, warnings));
     } catch (error) {
       warnings.push((error as Error).message);
     }
@@ -99,7 +99,7 @@ async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]>
   return cells;
 }
 
-async function readCell(dir: string, id: string): Promise<CellRecord> {
+async function readCell(dir: string, id: string, warnings: string[]): Promise<CellRecord> {
   const jsonPath = join(dir, 'cell.json');
   let json: Record<string, unknown>;
   try {
@@ -113,7 +113,12 @@ async function readCell(dir: string, id: string): Promise<CellRecord> {
     for (const [k, v] of Object.entries(json.vary)) vary[k] = typeof v === 'string' ? v : JSON.stringify(v);
   }
   const trainPath = join(dir, 'train.csv');
-  const training = existsSync(trainPath) ? parseTrainCsv(await readFile(trainPath, 'utf8'), trainPath) : { validationLoss: [], finalAlignmentDeg: {} };
+  let training: ReturnType<typeof parseTrainCsv> = { validationLoss: [], finalAlignmentDeg: {} };
+  try {
+    if (existsSync(trainPath)) training = parseTrainCsv(await readFile(trainPath, 'utf8'), trainPath);
+  } catch (error) {
+    warnings.push(`${(error as Error).message} (training curve left out)`);
+  }
   return {
     id,
     learner: typeof json.learner === 'string' ? json.learner : '?',

@@ -1,4 +1,4 @@
-import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
+import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -126,6 +126,23 @@ describe('buildReport errors', () => {
       expect(await readdir(empty)).toEqual([]);
     } finally {
       await rm(empty, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('buildReport with damaged cell files', () => {
+  it('warns about a bad train.csv and a bad cell.json, naming the file, and still reports', async () => {
+    const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
+    try {
+      await writeFixture(damaged);
+      await writeFile(join(damaged, 'cells', 'untra-1', 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
+      await writeFile(join(damaged, 'cells', 'untra-2', 'cell.json'), '{ not json');
+      const report = await buildReport(damaged);
+      expect(report.warnings).toContain(`${join(damaged, 'cells', 'untra-1', 'train.csv')}:2: epoch: expected a positive integer, got 'first' (training curve left out)`);
+      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', 'untra-2', 'cell.json')}: not valid JSON`))).toBe(true);
+      expect(await readFile(report.summaryPath, 'utf8')).toContain('## Warnings');
+    } finally {
+      await rm(damaged, { recursive: true, force: true });
     }
   });
 });

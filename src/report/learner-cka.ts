@@ -12,7 +12,7 @@ export interface LearnerCka {
   readonly matrix: readonly (readonly Summary[])[];
 }
 
-/** The done cells of a combination, matched by the cell ids in its result rows or by the vary values in cell.json. */
+/** The cells of a combination: those whose id appears in its result rows, and unfinished or failed ones whose cell.json vary values match. */
 export function cellsOf(run: StoredRun, combo: Combination): CellRecord[] {
   const ids = new Set(combo.rows.map((r) => r.cell));
   const key = comboKey(combo.values, run.varyKeys);
@@ -31,6 +31,7 @@ export async function learnerCka(run: StoredRun, combo: Combination, warnings: s
   const values = learners.map(() => learners.map((): number[] => []));
   for (const seed of unique(cells.map((c) => c.seed))) {
     const features = await seedFeatures(run, cells.filter((c) => c.seed === seed), warnings);
+    if (features.size === 0) continue;
     const rows = Math.min(...[...features.values()].map((f) => f.shape[0]));
     if ([...features.values()].some((f) => f.shape[0] !== rows)) {
       warnings.push(`seed ${seed}: learners stored different numbers of test rows; CKA between learners uses the first ${rows}`);

@@ -58,8 +58,9 @@ export function verdict(target: string, noise: Noise, baseline: string, comparis
     const mine = noisy.filter((c) => c.learner === learner && isReliable(c));
     const higher = mine.filter((c) => c.meanDiff > 0).map((c) => String(c.severity));
     const lower = mine.filter((c) => c.meanDiff < 0).map((c) => String(c.severity));
-    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at severity ${englishList(higher)}`);
-    if (lower.length > 0) parts.push(`${learner} scored reliably lower at severity ${englishList(lower)}`);
+    const at = (levels: readonly string[]): string => `${levels.length === 1 ? 'severity' : 'severities'} ${englishList(levels)}`;
+    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at ${at(higher)}`);
+    if (lower.length > 0) parts.push(`${learner} scored reliably lower than ${baseline} at ${at(lower)}`);
     if (higher.length === 0 && lower.length === 0) quiet.push(learner);
   }
   if (quiet.length > 0) parts.push(`${englishList(quiet)} ${quiet.length === 1 ? 'was' : 'were'} not distinguishable from ${baseline}`);

@@ -42,7 +42,7 @@ describe('summary.md (from the fixture test data)', () => {
     const text = await readFile(files.summaryPath, 'utf8');
     expect(text).toContain('In these runs (3 seeds), for x under sight gaussian noise, counting a difference as reliable when its '
       + 'Holm-adjusted p < 0.05 and its 95% CI excludes 0: sound-from-sight scored reliably higher than sight-autoencoder at severity 1; '
-      + 'untrained scored reliably lower at severity 1. With 3 seeds the paired tests have little power');
+      + 'untrained scored reliably lower than sight-autoencoder at severity 1. With 3 seeds the paired tests have little power');
     expect(text).toContain('for wall_ahead under sight gaussian noise, counting a difference as reliable when its Holm-adjusted p < 0.05 '
       + 'and its 95% CI excludes 0: sound-from-sight and untrained were not distinguishable from sight-autoencoder.');
   });

@@ -1,4 +1,5 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { reportCommand } from './commands/report.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -16,7 +17,9 @@ usage:
 
 type Command = (args: readonly string[]) => Promise<number>;
 
-const COMMANDS: Record<string, Command> = {};
+const COMMANDS: Record<string, Command> = {
+  report: reportCommand,
+};
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {

@@ -1,7 +1,10 @@
+import { fileURLToPath } from 'node:url';
+import { collect, splitByEpisode } from '../collect/index.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
 import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
 import { createRng, normal, randomInt } from '../random.js';
-import { CHANNELS, type ChannelName } from '../senses/channel.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
+import { loadWorld } from '../world/index.js';
 
 /** One benchmark figure. */
 export interface BenchRow {
@@ -11,14 +14,18 @@ export interface BenchRow {
   readonly detail: string;
 }
 
-/**
- * Channel widths of the default senses: sight 4 deep × 5 wide × RGB, sound 2 ears × 16
- * bands, touch 3 whiskers + bump + a 4-band footfall spectrum, motor 5 actions.
- */
-const DEFAULT_SIZES: Record<ChannelName, number> = { sight: 60, sound: 32, touch: 8, motor: 5 };
+const DEMO_WORLD = fileURLToPath(new URL('../../worlds/greenhouse.yaml', import.meta.url));
+
+/** Experience from the greenhouse demo world at the default sense sizes; a one-episode validation split. */
+function demoWorkload(steps: number): { data: Dataset; split: DatasetSplit } {
+  const data = collect(loadWorld(DEMO_WORLD), { policy: 'wander', steps, episodeSteps: 100 }, DEFAULT_SENSE_SETTINGS, 1);
+  // All but one episode train, so evaluation time stays out of the training figure.
+  const episodes = data.episode[steps - 1] + 1;
+  return { data, split: splitByEpisode(data, { train: 1 - 1 / episodes, validation: 1 / episodes, test: 0 }, 1) };
+}
 
 /**
- * A throughput workload: Gaussian channels of the given widths, a one-hot action, random
+ * A throughput workload for the reference MLP: Gaussian channels of the given widths, a one-hot action, random
  * latents, episodes of 100 steps. Its content is irrelevant to speed; it is not a world.
  */
 function workload(rows: number, sizes: Record<ChannelName, number>): { data: Dataset; split: DatasetSplit } {
@@ -75,13 +82,13 @@ const CASES: readonly Case[] = [
   { label: 'supervised from sight', spec: { objective: 'supervised' } },
 ];
 
-/** Training throughput per objective at default sizes, and the 160→128→128→48 reference on cpu and wasm. */
+/** Training throughput per objective at default sizes on greenhouse data, and the 160→128→128→48 reference on cpu and wasm. */
 export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchRow[]> {
   const rounds = opts.quick ? 1 : 3;
   const epochs = opts.quick ? 2 : 3;
   const rows: BenchRow[] = [];
   await initBackend(opts.backend);
-  const defaults = workload(opts.quick ? 2660 : 10340, DEFAULT_SIZES);
+  const defaults = demoWorkload(opts.quick ? 2700 : 10300);
   for (const c of CASES) {
     const spec: LearnerSpec = { ...DEFAULT_SPEC, ...c.spec, train: { ...DEFAULT_SPEC.train, epochs } };
     rows.push({

@@ -1,4 +1,5 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { exploreCommand } from './commands/explore.js';
 import { reportCommand } from './commands/report.js';
 import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
@@ -20,6 +21,7 @@ usage:
 type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
+  explore: exploreCommand,
   report: reportCommand,
   check: checkCommand,
   sense: senseCommand,

@@ -1,4 +1,9 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { cellCommand } from './commands/cell.js';
+import { clusterCommand } from './commands/cluster.js';
+import { planCommand } from './commands/plan.js';
+import { runCommand } from './commands/run.js';
+import { schemaCommand } from './commands/schema.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -16,7 +21,13 @@ usage:
 
 type Command = (args: readonly string[]) => Promise<number>;
 
-const COMMANDS: Record<string, Command> = {};
+const COMMANDS: Record<string, Command> = {
+  run: (args) => runCommand(args),
+  plan: planCommand,
+  cell: (args) => cellCommand(args),
+  cluster: clusterCommand,
+  schema: schemaCommand,
+};
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {

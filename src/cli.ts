@@ -4,6 +4,7 @@ import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
 import { runCommand } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
+import { reportCommand } from './commands/report.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -27,6 +28,7 @@ const COMMANDS: Record<string, Command> = {
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,
   schema: schemaCommand,
+  report: reportCommand,
 };
 
 /** Runs one command line and returns the process exit code. */

@@ -1,0 +1,6 @@
+import { ACTIONS, type Action } from '../world/types.js';
+
+/** Writes the efference copy of `action` as a one-hot vector in ACTIONS order at `out[at..]`. */
+export function senseMotor(action: Action, out: Float32Array, at: number): void {
+  for (let i = 0; i < ACTIONS.length; i++) out[at + i] = ACTIONS[i] === action ? 1 : 0;
+}

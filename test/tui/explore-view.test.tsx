@@ -110,7 +110,18 @@ describe('explore view: map and text', () => {
     expect(v.map[1][2].mark).toBe('sounding');
     expect(v.map[2][2].mark).toBe('view');
     expect(v.status).toBe('bell-room · step 0 · x 2 y 3 facing north · stay: stayed');
-    expect(v.legend).toEqual(['^>v< you · reverse: in view', 'E bell sounding']);
+    expect(v.legend).toEqual(['^>v< you · reverse: in view', 'sounding: E bell', 'silent: –']);
+  });
+
+  it('shows a 22×14 window of a larger map, centred on the agent but kept inside the map', () => {
+    const wide = ['#'.repeat(30), `#${'.'.repeat(27)}E#`, ...Array<string>(2).fill(`#${'.'.repeat(28)}#`), '#'.repeat(30)];
+    const at = (x: number) => initialExploreState([bellRoom(wide, `{ x: ${x}, y: 2, heading: east }`)], 1, false);
+    // Agent at x 20: the window would start at 20 − 11 = 9 but must end by column 29, so it starts at 8.
+    const right = exploreView(at(20));
+    expect(right.map.map((row) => row.map((c) => c.glyph).join(''))[2]).toBe('............>........#');
+    expect(right.legend).toContain('map x 8–29 y 0–4 of 30×5');
+    // Agent at x 3: the window starts at column 0.
+    expect(exploreView(at(3)).map[2].map((c) => c.glyph).join('')).toBe('#..>..................');
   });
 
   it('shows the bell as silent once the clock moves on', () => {

@@ -41,7 +41,7 @@ export function exploreView(state: ExploreState): ExploreView {
     status: `${world.name} · step ${state.stepIndex} · x ${pose.x} y ${pose.y} facing ${pose.heading} · ${state.action}: ${outcome}`
       + (noisy.length > 0 ? ` · noisy: ${noisy.join(', ')}` : ''),
     map: mapCells(state, world),
-    legend: legend(world, state.stepIndex),
+    legend: legend(state, world),
     sight: { title: 'sight · far row on top', rows: sightBlocks(senses.sight, SETTINGS.sight.width, SETTINGS.sight.depth, state.colour) },
     sound: soundProps(senses.sound, world),
     touch: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), senses.touch[i])),
@@ -71,31 +71,62 @@ function noiseText(noise: ChannelNoise): string {
   return `${noise.kind} ${noise.severity} ${detail}`;
 }
 
+/** The largest piece of map shown at once, in cells; bigger maps scroll with the agent. */
+export const MAP_WINDOW = { width: 22, height: 14 } as const;
+
+/** The first cell of a window of `size` cells centred on `at` and kept inside 0..extent. */
+function windowStart(at: number, size: number, extent: number): number {
+  return Math.max(0, Math.min(at - Math.floor(size / 2), extent - size));
+}
+
+/** The map window around the agent: first column and row, and its size. */
+export function mapWindow(state: ExploreState, world: World): { x0: number; y0: number; width: number; height: number } {
+  const width = Math.min(MAP_WINDOW.width, world.width);
+  const height = Math.min(MAP_WINDOW.height, world.height);
+  return { x0: windowStart(state.pose.x, width, world.width), y0: windowStart(state.pose.y, height, world.height), width, height };
+}
+
 function mapCells(state: ExploreState, world: World): MapCell[][] {
   const scene = sceneFor(world, SETTINGS);
   const seen = new Set<number>();
   for (let k = 0; k < SETTINGS.sight.width * SETTINGS.sight.depth; k++) seen.add(visibleCell(scene, state.pose, k));
+  const { x0, y0, width, height } = mapWindow(state, world);
   const rows: MapCell[][] = [];
-  for (let y = 0; y < world.height; y++) {
+  for (let y = y0; y < y0 + height; y++) {
     const row: MapCell[] = [];
-    for (let x = 0; x < world.width; x++) {
-      const i = y * world.width + x;
-      const e = world.emitterAt[i];
-      const material = world.materials[world.material[i]];
-      const color = state.colour ? inkColour(...(e >= 0 ? world.emitters[e].colour : material.colour)) : undefined;
-      if (x === state.pose.x && y === state.pose.y) row.push({ glyph: ARROWS[state.pose.heading], mark: 'agent' });
-      else if (e >= 0) row.push({ glyph: world.emitters[e].glyph, mark: emitterIsOn(world.emitters[e], state.stepIndex) ? 'sounding' : 'silent', color });
-      else row.push({ glyph: material.glyph, mark: seen.has(i) ? 'view' : 'plain', color });
-    }
+    for (let x = x0; x < x0 + width; x++) row.push(mapCell(state, world, x, y, seen.has(y * world.width + x)));
     rows.push(row);
   }
   return rows;
 }
 
-function legend(world: World, stepIndex: number): string[] {
+function mapCell(state: ExploreState, world: World, x: number, y: number, seen: boolean): MapCell {
+  const i = y * world.width + x;
+  const e = world.emitterAt[i];
+  const material = world.materials[world.material[i]];
+  const color = state.colour ? inkColour(...(e >= 0 ? world.emitters[e].colour : material.colour)) : undefined;
+  if (x === state.pose.x && y === state.pose.y) return { glyph: ARROWS[state.pose.heading], mark: 'agent' };
+  if (e >= 0) return { glyph: world.emitters[e].glyph, mark: emitterIsOn(world.emitters[e], state.stepIndex) ? 'sounding' : 'silent', color };
+  return { glyph: material.glyph, mark: seen ? 'view' : 'plain', color };
+}
+
+const LEGEND_WIDTH = 28;
+
+/** Emitters as `F fan, W tap`, or just their glyphs when names would not fit the column. */
+function emitterList(label: string, emitters: readonly World['emitters'][number][]): string {
+  if (emitters.length === 0) return `${label} –`;
+  const named = `${label} ${emitters.map((e) => `${e.glyph} ${e.name}`).join(', ')}`;
+  return named.length <= LEGEND_WIDTH ? named : `${label} ${emitters.map((e) => e.glyph).join(' ')}`;
+}
+
+function legend(state: ExploreState, world: World): string[] {
+  const { x0, y0, width, height } = mapWindow(state, world);
+  const cropped = width < world.width || height < world.height;
   return [
     `${HEADINGS.map((h) => ARROWS[h]).join('')} you · reverse: in view`,
-    ...world.emitters.map((e) => `${e.glyph} ${e.name} ${emitterIsOn(e, stepIndex) ? 'sounding' : 'silent'}`),
+    ...(cropped ? [`map x ${x0}–${x0 + width - 1} y ${y0}–${y0 + height - 1} of ${world.width}×${world.height}`] : []),
+    emitterList('sounding:', world.emitters.filter((e) => emitterIsOn(e, state.stepIndex))),
+    emitterList('silent:', world.emitters.filter((e) => !emitterIsOn(e, state.stepIndex))),
   ];
 }
 

@@ -126,11 +126,12 @@ describe('Dashboard at the end of a sweep', () => {
     for (const e of SWEEP) events.emit(e);
     events.emit({ type: 'sweep-done', done: 2, failed: 1, seconds: 75, summary: '2 done, 1 failed', interrupted: true });
     const frame = await waitFor(() => app.lastFrame() ?? '', 'stopped:');
-    expect(frame.split('\n').slice(0, 6)).toEqual([
+    expect(frame.split('\n').slice(0, 7)).toEqual([
       'crosswise run · demo',
       'cells 2/6 done · 1 failed · 0 running · 3 queued',
       'took 1m15s · 2 workers',
       'stopped: 2 done, 1 failed',
+      'last failure: autoencoder seed 2 [c3]: loss became NaN',
       '',
       'no cell running',
     ]);

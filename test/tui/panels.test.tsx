@@ -2,6 +2,7 @@ import { render } from 'ink-testing-library';
 import { describe, expect, it } from 'vitest';
 import { BarList } from '../../src/tui/components/bar-list.js';
 import { HelpLine } from '../../src/tui/components/help-line.js';
+import { EXPLORE_KEYS } from '../../src/tui/explore/explore-state.js';
 import { MapPanel } from '../../src/tui/components/map-panel.js';
 import { SightPanel } from '../../src/tui/components/sight-panel.js';
 import { SoundPanel } from '../../src/tui/components/sound-panel.js';
@@ -69,5 +70,11 @@ describe('MapPanel', () => {
 describe('HelpLine', () => {
   it('lists key and action pairs separated by two spaces', () => {
     expect(lines(<HelpLine keys={[['q', 'quit'], ['?', 'help']]} />)).toEqual(['q quit  ? help']);
+  });
+
+  it('fits the explore keys on one line of an 80-column terminal', () => {
+    const help = lines(<HelpLine keys={EXPLORE_KEYS} />);
+    expect(help).toEqual(['↑↓←→ wasd move  . stay  t tick  n k +- noise  g world  c colour  l truth  q quit']);
+    expect(help[0].length).toBeLessThanOrEqual(80);
   });
 });

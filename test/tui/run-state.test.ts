@@ -43,7 +43,7 @@ describe('run state', () => {
     expect(p.title).toBe('crosswise run · demo');
     expect(p.counts).toBe('cells 2/6 done · 1 failed · 2 running · 1 queued');
     expect(p.timing).toBe('elapsed 5s · eta 18s · 2 workers');
-    expect(p.note).toBe('last failure: autoencoder seed 2 [c3]: loss became NaN');
+    expect(p.notes).toEqual(['last failure: autoencoder seed 2 [c3]: loss became NaN']);
   });
 
   it('counts cells stored by an earlier run as done and says so', () => {

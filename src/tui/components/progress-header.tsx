@@ -8,7 +8,7 @@ export function ProgressHeader({ progress }: { readonly progress: ProgressText }
       <Text bold>{progress.title}</Text>
       <Text>{progress.counts}</Text>
       <Text>{progress.timing}</Text>
-      {progress.note == null ? null : <Text wrap="truncate-end">{progress.note}</Text>}
+      {progress.notes.map((note) => <Text key={note} wrap="truncate-end">{note}</Text>)}
     </Box>
   );
 }

@@ -16,7 +16,8 @@ export interface ProgressText {
   readonly title: string;
   readonly counts: string;
   readonly timing: string;
-  readonly note: string | null;
+  /** How the sweep ended or is stopping, and the latest failure; empty while all is well. */
+  readonly notes: readonly string[];
 }
 
 /** One running worker's line, already formatted. */
@@ -62,13 +63,14 @@ export function progressText(state: RunState, nowMs: number, stopping: boolean):
   const timing = state.finished == null
     ? `elapsed ${formatDuration((nowMs - state.startedMs) / 1000)} · eta ${formatDuration(etaSeconds(state, nowMs))} · ${workers}`
     : `took ${formatDuration(state.finished.seconds)} · ${workers}`;
-  return { title: `crosswise run · ${state.name}`, counts, timing, note: noteText(state, stopping) };
+  return { title: `crosswise run · ${state.name}`, counts, timing, notes: notes(state, stopping) };
 }
 
-function noteText(state: RunState, stopping: boolean): string | null {
-  if (state.finished != null) return state.finished.interrupted ? `stopped: ${state.finished.summary}` : `finished: ${state.finished.summary}`;
-  if (stopping) return 'stopping: letting running cells finish';
-  return state.lastFailure == null ? null : `last failure: ${state.lastFailure}`;
+function notes(state: RunState, stopping: boolean): string[] {
+  const ending = state.finished == null
+    ? (stopping ? ['stopping: letting running cells finish'] : [])
+    : [`${state.finished.interrupted ? 'stopped' : 'finished'}: ${state.finished.summary}`];
+  return state.lastFailure == null ? ending : [...ending, `last failure: ${state.lastFailure}`];
 }
 
 /** One line per running worker, in worker order. */

@@ -64,8 +64,8 @@ const MOVES: Readonly<Record<string, Action>> = {
 
 /** The keys as the help line lists them; `reduceExplore` is their meaning. */
 export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
-  ['↑↓←→/wasd', 'move'], ['.', 'stay'], ['t', 'clock'], ['n k + -', 'noise'],
-  ['g', 'world'], ['c', 'colour'], ['l', 'truth'], ['?', 'help'], ['q', 'quit'],
+  ['↑↓←→ wasd', 'move'], ['.', 'stay'], ['t', 'tick'], ['n k +-', 'noise'],
+  ['g', 'world'], ['c', 'colour'], ['l', 'truth'], ['q', 'quit'],
 ];
 
 /** The state after one key; keys it does not know leave the state unchanged. */

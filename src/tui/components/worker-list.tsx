@@ -9,9 +9,9 @@ export function WorkerList({ workers }: { readonly workers: readonly WorkerText[
       {workers.map((w) => (
         <Box key={w.worker}>
           <Box width={10} flexShrink={0}><Text>{w.worker}</Text></Box>
-          <Box width={35} flexShrink={0} marginRight={1}><Text wrap="truncate-end">{w.cell}</Text></Box>
-          <Box width={10} flexShrink={0}><Text>{w.epoch}</Text></Box>
-          <Box width={13} flexShrink={0}><Text>{w.loss}</Text></Box>
+          <Box width={37} flexShrink={0} marginRight={1}><Text wrap="truncate-end">{w.cell}</Text></Box>
+          <Box width={9} flexShrink={0}><Text>{w.epoch}</Text></Box>
+          <Box width={12} flexShrink={0}><Text>{w.loss}</Text></Box>
           <Text wrap="truncate-end">{w.trend}</Text>
         </Box>
       ))}

@@ -1,5 +1,6 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
 import { checkCommand } from './commands/check.js';
+import { reportCommand } from './commands/report.js';
 import { senseCommand } from './commands/sense.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
@@ -20,6 +21,7 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   check: checkCommand,
+  report: reportCommand,
   sense: senseCommand,
 };
 

@@ -1,0 +1,86 @@
+import { mkdir } from 'node:fs/promises';
+import { join } from 'node:path';
+import { summarise } from '../stats/summarise.js';
+import { writeFileAtomic } from './atomic.js';
+import { compareWithBaseline, formatComparisonsCsv } from './comparisons.js';
+import { combinations, noises, scoreMetric, severities, unique, type Combination } from './groups.js';
+import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';
+import { loadRun, type StoredRun } from './load.js';
+import { bandPlotSvg, robustnessPlotPath, trainingPlotPath, type BandPoint } from './plots.js';
+import { learnerSummaries } from './sections.js';
+import { summaryMarkdown } from './summary.js';
+
+/** What `buildReport` wrote. */
+export interface ReportFiles {
+  readonly summaryPath: string;
+  readonly comparisonsPath: string;
+  /** Absolute or outDir-joined paths of the SVG plots. */
+  readonly plots: string[];
+  readonly warnings: string[];
+}
+
+/**
+ * Rebuilds summary.md, comparisons.csv and plots/*.svg from an output directory's
+ * stored results and cells; every file is written atomically. Throws a one-line error
+ * when the directory or its results are missing.
+ */
+export async function buildReport(outDir: string): Promise<ReportFiles> {
+  const run = await loadRun(outDir);
+  const warnings = [...run.warnings];
+  const combos = combinations(run.rows, run.varyKeys);
+  const comparisons = run.baseline == null ? [] : compareWithBaseline(run.rows, run.varyKeys, run.baseline);
+  const learners = unique(run.rows.map((r) => r.learner));
+  await mkdir(join(outDir, 'plots'), { recursive: true });
+  const plots = new Set<string>();
+  const ckaByCombo = new Map<number, LearnerCka | null>();
+  for (const combo of combos) {
+    const index = run.varyKeys.length > 0 ? combo.index : null;
+    for (const [path, svg] of await comboPlots(run, combo, index, learners)) {
+      await writeFileAtomic(join(outDir, path), svg);
+      plots.add(path);
+    }
+    ckaByCombo.set(combo.index, await learnerCka(run, combo, warnings));
+  }
+  const summaryPath = join(outDir, 'summary.md');
+  const comparisonsPath = join(outDir, 'comparisons.csv');
+  await writeFileAtomic(comparisonsPath, formatComparisonsCsv(comparisons, run.varyKeys));
+  await writeFileAtomic(summaryPath, summaryMarkdown({ run, combinations: combos, comparisons, learnerCka: ckaByCombo, plots, warnings }));
+  return { summaryPath, comparisonsPath, plots: [...plots].map((p) => join(outDir, p)), warnings };
+}
+
+/** The robustness plots (one per target and noise) and the training plot of one combination. */
+async function comboPlots(run: StoredRun, combo: Combination, index: number | null, learners: readonly string[]): Promise<[string, string][]> {
+  const out: [string, string][] = [];
+  for (const target of unique(combo.rows.map((r) => r.target))) {
+    const metric = scoreMetric(combo.rows, target);
+    if (metric == null) continue;
+    const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
+    for (const { channel, kind } of noises(scored)) {
+      const rows = scored.filter((r) => r.channel === channel && r.kind === kind);
+      const levels = severities(rows);
+      const points = unique(rows.map((r) => r.learner)).flatMap((learner) =>
+        learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
+      const title = `${target} under ${channel} ${kind} noise`;
+      out.push([robustnessPlotPath(target, channel, kind, index),
+        await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
+    }
+  }
+  const training = trainingPoints(run, combo);
+  if (training.length > 0) {
+    out.push([trainingPlotPath(index), await bandPlotSvg(training, learners, { title: 'Validation loss', x: 'epoch', y: 'validation loss (mean over seeds, 95% CI)' }, null)]);
+  }
+  return out;
+}
+
+/** Validation loss per epoch and learner, mean and 95% CI over the seeds that reached that epoch. */
+function trainingPoints(run: StoredRun, combo: Combination): BandPoint[] {
+  const cells = cellsOf(run, combo).filter((c) => c.status === 'done' && c.validationLoss.length > 0);
+  return unique(cells.map((c) => c.learner)).flatMap((learner) => {
+    const mine = cells.filter((c) => c.learner === learner);
+    const epochs = Math.max(...mine.map((c) => c.validationLoss.length));
+    return Array.from({ length: epochs }, (_, e): BandPoint => {
+      const s = summarise(mine.map((c) => c.validationLoss[e]).filter((v) => v !== undefined));
+      return { learner, x: e + 1, mean: s.mean, low: s.ciLow, high: s.ciHigh };
+    });
+  });
+}

@@ -1,0 +1,66 @@
+import { holm } from '../stats/holm.js';
+import { pairedComparison, type PairedComparison } from '../stats/paired.js';
+import { bySeed, combinations, noises, scoreMetric, severities, unique } from './groups.js';
+import { csvLine } from './csv.js';
+import type { ResultRow } from './results-table.js';
+
+/** One learner against the baseline at one target, noise and severity, paired by seed. */
+export interface Comparison extends PairedComparison {
+  readonly combination: number;
+  readonly vary: Readonly<Record<string, string>>;
+  readonly learner: string;
+  readonly baseline: string;
+  readonly target: string;
+  readonly channel: string;
+  readonly kind: string;
+  readonly severity: number;
+  readonly metric: string;
+  /** Holm-adjusted p across every comparison of the report (Holm 1979). */
+  readonly pHolm: number;
+}
+
+/** Every paired comparison of a learner's probe score with the baseline's, Holm-adjusted together. */
+export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
+  const raw: Omit<Comparison, 'pHolm'>[] = [];
+  for (const combo of combinations(rows, varyKeys)) {
+    const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => l !== baseline);
+    for (const target of unique(combo.rows.map((r) => r.target))) {
+      const metric = scoreMetric(combo.rows, target);
+      if (metric == null) continue;
+      const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
+      for (const { channel, kind } of noises(scored)) {
+        const noisy = scored.filter((r) => r.channel === channel && r.kind === kind);
+        for (const learner of learners) {
+          for (const severity of severities(noisy)) {
+            const at = noisy.filter((r) => r.severity === severity);
+            const base = bySeed(at, (r) => r.learner === baseline);
+            const mine = bySeed(at, (r) => r.learner === learner);
+            const seeds = [...mine.keys()].filter((s) => base.has(s)).sort((a, b) => a - b);
+            if (seeds.length === 0) continue;
+            const test = pairedComparison(seeds.map((s) => mine.get(s)!), seeds.map((s) => base.get(s)!));
+            raw.push({ ...test, combination: combo.index, vary: combo.values, learner, baseline, target, channel, kind, severity, metric });
+          }
+        }
+      }
+    }
+  }
+  const adjusted = holm(raw.map((c) => c.p));
+  return raw.map((c, i) => ({ ...c, pHolm: adjusted[i] }));
+}
+
+/** The comparisons.csv text (DESIGN, Output layout), vary columns last. */
+export function formatComparisonsCsv(comparisons: readonly Comparison[], varyKeys: readonly string[]): string {
+  let text = csvLine(['learner', 'baseline', 'target', 'channel', 'kind', 'severity', 'metric',
+    'mean_diff', 'ci_low', 'ci_high', 'p', 'p_holm', 'd_z', 'n_seeds', ...varyKeys]);
+  for (const c of comparisons) {
+    text += csvLine([c.learner, c.baseline, c.target, c.channel, c.kind, String(c.severity), c.metric,
+      ...[c.meanDiff, c.ciLow, c.ciHigh, c.p, c.pHolm, c.dz].map(String), String(c.n),
+      ...varyKeys.map((k) => c.vary[k] ?? '')]);
+  }
+  return text;
+}
+
+/** Whether a comparison shows a reliable difference: Holm p < 0.05 and a CI that excludes 0. */
+export function isReliable(c: Comparison): boolean {
+  return c.pHolm < 0.05 && (c.ciLow > 0 || c.ciHigh < 0);
+}

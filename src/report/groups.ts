@@ -1,0 +1,65 @@
+import type { ResultRow } from './results-table.js';
+
+/** One combination of vary values, with the result rows measured under it. */
+export interface Combination {
+  /** 1-based position in order of first appearance in results.csv. */
+  readonly index: number;
+  readonly values: Readonly<Record<string, string>>;
+  readonly rows: readonly ResultRow[];
+}
+
+/** A corrupted channel and the kind of corruption. */
+export interface Noise {
+  readonly channel: string;
+  readonly kind: string;
+}
+
+/** Identity of a combination's vary values, usable as a map key. */
+export function comboKey(values: Readonly<Record<string, string>>, varyKeys: readonly string[]): string {
+  return JSON.stringify(varyKeys.map((k) => values[k] ?? ''));
+}
+
+/** Splits rows by their vary values (one combination when there are no vary keys). */
+export function combinations(rows: readonly ResultRow[], varyKeys: readonly string[]): Combination[] {
+  const byKey = new Map<string, ResultRow[]>();
+  for (const r of rows) {
+    const key = comboKey(r.vary, varyKeys);
+    const list = byKey.get(key) ?? [];
+    list.push(r);
+    byKey.set(key, list);
+  }
+  return [...byKey.values()].map((list, i) => ({ index: i + 1, values: list[0].vary, rows: list }));
+}
+
+/** Distinct values in order of first appearance. */
+export function unique<T>(items: Iterable<T>): T[] {
+  return [...new Set(items)];
+}
+
+/** Distinct noises (channel, kind) in order of first appearance. */
+export function noises(rows: readonly ResultRow[]): Noise[] {
+  const seen = new Map<string, Noise>();
+  for (const r of rows) {
+    const key = `${r.channel}\u0000${r.kind}`;
+    if (!seen.has(key)) seen.set(key, { channel: r.channel, kind: r.kind });
+  }
+  return [...seen.values()];
+}
+
+/** The value per seed of the rows that pass `match` (the last row wins for a repeated seed). */
+export function bySeed(rows: readonly ResultRow[], match: (r: ResultRow) => boolean): Map<number, number> {
+  const values = new Map<number, number>();
+  for (const r of rows) if (match(r)) values.set(r.seed, r.value);
+  return values;
+}
+
+/** The probe score metric of a target's rows: accuracy for categorical targets, r2 for continuous ones. */
+export function scoreMetric(rows: readonly ResultRow[], target: string): 'r2' | 'accuracy' | null {
+  const metrics = new Set(rows.filter((r) => r.target === target).map((r) => r.metric));
+  return metrics.has('accuracy') ? 'accuracy' : metrics.has('r2') ? 'r2' : null;
+}
+
+/** Severities present in the rows, ascending. */
+export function severities(rows: readonly ResultRow[]): number[] {
+  return unique(rows.map((r) => r.severity)).sort((a, b) => a - b);
+}

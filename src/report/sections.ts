@@ -1,0 +1,67 @@
+import { summarise, type Summary } from '../stats/summarise.js';
+import { isReliable, type Comparison } from './comparisons.js';
+import { bySeed, severities, unique, type Noise } from './groups.js';
+import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
+import type { ResultRow } from './results-table.js';
+import { robustnessFigures, type CurvePoint } from './robustness.js';
+
+/** Below this many seeds the summary warns that the paired tests have little power (common practice). */
+export const FEW_SEEDS = 10;
+
+/** Mean ± CI of one learner's metric at each severity. */
+export function learnerSummaries(rows: readonly ResultRow[], learner: string, levels: readonly number[]): Summary[] {
+  return levels.map((s) => summarise([...bySeed(rows, (r) => r.learner === learner && r.severity === s).values()]));
+}
+
+/** The learner × severity table of a metric, with an optional chance row. */
+export function scoreTable(rows: readonly ResultRow[], chance: readonly ResultRow[]): string[] {
+  const levels = severities(rows);
+  const body = unique(rows.map((r) => r.learner)).map((l) => [l, ...learnerSummaries(rows, l, levels).map(meanCi)]);
+  if (chance.length > 0) {
+    body.push(['chance (majority class)', ...levels.map((s) => num(summarise(chance.filter((r) => r.severity === s).map((r) => r.value)).mean))]);
+  }
+  return table(['learner', ...levels.map((s) => `severity ${s}`)], body);
+}
+
+/** The paired comparisons of one target and noise against the baseline. */
+export function comparisonTable(comparisons: readonly Comparison[]): string[] {
+  return table(['learner', 'severity', 'difference', '95% CI', 'p (Holm)', 'd_z', 'n'], comparisons.map((c) => [
+    c.learner, String(c.severity), signed(c.meanDiff), `[${signed(c.ciLow)}, ${signed(c.ciHigh)}]`,
+    pValue(c.pHolm), num(c.dz, 2), String(c.n),
+  ]));
+}
+
+/** Normalised area, drop from clean, CE and relative CE of each learner's mean curve. */
+export function robustnessTable(rows: readonly ResultRow[], baseline: string | null): string[] {
+  const levels = severities(rows);
+  const curve = (learner: string): CurvePoint[] =>
+    learnerSummaries(rows, learner, levels).map((s, i) => ({ severity: levels[i], score: s.mean }));
+  const base = baseline != null && rows.some((r) => r.learner === baseline) ? curve(baseline) : null;
+  return table(['learner', 'normalised area', 'drop from clean', 'CE', 'relative CE'],
+    unique(rows.map((r) => r.learner)).map((l) => {
+      const f = robustnessFigures(curve(l), base);
+      return [l, num(f.normalisedArea), num(f.dropFromClean), num(f.ce), num(f.relativeCe)];
+    }));
+}
+
+/** One plain-English sentence on which learners differ reliably from the baseline under this noise. */
+export function verdict(target: string, noise: Noise, baseline: string, comparisons: readonly Comparison[]): string {
+  if (comparisons.length === 0) return `In these runs, no learner could be paired with ${baseline} by seed for ${target} under ${noise.channel} ${noise.kind} noise.`;
+  const noisy = comparisons.some((c) => c.severity > 0) ? comparisons.filter((c) => c.severity > 0) : comparisons;
+  const seeds = Math.max(0, ...noisy.map((c) => c.n));
+  const parts: string[] = [];
+  const quiet: string[] = [];
+  for (const learner of unique(noisy.map((c) => c.learner))) {
+    const mine = noisy.filter((c) => c.learner === learner && isReliable(c));
+    const higher = mine.filter((c) => c.meanDiff > 0).map((c) => String(c.severity));
+    const lower = mine.filter((c) => c.meanDiff < 0).map((c) => String(c.severity));
+    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at severity ${englishList(higher)}`);
+    if (lower.length > 0) parts.push(`${learner} scored reliably lower at severity ${englishList(lower)}`);
+    if (higher.length === 0 && lower.length === 0) quiet.push(learner);
+  }
+  if (quiet.length > 0) parts.push(`${englishList(quiet)} ${quiet.length === 1 ? 'was' : 'were'} not distinguishable from ${baseline}`);
+  const noun = seeds === 1 ? 'seed' : 'seeds';
+  let line = `In these runs (${seeds} ${noun}), for ${target} under ${noise.channel} ${noise.kind} noise, counting a difference as reliable when its Holm-adjusted p < 0.05 and its 95% CI excludes 0: ${parts.join('; ')}.`;
+  if (seeds < FEW_SEEDS) line += ` With ${seeds} ${noun} the paired tests have little power, so "not distinguishable" is not evidence of equal robustness.`;
+  return line;
+}

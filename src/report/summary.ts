@@ -1,0 +1,100 @@
+import type { Comparison } from './comparisons.js';
+import { noises, scoreMetric, unique, type Combination } from './groups.js';
+import type { LearnerCka } from './learner-cka.js';
+import type { StoredRun } from './load.js';
+import { meanCi, table } from './markdown.js';
+import { robustnessPlotPath, trainingPlotPath } from './plots.js';
+import { comparisonTable, robustnessTable, scoreTable, verdict } from './sections.js';
+
+/** Everything summary.md is written from. */
+export interface SummaryInput {
+  readonly run: StoredRun;
+  readonly combinations: readonly Combination[];
+  readonly comparisons: readonly Comparison[];
+  /** Per combination index; absent or null when no features were stored. */
+  readonly learnerCka: ReadonlyMap<number, LearnerCka | null>;
+  /** Relative paths of the plots that were written. */
+  readonly plots: ReadonlySet<string>;
+  readonly warnings: readonly string[];
+}
+
+const METRIC_NAMES: Readonly<Record<string, string>> = { r2: 'R²', accuracy: 'accuracy' };
+
+/** The text of summary.md: one block of tables per vary combination, then failed cells and warnings. */
+export function summaryMarkdown(input: SummaryInput): string {
+  const { run } = input;
+  const multi = run.varyKeys.length > 0;
+  const lines = [`# ${run.name}`, '', ...preamble(input), ''];
+  for (const combo of input.combinations) {
+    if (multi) lines.push(`## Combination ${combo.index}: ${run.varyKeys.map((k) => `\`${k}\` = ${combo.values[k]}`).join(', ')}`, '');
+    lines.push(...combinationBlock(input, combo, multi ? combo.index : null));
+  }
+  const failed = run.cells.filter((c) => c.status === 'failed');
+  if (failed.length > 0) {
+    lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', 'reason'],
+      failed.map((c) => [c.id, c.learner, String(c.seed), c.reason || 'no reason recorded'])), '');
+  }
+  if (input.warnings.length > 0) lines.push('## Warnings', '', ...input.warnings.map((w) => `- ${w}`), '');
+  return lines.join('\n');
+}
+
+function preamble({ run, comparisons }: SummaryInput): string[] {
+  const cellIds = unique([...run.rows.map((r) => r.cell), ...run.cells.map((c) => c.id)]);
+  const failed = run.cells.filter((c) => c.status === 'failed').length;
+  const seeds = unique(run.rows.map((r) => r.seed)).sort((a, b) => a - b);
+  const lines = [
+    `Rebuilt by \`crosswise report\` from ${run.rows.length} result rows of ${cellIds.length} cells (${cellIds.length - failed} with results, ${failed} failed); seeds ${seeds.join(', ')}.`,
+    run.baseline == null ? 'No baseline learner is set, so there are no paired comparisons.' : `Baseline learner: \`${run.baseline}\`.`,
+    '',
+    'Scores are R² for continuous targets and accuracy for categorical ones. Each cell shows the mean over seeds ± the half-width of its 95% confidence interval (Student t), with n seeds.',
+  ];
+  if (run.baseline != null) {
+    lines.push(`Paired differences are learner − baseline on the same seeds (same data and noise draws), tested with the paired t-test; p-values are Holm-adjusted over all ${comparisons.length} comparisons in this report (Holm 1979).`);
+  }
+  return lines;
+}
+
+function combinationBlock(input: SummaryInput, combo: Combination, index: number | null): string[] {
+  const { run } = input;
+  const lines: string[] = [];
+  for (const target of unique(combo.rows.map((r) => r.target)).filter((t) => t !== '-')) {
+    const metric = scoreMetric(combo.rows, target);
+    if (metric == null) continue;
+    const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
+    for (const noise of noises(scored)) {
+      const rows = scored.filter((r) => r.channel === noise.channel && r.kind === noise.kind);
+      const chance = combo.rows.filter((r) => r.target === target && r.metric === 'chance' && r.channel === noise.channel && r.kind === noise.kind);
+      lines.push(`### ${target}: ${noise.channel} ${noise.kind} noise (${METRIC_NAMES[metric]})`, '', ...scoreTable(rows, chance), '');
+      const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
+      if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
+      lines.push(`Robustness of the mean curves (CE and relative CE against the baseline; Hendrycks & Dietterich 2019):`, '',
+        ...robustnessTable(rows, run.baseline), '');
+      if (run.baseline == null) continue;
+      const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target
+        && c.channel === noise.channel && c.kind === noise.kind);
+      lines.push(`Paired differences against \`${run.baseline}\` (learner − baseline):`, '', ...comparisonTable(mine), '',
+        verdict(target, noise, run.baseline, mine), '');
+    }
+  }
+  lines.push(...ckaBlocks(input, combo));
+  const training = trainingPlotPath(index);
+  if (input.plots.has(training)) lines.push('### Training', '', `![validation loss per epoch](${training})`, '');
+  return lines;
+}
+
+function ckaBlocks(input: SummaryInput, combo: Combination): string[] {
+  const lines: string[] = [];
+  const cka = combo.rows.filter((r) => r.metric === 'cka');
+  for (const noise of noises(cka)) {
+    const rows = cka.filter((r) => r.channel === noise.channel && r.kind === noise.kind);
+    lines.push(`### CKA between clean and noisy features: ${noise.channel} ${noise.kind} noise`, '',
+      'Linear CKA (Kornblith et al. 2019) of each learner\'s features on clean and on corrupted test inputs; 1 means the noise did not move the representation.', '',
+      ...scoreTable(rows, []), '');
+  }
+  const between = input.learnerCka.get(combo.index);
+  if (between != null) {
+    lines.push('### CKA between learners on clean test features', '',
+      ...table(['learner', ...between.learners], between.learners.map((l, i) => [l, ...between.matrix[i].map(meanCi)])), '');
+  }
+  return lines;
+}

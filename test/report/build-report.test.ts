@@ -1,0 +1,124 @@
+import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildReport, type ReportFiles } from '../../src/report/build-report.js';
+import { parseCsv } from '../../src/report/csv.js';
+import { writeFixture } from './fixture.js';
+
+let dir = '';
+let files: ReportFiles;
+
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'report-'));
+  await writeFixture(dir, { features: true });
+  files = await buildReport(dir);
+});
+afterAll(async () => { await rm(dir, { recursive: true, force: true }); });
+
+describe('summary.md (from the fixture test data)', () => {
+  it('holds the learner × severity table of x with mean ± 95% CI half-width', async () => {
+    // sound-from-sight at severity 0: 0.9, 0.8, 0.7 → mean 0.8, sd 0.1, half-width
+    // t(0.975, 2) · 0.1 / √3 = 4.3027 · 0.057735 = 0.248 (t from standard tables).
+    // At severity 1: 0.8, 0.7, 0.7 → mean 0.733, sd 0.057735, half-width 0.143 (by hand).
+    const text = await readFile(files.summaryPath, 'utf8');
+    const lines = text.split('\n');
+    const at = lines.indexOf('### x: sight gaussian noise (R²)');
+    expect(lines.slice(at + 2, at + 7)).toEqual([
+      '| learner | severity 0 | severity 1 |',
+      '| --- | --- | --- |',
+      '| sound-from-sight | 0.800 ± 0.248 (n=3) | 0.733 ± 0.143 (n=3) |',
+      '| sight-autoencoder | 0.733 ± 0.143 (n=3) | 0.467 ± 0.143 (n=3) |',
+      '| untrained | 0.267 ± 0.143 (n=3) | 0.133 ± 0.143 (n=3) |',
+    ]);
+  });
+
+  it('shows the chance level beside a categorical target', async () => {
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| chance (majority class) | 0.600 | 0.600 |');
+  });
+
+  it('says in plain words which learners differ reliably, hedged for few seeds', async () => {
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('In these runs (3 seeds), for x under sight gaussian noise, counting a difference as reliable when its '
+      + 'Holm-adjusted p < 0.05 and its 95% CI excludes 0: sound-from-sight scored reliably higher than sight-autoencoder at severity 1; '
+      + 'untrained scored reliably lower at severity 1. With 3 seeds the paired tests have little power');
+    expect(text).toContain('for wall_ahead under sight gaussian noise, counting a difference as reliable when its Holm-adjusted p < 0.05 '
+      + 'and its 95% CI excludes 0: sound-from-sight and untrained were not distinguishable from sight-autoencoder.');
+  });
+
+  it('lists the failed cell with its reason', async () => {
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| forec-1 | sight-forecaster | 1 | loss became NaN at epoch 2 |');
+  });
+
+  it('reports CKA between learners: 1 for a scaled copy (Kornblith et al. 2019, isotropic scaling)', async () => {
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| untrained | 1.000 ± 0.000 (n=3) |');
+  });
+});
+
+describe('comparisons.csv (from the fixture test data)', () => {
+  it('holds the paired differences, t-test p and Holm p computed by hand', async () => {
+    const records = parseCsv(await readFile(files.comparisonsPath, 'utf8'), 'comparisons.csv');
+    const header = records[0].fields;
+    expect(header).toEqual(['learner', 'baseline', 'target', 'channel', 'kind', 'severity', 'metric',
+      'mean_diff', 'ci_low', 'ci_high', 'p', 'p_holm', 'd_z', 'n_seeds']);
+    const row = (learner: string, severity: string): Record<string, string> => {
+      const r = records.find((x) => x.fields[0] === learner && x.fields[2] === 'x' && x.fields[5] === severity)!;
+      return Object.fromEntries(header.map((h, i) => [h, r.fields[i]]));
+    };
+    // Student t with 2 df has the closed form P(|T| > t) = 1 − t / √(t² + 2) (Student 1908).
+    const p2 = (t: number): number => 1 - Math.abs(t) / Math.sqrt(t * t + 2);
+    // sound-from-sight − sight-autoencoder at severity 1: 0.3, 0.2, 0.3 → mean 0.2667,
+    // sd 0.057735, se 0.033333, t = 8, d_z = 4.6188 (by hand).
+    const sound = row('sound-from-sight', '1');
+    expect(Number(sound.mean_diff)).toBeCloseTo(0.266667, 5);
+    expect(Number(sound.p)).toBeCloseTo(p2(8), 6);
+    expect(Number(sound.d_z)).toBeCloseTo(4.6188, 4);
+    expect(Number(sound.ci_low)).toBeCloseTo(0.266667 - 4.3027 * 0.033333, 3);
+    expect(sound.n_seeds).toBe('3');
+    // untrained − sight-autoencoder at severity 0: −0.5, −0.4, −0.5 → t = −14; at severity 1:
+    // −0.4, −0.3, −0.3 → t = −10; sound-from-sight at severity 0: 0.1, 0.1, 0 → t = 2.
+    // Holm over the 4 finite p-values (the 4 accuracy comparisons have zero variance → NaN):
+    // sorted p(14), p(10), p(8), p(2) get factors 4, 3, 2, 1 (Holm 1979).
+    expect(Number(row('untrained', '0').p_holm)).toBeCloseTo(4 * p2(14), 6);
+    expect(Number(row('untrained', '1').p_holm)).toBeCloseTo(3 * p2(10), 6);
+    expect(Number(sound.p_holm)).toBeCloseTo(2 * p2(8), 6);
+    expect(Number(row('sound-from-sight', '0').p_holm)).toBeCloseTo(p2(2), 6);
+    const accuracy = records.find((x) => x.fields[2] === 'wall_ahead')!.fields;
+    expect(accuracy.slice(10, 12)).toEqual(['NaN', 'NaN']);
+  });
+});
+
+describe('plots (from the fixture test data)', () => {
+  it('writes valid SVG robustness curves with one line path per learner', async () => {
+    const svg = await readFile(join(dir, 'plots', 'robustness_x_sight_gaussian.svg'), 'utf8');
+    expect(svg.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
+    expect(svg.trimEnd().endsWith('</svg>')).toBe(true);
+    const lineGroups = svg.split('<g class="mark-line role-mark').slice(1);
+    expect(lineGroups.length).toBe(3);
+    for (const g of lineGroups) expect(g.slice(0, g.indexOf('</g>')).match(/<path /g)?.length).toBe(1);
+    expect(svg.split('<g class="mark-area role-mark').length - 1).toBe(3);
+  });
+
+  it('writes the training curves and nothing half-written', async () => {
+    expect((await readdir(join(dir, 'plots'))).sort()).toEqual([
+      'robustness_wall_ahead_sight_gaussian.svg', 'robustness_x_sight_gaussian.svg', 'training.svg',
+    ]);
+    expect(files.plots.length).toBe(3);
+    expect((await readdir(dir)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+  });
+});
+
+describe('buildReport errors', () => {
+  it('fails on a directory without results with a one-line error naming the file', async () => {
+    const empty = await mkdtemp(join(tmpdir(), 'report-empty-'));
+    try {
+      await expect(buildReport(empty)).rejects.toThrow(`${join(empty, 'results.csv')}: not found (no results to report; run the sweep first)`);
+      expect(await readdir(empty)).toEqual([]);
+    } finally {
+      await rm(empty, { recursive: true, force: true });
+    }
+  });
+});

@@ -1,0 +1,49 @@
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { reportCommand } from '../../src/commands/report.js';
+import { writeFixture } from './fixture.js';
+
+describe('crosswise report <DIR>', () => {
+  const dirs: string[] = [];
+  afterEach(async () => {
+    vi.restoreAllMocks();
+    for (const d of dirs.splice(0)) await rm(d, { recursive: true, force: true });
+  });
+
+  const capture = () => ({
+    err: vi.spyOn(console, 'error').mockImplementation(() => undefined),
+    out: vi.spyOn(console, 'log').mockImplementation(() => undefined),
+  });
+
+  it('exits 1 with one line naming a missing directory', async () => {
+    const { err } = capture();
+    expect(await reportCommand(['/nonexistent/crosswise-run'])).toBe(1);
+    expect(err.mock.calls).toEqual([['crosswise report: /nonexistent/crosswise-run: no such directory']]);
+  });
+
+  it('exits 1 with one line for a directory without results', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-cmd-'));
+    dirs.push(dir);
+    const { err } = capture();
+    expect(await reportCommand([dir])).toBe(1);
+    expect(err.mock.calls.length).toBe(1);
+    expect(String(err.mock.calls[0][0])).toMatch(/^crosswise report: .*results\.csv: not found/);
+  });
+
+  it('exits 1 without exactly one argument', async () => {
+    const { err } = capture();
+    expect(await reportCommand([])).toBe(1);
+    expect(err.mock.calls[0][0]).toBe('crosswise report: expected exactly one argument, the output directory (crosswise report <DIR>)');
+  });
+
+  it('rebuilds the report and points to the summary', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-cmd-'));
+    dirs.push(dir);
+    await writeFixture(dir);
+    const { out } = capture();
+    expect(await reportCommand([dir])).toBe(0);
+    expect(out.mock.calls[0][0]).toBe(`summary: ${join(dir, 'summary.md')}`);
+  });
+});

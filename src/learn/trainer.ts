@@ -22,6 +22,8 @@ export interface TrainOptions {
 export interface TrainedLearner {
   readonly encoder: FeatureExtractor;
   readonly log: EpochLog[];
+  /** The epoch whose weights the encoder holds (lowest validation loss); 0 if never trained. */
+  readonly bestEpoch: number;
 }
 
 /** Every tower with its heads, for callers that need the objective's outputs (the caller disposes). */
@@ -30,6 +32,7 @@ export interface TrainedNetwork {
   readonly objective: Objective;
   readonly stats: TrainingStatistics;
   readonly log: EpochLog[];
+  readonly bestEpoch: number;
 }
 
 /** InfoNCE needs at least one negative, so a contrast batch needs two rows. */
@@ -107,16 +110,18 @@ function makeOptimizer(spec: LearnerSpec): tf.Optimizer {
 const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 /**
- * Epochs with early stopping on the validation loss. When training ends (patience
- * exhausted or the last epoch) the weights of the epoch with the lowest validation loss
- * are restored, so the representation is the one the log marks as best.
+ * Epochs with early stopping on the validation loss: training stops once `patience`
+ * epochs in a row bring no lower validation loss (patience 0 acts like 1). When training
+ * ends the weights of the epoch with the lowest validation loss are restored, and that
+ * epoch is returned.
  */
-async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<void> {
+async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
   const { spec, towers, signal } = ctx;
   const vars = allVariables(towers);
   const validationOrder = permutation(validation.n, createRng(options.seed, 'shuffle', spec.name, 'validation'));
   let best: tf.Tensor[] = [];
   let bestLoss = Infinity;
+  let bestEpoch = 0;
   let sinceBest = 0;
   try {
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
@@ -129,6 +134,7 @@ async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: Spl
       options.onEpoch?.(entry);
       if (validationLoss < bestLoss) {
         bestLoss = validationLoss;
+        bestEpoch = epoch;
         sinceBest = 0;
         tf.dispose(best);
         best = vars.map((v) => tf.clone(v));
@@ -138,6 +144,7 @@ async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: Spl
       await yieldToEventLoop();
     }
     if (best.length > 0) vars.forEach((v, i) => v.assign(best[i]));
+    return bestEpoch;
   } finally {
     tf.dispose(best);
   }
@@ -161,14 +168,15 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   const initRng = createRng(options.seed, 'init', spec.name);
   const towers = objective.towers.map((shape) => createTower(shape, spec.encoder.activation, initRng));
   const log: EpochLog[] = [];
-  if (signal == null || examples == null) return { towers, objective, stats, log };
+  if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
   const rule = RULE_REGISTRY[spec.rule];
   const feedback = rule.createFeedback(towers, createRng(options.seed, 'init', spec.name, 'feedback'));
   const [train, validation] = examples.map(uploadExamples);
   const optimizer = makeOptimizer(spec);
+  let bestEpoch = 0;
   try {
     const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: createRng(options.seed, 'shuffle', spec.name), step: 0 };
-    await runEpochs(ctx, train, validation, options, log);
+    bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);
     throw error;
@@ -178,15 +186,15 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     disposeSplit(train);
     disposeSplit(validation);
   }
-  return { towers, objective, stats, log };
+  return { towers, objective, stats, log, bestEpoch };
 }
 
 /** Trains a learner and keeps only its frozen encoder (input tower without head). */
 export async function trainLearner(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedLearner> {
-  const { towers, stats, log } = await trainNetwork(spec, data, split, options);
+  const { towers, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
   const [first, ...others] = towers;
   others.forEach(disposeTower);
   if (first.head != null) tf.dispose([first.head.W, first.head.b]);
   const encoder = createExtractor(spec.input, data.channelSize, { ...first, head: null }, stats.channels(spec.input));
-  return { encoder, log };
+  return { encoder, log, bestEpoch };
 }

@@ -26,9 +26,11 @@ describe.each(OBJECTIVES.filter((o) => o !== 'untrained'))('objective %s', (obje
     // Hand-made data with a known structure (see synthetic.ts); the loss must fall by a
     // clear margin over 6 epochs (common practice: a working signal drops it by > 10 %).
     const spec = learnerSpec({ objective, rule, input: ['sight'], target: ['sound'], train: { epochs: 6 } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 1 });
     encoder.dispose();
     expect(log).toHaveLength(6);
+    const lowest = Math.min(...log.map((l) => l.validationLoss));
+    expect(log[bestEpoch - 1].validationLoss).toBe(lowest); // the restored weights are the best epoch's
     expect(log[5].trainLoss).toBeLessThan(0.9 * log[0].trainLoss);
     expect(log[5].alignmentDeg).toHaveLength(rule === 'backprop' ? 0 : (objective === 'contrast' ? 6 : 3));
   });
@@ -47,8 +49,9 @@ describe('predict at offset 1', () => {
 describe('untrained', () => {
   it('keeps the initial weights: features equal a hand-computed pass through He-normal draws from the seed', async () => {
     const spec = learnerSpec({ objective: 'untrained', encoder: { hidden: [5], activation: 'relu' } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 4 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 4 });
     expect(log).toHaveLength(0);
+    expect(bestEpoch).toBe(0);
     const { sight, n } = testInputs();
     const features = encoder.features({ sight }, n);
     encoder.dispose();
@@ -156,9 +159,10 @@ describe('early stopping', () => {
     // With a learning rate of 1e-20 no float32 weight can change, so the validation loss
     // repeats exactly: epoch 1 is best and epochs 2 and 3 exhaust a patience of 2.
     const spec = learnerSpec({ train: { optimizer: 'sgd', learningRate: 1e-20, epochs: 10, patience: 2 } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 1 });
     encoder.dispose();
     expect(log.map((l) => l.epoch)).toEqual([1, 2, 3]);
+    expect(bestEpoch).toBe(1);
     expect(log[2].validationLoss).toBe(log[0].validationLoss);
   });
 });

@@ -3,7 +3,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { initBackend, LearnerDivergedError, trainLearner } from '../../src/learn/index.js';
 import { TrainingStatistics } from '../../src/learn/examples.js';
 import { heNormal } from '../../src/learn/init.js';
+import { meanSquaredError } from '../../src/learn/losses.js';
+import { disposeTower, forward } from '../../src/learn/network.js';
 import { OBJECTIVE_REGISTRY } from '../../src/learn/objectives.js';
+import { trainNetwork } from '../../src/learn/trainer.js';
 import { OBJECTIVES, RULES, type EpochLog } from '../../src/learn/spec.js';
 import { createRng } from '../../src/random.js';
 import { episodeSplit, learnerSpec, syntheticDataset } from './synthetic.js';
@@ -179,5 +182,23 @@ describe('forecast examples', () => {
     rows.forEach((t, i) => {
       expect(Array.from(examples.extra!.data.subarray(i * 5, i * 5 + 5))).toEqual(Array.from(data.channels.motor.subarray((t + 1) * 5, (t + 2) * 5)));
     });
+  });
+});
+
+describe('restoring the best weights', () => {
+  it('leaves the network at the validation loss logged for the best epoch', async () => {
+    // A large step size makes the validation loss wander, so the best epoch is not the last.
+    const spec = learnerSpec({ train: { learningRate: 0.2, epochs: 8 } });
+    const net = await trainNetwork(spec, data, split, { seed: 2 });
+    expect(net.bestEpoch).toBeLessThan(net.log.length);
+    const examples = net.objective.signal!.examples(net.stats, split.validation);
+    const loss = tf.tidy(() => {
+      const x = tf.tensor2d(examples.inputs[0].data, [examples.n, examples.inputs[0].cols]);
+      const y = tf.tensor2d(examples.target!.data, [examples.n, examples.target!.cols]);
+      return meanSquaredError(forward(net.towers[0], x, null), y).dataSync()[0];
+    });
+    net.towers.forEach(disposeTower);
+    // Logged as a batch-size-weighted mean of float32 batch losses: equal to ~1e-6.
+    expect(loss).toBeCloseTo(net.log[net.bestEpoch - 1].validationLoss, 5);
   });
 });

@@ -16,6 +16,9 @@ export interface SoundBand {
   readonly levelDb: number;
 }
 
+/** Entries in every material's touch texture vector (fixed so touch has one size in every world). */
+export const TEXTURE_SIZE = 4;
+
 /** One kind of floor or wall. */
 export interface Material {
   readonly name: string;

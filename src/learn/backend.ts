@@ -1,0 +1,27 @@
+import * as tf from '@tensorflow/tfjs-core';
+import '@tensorflow/tfjs-backend-cpu';
+import '@tensorflow/tfjs-backend-wasm';
+import { registerFastMatMulGradient, registerStockGradients } from './gradients.js';
+import type { BackendName } from './spec.js';
+
+let gradientsReady = false;
+
+/**
+ * Selects the tfjs backend (wasm or cpu) and registers gradients; safe to call repeatedly.
+ *
+ * The wasm binary is read from the installed `@tensorflow/tfjs-backend-wasm` package
+ * (its Node build locates the `.wasm` next to itself; nothing is fetched). Production
+ * mode silences the banner that recommends a native Node backend.
+ */
+export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
+  if (!gradientsReady) {
+    tf.env().set('PROD', true);
+    registerStockGradients();
+    registerFastMatMulGradient();
+    gradientsReady = true;
+  }
+  // engine().backendName stays null until a backend is chosen; getBackend() would pick one.
+  if (tf.engine().backendName === name) return;
+  const ok = await tf.setBackend(name);
+  if (!ok || tf.getBackend() !== name) throw new Error(`could not start the TensorFlow.js '${name}' backend`);
+}

@@ -1,0 +1,42 @@
+import * as tf from '@tensorflow/tfjs-core';
+import type { ChannelName } from '../senses/channel.js';
+import { gatherChannels, orderedChannels, standardise, type Standardiser } from './matrix.js';
+import { disposeTower, encode, layerWidth, type Tower } from './network.js';
+import type { FeatureExtractor } from './spec.js';
+
+/** Rows per forward pass when extracting features, to bound memory on large inputs. */
+const CHUNK_ROWS = 4096;
+
+/** Wraps a trained encoder (a tower without head) and its training-split standardiser. */
+export function createExtractor(
+  input: readonly ChannelName[],
+  channelSize: Readonly<Record<ChannelName, number>>,
+  encoder: Tower,
+  standardiser: Standardiser,
+): FeatureExtractor {
+  const channels = orderedChannels(input);
+  const featureSize = layerWidth(encoder.encoder[encoder.encoder.length - 1]);
+  return {
+    input: channels,
+    featureSize,
+    features(inputs, n) {
+      for (const c of channels) {
+        const values = inputs[c];
+        if (values == null) throw new Error(`features: input channel '${c}' is missing`);
+        if (values.length !== n * channelSize[c]) {
+          throw new Error(`features: channel '${c}' has ${values.length} values, expected ${n} × ${channelSize[c]}`);
+        }
+      }
+      const x = standardise(gatherChannels(inputs, channelSize, channels, Int32Array.from({ length: n }, (_, i) => i)), standardiser);
+      const out = new Float32Array(n * featureSize); // [n, featureSize]
+      for (let start = 0; start < n; start += CHUNK_ROWS) {
+        const rows = Math.min(CHUNK_ROWS, n - start);
+        const chunk = x.data.subarray(start * x.cols, (start + rows) * x.cols);
+        const features = tf.tidy(() => encode(encoder, tf.tensor2d(chunk, [rows, x.cols])).dataSync());
+        out.set(features, start * featureSize);
+      }
+      return out;
+    },
+    dispose: () => disposeTower(encoder),
+  };
+}

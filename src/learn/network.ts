@@ -1,0 +1,119 @@
+import * as tf from '@tensorflow/tfjs-core';
+import type { Rng } from '../random.js';
+import { glorotUniform, hiddenInit } from './init.js';
+import type { ActivationName } from './spec.js';
+
+/** One fully connected layer: y = x·W + b. */
+export interface Dense {
+  readonly W: tf.Variable; // [in, out]
+  readonly b: tf.Variable; // [out]
+}
+
+/** An MLP encoder with a linear head on its last hidden layer (plus optional extra head inputs). */
+export interface Tower {
+  readonly encoder: readonly Dense[];
+  readonly head: Dense | null;
+  readonly activation: ActivationName;
+}
+
+/** Sizes of one tower. */
+export interface TowerShape {
+  readonly inputWidth: number;
+  readonly hidden: readonly number[];
+  /** Head output width; 0 means no head (an encoder only). */
+  readonly outputWidth: number;
+  /** Columns appended to the representation before the head (e.g. the action for forecast). */
+  readonly extraWidth: number;
+}
+
+/** An activation and its derivative written from the pre- and post-activation values. */
+interface Activation {
+  readonly f: (a: tf.Tensor2D) => tf.Tensor2D;
+  readonly derivative: (pre: tf.Tensor2D, post: tf.Tensor2D) => tf.Tensor2D;
+}
+
+export const ACTIVATIONS: Record<ActivationName, Activation> = {
+  relu: { f: (a) => tf.relu(a), derivative: (pre) => tf.step(pre) },
+  tanh: { f: (a) => tf.tanh(a), derivative: (_pre, h) => tf.sub(1, tf.square(h)) },
+  sigmoid: { f: (a) => tf.sigmoid(a), derivative: (_pre, h) => tf.mul(h, tf.sub(1, h)) },
+};
+
+function dense(W: Float32Array, fanIn: number, fanOut: number): Dense {
+  // tidy frees the initial-value tensors; the variables it returns stay alive.
+  return tf.tidy(() => ({ W: tf.variable(tf.tensor2d(W, [fanIn, fanOut])), b: tf.variable(tf.zeros([fanOut])) }));
+}
+
+/** Builds a tower; weights come from the rng only (biases start at zero). */
+export function createTower(shape: TowerShape, activation: ActivationName, rng: Rng): Tower {
+  const init = hiddenInit(activation);
+  const encoder: Dense[] = [];
+  let fanIn = shape.inputWidth;
+  for (const width of shape.hidden) {
+    encoder.push(dense(init(rng, fanIn, width), fanIn, width));
+    fanIn = width;
+  }
+  const headIn = fanIn + shape.extraWidth;
+  const head = shape.outputWidth > 0
+    ? dense(glorotUniform(rng, headIn, shape.outputWidth), headIn, shape.outputWidth)
+    : null;
+  return { encoder, head, activation };
+}
+
+/** Values kept from a forward pass for hand-written backward passes. */
+export interface ForwardCache {
+  /** post[0] is the input, post[l] the activation of hidden layer l. */
+  readonly post: tf.Tensor2D[];
+  /** pre[l - 1] is the pre-activation of hidden layer l. */
+  readonly pre: tf.Tensor2D[];
+  readonly headInput: tf.Tensor2D;
+  readonly output: tf.Tensor2D;
+}
+
+function affine(x: tf.Tensor2D, layer: Dense): tf.Tensor2D {
+  return tf.add(tf.matMul(x, layer.W as tf.Tensor2D), layer.b);
+}
+
+/** Representation (last hidden layer) for inputs x: [batch, in] → [batch, hidden_k]. */
+export function encode(tower: Tower, x: tf.Tensor2D): tf.Tensor2D {
+  return tower.encoder.reduce((h, layer) => ACTIVATIONS[tower.activation].f(affine(h, layer)), x);
+}
+
+/** Full forward pass with every intermediate kept. */
+export function forwardCached(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D | null): ForwardCache {
+  if (tower.head == null) throw new Error('this tower has no head to train');
+  const post = [x];
+  const pre: tf.Tensor2D[] = [];
+  for (const layer of tower.encoder) {
+    const a = affine(post[post.length - 1], layer);
+    pre.push(a);
+    post.push(ACTIVATIONS[tower.activation].f(a));
+  }
+  const representation = post[post.length - 1];
+  const headInput = extra == null ? representation : tf.concat([representation, extra], 1);
+  return { post, pre, headInput, output: affine(headInput, tower.head) };
+}
+
+/** Head output only (autodiff path). */
+export function forward(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D | null): tf.Tensor2D {
+  return forwardCached(tower, x, extra).output;
+}
+
+/** Output width of a layer. */
+export function layerWidth(layer: Dense): number {
+  return (layer.W as tf.Tensor2D).shape[1];
+}
+
+/** Weight layers in order: encoder layers, then the head. */
+export function towerLayers(tower: Tower): Dense[] {
+  return tower.head == null ? [...tower.encoder] : [...tower.encoder, tower.head];
+}
+
+/** Every trainable variable of a tower, layer by layer (W then b). */
+export function towerVariables(tower: Tower): tf.Variable[] {
+  return towerLayers(tower).flatMap((l) => [l.W, l.b]);
+}
+
+/** Frees a tower's variables. */
+export function disposeTower(tower: Tower): void {
+  for (const v of towerVariables(tower)) v.dispose();
+}

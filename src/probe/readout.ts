@@ -1,0 +1,121 @@
+import { accuracy, argmaxRows, fitLogistic } from './logistic.js';
+import { predictLinear, r2Score, ridgeFromMoments, ridgeMoments, type LinearModel } from './ridge.js';
+import type { TargetLabels } from './targets.js';
+
+/** Rows in basis coordinates with their labels. */
+export interface LabelledRows {
+  readonly z: Float64Array; // [n, d]
+  readonly n: number;
+  readonly labels: TargetLabels;
+}
+
+/** A read-out fitted on training rows with its penalty chosen on validation rows. */
+export interface Readout {
+  readonly alpha: number;
+  readonly validationScore: number;
+  readonly model: LinearModel;
+  /** The metric on labelled rows (R² or accuracy). */
+  score(rows: LabelledRows): number;
+}
+
+/** One kind of linear read-out and its penalty grid. */
+export interface ReadoutKind {
+  readonly metric: 'r2' | 'accuracy';
+  /** Penalties α tried, largest first (per-sample scale, for standardised features). */
+  readonly alphas: readonly number[];
+  fit(train: LabelledRows, validation: LabelledRows, eigen: Float64Array): Readout;
+}
+
+/** Decades from 10^hi down to 10^lo, written exactly (1e-5, not 9.999…e-6). */
+function decades(hi: number, lo: number): number[] {
+  return Array.from({ length: hi - lo + 1 }, (_, i) => Number(`1e${hi - i}`));
+}
+
+/**
+ * Ridge regression scored by R² (averaged over outputs). The grid 10³ … 10⁻⁶ spans
+ * "shrink everything" to "nearly least squares" for standardised features (common
+ * practice); every α costs O(d·k) once the moments are known.
+ */
+const ridge: ReadoutKind = {
+  metric: 'r2',
+  alphas: decades(3, -6),
+  fit(train, validation, eigen) {
+    const y = continuous(train.labels);
+    const moments = ridgeMoments(train.z, y.values, train.n, y.outputs, eigen);
+    return choosePenalty(this.alphas, validation, (alpha) => ridgeFromMoments(moments, alpha), scoreRegression, Infinity);
+  },
+};
+
+/**
+ * Multinomial logistic regression scored by accuracy. Chosen over a one-vs-rest ridge
+ * classifier because least squares on class indicators masks a class lying between two
+ * others (Hastie et al. 2009, ESL §4.2): on Iris it reaches only 0.85 resubstitution
+ * accuracy, logistic regression 0.98. The grid 10⁰ … 10⁻⁴ runs from strong to weak
+ * penalties, each fit warm-started from the previous one, and the path stops after two
+ * weaker penalties in a row fail to beat the best validation accuracy: weak penalties
+ * cost the most iterations and rarely help once accuracy has stopped rising (common
+ * practice, as early exits on regularisation paths).
+ */
+const logistic: ReadoutKind = {
+  metric: 'accuracy',
+  alphas: decades(0, -4),
+  fit(train, validation, eigen) {
+    const y = categorical(train.labels);
+    let previous: LinearModel | undefined;
+    const fitAt = (alpha: number): LinearModel => {
+      previous = fitLogistic(train.z, y.classes, train.n, eigen, y.classCount, alpha, previous);
+      return previous;
+    };
+    return choosePenalty(this.alphas, validation, fitAt, scoreClassification, 2);
+  },
+};
+
+/** The read-out for each kind of target. */
+export const READOUTS: Readonly<Record<TargetLabels['kind'], ReadoutKind>> = { continuous: ridge, categorical: logistic };
+
+/**
+ * Fits along the grid (largest α first) and keeps the model with the best validation
+ * score; a later α must be strictly better, so ties go to the stronger penalty. Stops
+ * after `patience` successive α without improvement. Only validation rows are scored
+ * here: test rows never reach this function.
+ */
+function choosePenalty(
+  alphas: readonly number[],
+  validation: LabelledRows,
+  fitAt: (alpha: number) => LinearModel,
+  scoreOf: (model: LinearModel, rows: LabelledRows) => number,
+  patience: number,
+): Readout {
+  let best = { alpha: NaN, validationScore: NaN, model: undefined as LinearModel | undefined };
+  let sinceBest = 0;
+  for (const alpha of alphas) {
+    const model = fitAt(alpha);
+    const validationScore = scoreOf(model, validation);
+    const better = best.model === undefined || validationScore > best.validationScore || (Number.isNaN(best.validationScore) && !Number.isNaN(validationScore));
+    if (better) best = { alpha, validationScore, model };
+    sinceBest = better ? 0 : sinceBest + 1;
+    if (sinceBest >= patience) break;
+  }
+  const model = best.model as LinearModel;
+  return { alpha: best.alpha, validationScore: best.validationScore, model, score: (rows) => scoreOf(model, rows) };
+}
+
+function scoreRegression(model: LinearModel, rows: LabelledRows): number {
+  const y = continuous(rows.labels);
+  return r2Score(y.values, predictLinear(model, rows.z, rows.n), rows.n, y.outputs);
+}
+
+function scoreClassification(model: LinearModel, rows: LabelledRows): number {
+  const y = categorical(rows.labels);
+  return accuracy(argmaxRows(predictLinear(model, rows.z, rows.n), rows.n, model.k), y.classes);
+}
+
+function continuous(labels: TargetLabels): Extract<TargetLabels, { kind: 'continuous' }> {
+  if (labels.kind !== 'continuous') throw new Error('ridge read-out needs continuous labels');
+  return labels;
+}
+
+function categorical(labels: TargetLabels): Extract<TargetLabels, { kind: 'categorical' }> {
+  if (labels.kind !== 'categorical') throw new Error('logistic read-out needs class labels');
+  return labels;
+}

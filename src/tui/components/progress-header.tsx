@@ -1,0 +1,14 @@
+import { Box, Text } from 'ink';
+import type { ProgressText } from '../dashboard/run-view.js';
+
+/** The sweep's name, cell counts, timing and the latest note. */
+export function ProgressHeader({ progress }: { readonly progress: ProgressText }) {
+  return (
+    <Box flexDirection="column">
+      <Text bold>{progress.title}</Text>
+      <Text>{progress.counts}</Text>
+      <Text>{progress.timing}</Text>
+      {progress.note == null ? null : <Text wrap="truncate-end">{progress.note}</Text>}
+    </Box>
+  );
+}

@@ -1,0 +1,20 @@
+import { Box, Text } from 'ink';
+import type { WorkerText } from '../dashboard/run-view.js';
+
+/** One line per running worker: its cell, epoch, latest loss and loss trend. */
+export function WorkerList({ workers }: { readonly workers: readonly WorkerText[] }) {
+  if (workers.length === 0) return <Text dimColor>no cell running</Text>;
+  return (
+    <Box flexDirection="column">
+      {workers.map((w) => (
+        <Box key={w.worker}>
+          <Box width={10}><Text>{w.worker}</Text></Box>
+          <Box width={32}><Text wrap="truncate-end">{w.cell}</Text></Box>
+          <Box width={10}><Text>{w.epoch}</Text></Box>
+          <Box width={13}><Text>{w.loss}</Text></Box>
+          <Text>{w.trend}</Text>
+        </Box>
+      ))}
+    </Box>
+  );
+}

@@ -1,0 +1,138 @@
+import { closest } from 'fastest-levenshtein';
+import { isMap, isScalar, isSeq, type Node as YamlNode, type YAMLMap } from 'yaml';
+import type { Problems } from './problems.js';
+
+/** The value nodes of a YAML mapping by key, after unknown and missing keys are reported. */
+export interface Fields {
+  /** The node the mapping came from, for problems about the whole mapping. */
+  readonly node: YamlNode;
+  /** What the mapping is, for messages: "material 'boards'", "the world". */
+  readonly label: string;
+  readonly values: ReadonlyMap<string, YamlNode>;
+}
+
+/** Reads a mapping's keys, reporting unknown keys (with the nearest valid one) and missing required keys. */
+export function readFields(
+  node: YamlNode | null | undefined, label: string, allowed: readonly string[],
+  required: readonly string[], problems: Problems,
+): Fields | null {
+  if (node == null || !isMap(node)) {
+    problems.report(node, `${label} must be a mapping of keys to values`);
+    return null;
+  }
+  const values = new Map<string, YamlNode>();
+  for (const pair of (node as YAMLMap<YamlNode, YamlNode>).items) {
+    const keyNode = pair.key;
+    const key = isScalar(keyNode) ? String(keyNode.value) : '';
+    if (!allowed.includes(key)) {
+      problems.report(keyNode, `unknown key '${key}' in ${label}; did you mean '${closest(key, allowed)}'?`);
+    } else if (values.has(key)) {
+      problems.report(keyNode, `key '${key}' appears twice in ${label}`);
+    } else if (pair.value != null) {
+      values.set(key, pair.value);
+    }
+  }
+  for (const key of required) {
+    if (!values.has(key)) problems.report(node, `missing key '${key}' in ${label}`);
+  }
+  return { node, label, values };
+}
+
+/** Bounds for a number; `above` is exclusive, `min`/`max` inclusive. */
+export interface NumberRule {
+  readonly min?: number;
+  readonly above?: number;
+  readonly max?: number;
+  readonly integer?: boolean;
+}
+
+function describeRule(rule: NumberRule): string {
+  const kind = rule.integer ? 'an integer' : 'a number';
+  const low = rule.above != null ? `> ${rule.above}` : rule.min != null ? `>= ${rule.min}` : '';
+  const high = rule.max != null ? `<= ${rule.max}` : '';
+  return [kind, [low, high].filter((s) => s !== '').join(' and ')].filter((s) => s !== '').join(' ');
+}
+
+function breaks(value: number, rule: NumberRule): boolean {
+  return !Number.isFinite(value) || (rule.integer === true && !Number.isInteger(value))
+    || (rule.min != null && value < rule.min) || (rule.above != null && value <= rule.above)
+    || (rule.max != null && value > rule.max);
+}
+
+/** Checks one scalar node as a number; reports and returns null when it is not one in range. */
+export function numberAt(node: YamlNode, what: string, rule: NumberRule, problems: Problems): number | null {
+  const value = isScalar(node) ? node.value : undefined;
+  if (typeof value !== 'number' || breaks(value, rule)) {
+    const shown = isScalar(node) ? JSON.stringify(node.value) : 'a list or mapping';
+    problems.report(node, `${what} must be ${describeRule(rule)}, got ${shown}`);
+    return null;
+  }
+  return value;
+}
+
+/** A required or optional number field; the default is used when the key is absent. */
+export function numberField(
+  fields: Fields, key: string, rule: NumberRule, problems: Problems, fallback?: number,
+): number | null {
+  const node = fields.values.get(key);
+  if (node == null) return fallback ?? null;
+  return numberAt(node, `'${key}' in ${fields.label}`, rule, problems);
+}
+
+/** A string field; `oneChar` demands a single visible character (a map glyph). */
+export function stringField(
+  fields: Fields, key: string, problems: Problems, options: { oneChar?: boolean; fallback?: string } = {},
+): string | null {
+  const node = fields.values.get(key);
+  if (node == null) return options.fallback ?? null;
+  const value = isScalar(node) ? node.value : undefined;
+  if (typeof value !== 'string' && typeof value !== 'number') {
+    problems.report(node, `'${key}' in ${fields.label} must be text`);
+    return null;
+  }
+  const text = String(value);
+  if (options.oneChar === true && (text.length !== 1 || /\s/.test(text))) {
+    problems.report(node, `'${key}' in ${fields.label} must be one visible character, got ${JSON.stringify(text)}`);
+    return null;
+  }
+  if (options.oneChar !== true && text.trim() === '') {
+    problems.report(node, `'${key}' in ${fields.label} must not be empty`);
+    return null;
+  }
+  return text;
+}
+
+/** A true/false field with a default. */
+export function booleanField(fields: Fields, key: string, problems: Problems, fallback: boolean): boolean {
+  const node = fields.values.get(key);
+  if (node == null) return fallback;
+  if (isScalar(node) && typeof node.value === 'boolean') return node.value;
+  problems.report(node, `'${key}' in ${fields.label} must be true or false`);
+  return fallback;
+}
+
+/** A list of numbers of a fixed length, each checked by `rule`. */
+export function vectorField(
+  fields: Fields, key: string, length: number, rule: NumberRule, problems: Problems,
+): number[] | null {
+  const node = fields.values.get(key);
+  if (node == null) return null;
+  if (!isSeq(node) || node.items.length !== length) {
+    problems.report(node, `'${key}' in ${fields.label} must be a list of ${length} numbers`);
+    return null;
+  }
+  const values = (node.items as YamlNode[]).map((item, i) =>
+    numberAt(item, `'${key}'[${i}] in ${fields.label}`, rule, problems));
+  return values.every((v): v is number => v != null) ? values : null;
+}
+
+/** The items of a list field, or null (reported) when it is not a list. */
+export function listField(fields: Fields, key: string, problems: Problems): YamlNode[] | null {
+  const node = fields.values.get(key);
+  if (node == null) return null;
+  if (!isSeq(node)) {
+    problems.report(node, `'${key}' in ${fields.label} must be a list`);
+    return null;
+  }
+  return node.items as YamlNode[];
+}

@@ -1,0 +1,75 @@
+import * as tf from '@tensorflow/tfjs-core';
+import { describe, expect, it } from 'vitest';
+import { initBackend } from '../../src/learn/backend.js';
+import { meanSquaredError } from '../../src/learn/losses.js';
+import { createTower, towerVariables, type Tower } from '../../src/learn/network.js';
+import { RULE_REGISTRY, trueGradients, type Batch } from '../../src/learn/rules.js';
+import { createRng, normal } from '../../src/random.js';
+
+/** Plain float64 forward pass and MSE loss of a one-hidden-layer tanh tower (independent of tfjs). */
+function referenceLoss(p: number[][], x: number[][], y: number[][], hidden: number): number {
+  const [W1, b1, W2, b2] = p;
+  const outputs = y[0].length;
+  let sum = 0;
+  x.forEach((row, r) => {
+    const h = Array.from({ length: hidden }, (_, j) => Math.tanh(b1[j] + row.reduce((s, v, i) => s + v * W1[i * hidden + j], 0)));
+    for (let k = 0; k < outputs; k++) {
+      const o = b2[k] + h.reduce((s, v, j) => s + v * W2[j * outputs + k], 0);
+      sum += (o - y[r][k]) ** 2;
+    }
+  });
+  return sum / (x.length * outputs);
+}
+
+/** Central differences, (f(θ + h) − f(θ − h)) / 2h, in float64 (Press et al. 2007, §5.7). */
+function centralDifferences(p: number[][], f: (p: number[][]) => number, h = 1e-6): number[][] {
+  return p.map((values, a) => values.map((_, i) => {
+    const plus = p.map((v) => [...v]);
+    const minus = p.map((v) => [...v]);
+    plus[a][i] += h;
+    minus[a][i] -= h;
+    return (f(plus) - f(minus)) / (2 * h);
+  }));
+}
+
+function relativeError(a: number[], b: number[]): number {
+  const diff = Math.sqrt(a.reduce((s, v, i) => s + (v - b[i]) ** 2, 0));
+  return diff / Math.sqrt(b.reduce((s, v) => s + v * v, 0));
+}
+
+function setup(): { tower: Tower; x: number[][]; y: number[][]; batch: Batch } {
+  const rng = createRng(3, 'test');
+  const tower = createTower({ inputWidth: 3, hidden: [4], outputWidth: 2, extraWidth: 0 }, 'tanh', rng);
+  // Biases start at zero; give them values so their gradients are exercised too.
+  for (const v of towerVariables(tower)) v.assign(tf.tidy(() => tf.add(v, tf.tensor(Float32Array.from({ length: v.size }, () => 0.3 * normal(rng)), v.shape))));
+  const x = Array.from({ length: 5 }, () => Array.from({ length: 3 }, () => normal(rng)));
+  const y = Array.from({ length: 5 }, () => Array.from({ length: 2 }, () => normal(rng)));
+  return { tower, x, y, batch: { inputs: [tf.tensor2d(x)], extra: null, target: tf.tensor2d(y) } };
+}
+
+describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) => {
+  it('match float64 central finite differences (relative error < 1e-3)', async () => {
+    await initBackend(backend);
+    const { tower, x, y, batch } = setup();
+    const params = towerVariables(tower).map((v) => Array.from(v.dataSync()));
+    const reference = centralDifferences(params, (p) => referenceLoss(p, x, y, 4));
+    const grads = tf.tidy(() => trueGradients([tower], batch, (o) => meanSquaredError(o[0], batch.target!)).grads.map((g) => Array.from(g.dataSync())));
+    expect(relativeError(grads.flat(), reference.flat())).toBeLessThan(1e-3);
+    // The loss itself agrees with the float64 reference to float32 precision.
+    const loss = tf.tidy(() => trueGradients([tower], batch, (o) => meanSquaredError(o[0], batch.target!)).loss.dataSync()[0]);
+    expect(loss).toBeCloseTo(referenceLoss(params, x, y, 4), 5);
+    tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
+  });
+
+  it('equal feedback alignment run with B = W (Lillicrap et al. 2016: FA only swaps Wᵀ for B)', async () => {
+    await initBackend(backend);
+    const { tower, batch } = setup();
+    const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const [bp, fa] = tf.tidy(() => [
+      trueGradients([tower], batch, loss).grads,
+      RULE_REGISTRY['feedback-alignment'].gradients([tower], [[tower.head!.W as tf.Tensor2D]], batch, loss).grads,
+    ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync()))));
+    expect(relativeError(fa, bp)).toBeLessThan(1e-6);
+    tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
+  });
+});

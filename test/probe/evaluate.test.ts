@@ -1,0 +1,143 @@
+import { describe, expect, it } from 'vitest';
+import type { Dataset, LatentName } from '../../src/collect/dataset.js';
+import { evaluateEncoder, type EvaluationRow } from '../../src/probe/evaluate.js';
+import type { NoiseSpec } from '../../src/noise/spec.js';
+import { fixtureDataset, linearEncoder } from './fixture.js';
+
+const { data, split } = fixtureDataset(2000, 11);
+const seed = 3;
+const sightNoise: NoiseSpec = { channel: 'sight', kind: 'gaussian', severities: [0, 1, 2, 3, 4, 5] };
+const soundNoise: NoiseSpec = { channel: 'sound', kind: 'masking', severities: [0, 1, 3, 5] };
+const targets = ['x', 'heading', 'wall_ahead', 'nearest_distance_m'];
+
+const value = (rows: readonly EvaluationRow[], where: Partial<EvaluationRow>): number[] =>
+  rows.filter((r) => Object.entries(where).every(([k, v]) => r[k as keyof EvaluationRow] === v)).map((r) => r.value);
+
+describe('evaluateEncoder with a sight-only linear encoder', () => {
+  const { encoder, calls } = linearEncoder(data, ['sight'], 16, 1);
+  const result = evaluateEncoder({ encoder, data, split, targets: ['x', 'heading'], noise: [sightNoise, soundNoise], seed });
+
+  it('reads what sight carries when clean (the fixture encodes x and heading linearly)', () => {
+    expect(value(result.rows, { target: 'x', channel: 'sight', severity: 0, metric: 'r2' })[0]).toBeGreaterThan(0.95);
+    expect(value(result.rows, { target: 'heading', channel: 'sight', severity: 0, metric: 'accuracy' })[0]).toBeGreaterThan(0.95);
+  });
+
+  it('loses accuracy and R² as sight gaussian severity grows', () => {
+    for (const [target, metric] of [['x', 'r2'], ['heading', 'accuracy']] as const) {
+      const curve = value(result.rows, { target, channel: 'sight', metric });
+      expect(curve).toHaveLength(6);
+      for (let s = 1; s < curve.length; s++) expect(curve[s]).toBeLessThan(curve[s - 1]);
+    }
+    const cka = value(result.rows, { target: '-', channel: 'sight', metric: 'cka' });
+    expect(cka[0]).toBeCloseTo(1, 9);
+    for (let s = 1; s < cka.length; s++) expect(cka[s]).toBeLessThan(cka[s - 1]);
+  });
+
+  it('is unchanged under sound noise, a channel it does not read', () => {
+    const clean = value(result.rows, { target: 'heading', channel: 'sight', severity: 0, metric: 'accuracy' })[0];
+    expect(value(result.rows, { target: 'heading', channel: 'sound', metric: 'accuracy' })).toEqual([clean, clean, clean, clean]);
+    expect(value(result.rows, { target: '-', channel: 'sound', metric: 'cka' }).every((v) => Math.abs(v - 1) < 1e-9)).toBe(true);
+  });
+
+  it('extracts features once per split and once per corrupted condition of a channel it reads', () => {
+    expect(calls).toHaveLength(3 + 5); // train, validation, clean test; sight severities 1..5
+  });
+
+  it('writes one row per target metric, a chance row per class target and a CKA row, at every condition', () => {
+    expect(result.rows).toHaveLength((6 + 4) * (2 + 1 + 1));
+    const chance = value(result.rows, { target: 'heading', metric: 'chance' });
+    expect(chance.every((v) => v === chance[0] && v > 0.15 && v < 0.4)).toBe(true); // four headings, about 1/4 each
+  });
+
+  it('returns the clean features of the test rows, [n_test, featureSize] when n_test ≤ 2000', () => {
+    expect(result.testFeatureRows).toBe(split.test.length);
+    expect(Array.from(result.testFeatures)).toEqual(Array.from(testFeaturesOf(data, split.test, 16, 1)));
+  });
+});
+
+describe('returned test features', () => {
+  it('keep only the first 2000 clean test rows of a larger test split', () => {
+    const large = fixtureDataset(14000, 12);
+    const { encoder } = linearEncoder(large.data, ['sight'], 4, 1);
+    const result = evaluateEncoder({ encoder, data: large.data, split: large.split, targets: ['x'], noise: [], seed });
+    expect(large.split.test.length).toBeGreaterThan(2000);
+    expect(result.testFeatureRows).toBe(2000);
+    expect(Array.from(result.testFeatures)).toEqual(Array.from(testFeaturesOf(large.data, large.split.test.subarray(0, 2000), 4, 1)));
+  });
+});
+
+describe('common random numbers', () => {
+  it('gives two different learners of one seed identical corrupted inputs', () => {
+    const first = linearEncoder(data, ['sight'], 8, 1);
+    const second = linearEncoder(data, ['sight', 'touch'], 12, 2);
+    evaluateEncoder({ encoder: first.encoder, data, split, targets: ['x'], noise: [sightNoise], seed });
+    evaluateEncoder({ encoder: second.encoder, data, split, targets: ['x'], noise: [sightNoise], seed });
+    for (let call = 3; call < 8; call++) {
+      expect(Array.from(second.calls[call].sight as Float32Array)).toEqual(Array.from(first.calls[call].sight as Float32Array));
+    }
+    expect(Array.from(first.calls[3].sight as Float32Array)).not.toEqual(Array.from(first.calls[2].sight as Float32Array));
+  });
+});
+
+describe('penalty selection', () => {
+  it('never looks at the test split: scrambling test labels and test inputs leaves every chosen α unchanged', () => {
+    const scrambled = withScrambledRows(data, split.test);
+    const evaluate = (d: Dataset) => evaluateEncoder({ encoder: linearEncoder(d, ['sight', 'sound'], 16, 5).encoder, data: d, split, targets, noise: [], seed }).probes;
+    const original = evaluate(data);
+    const changed = evaluate(scrambled);
+    expect(changed).toEqual(original);
+    // The same scrambling applied to the validation rows does move the choice, so the check has power.
+    expect(evaluate(withScrambledRows(data, split.validation))).not.toEqual(original);
+  });
+});
+
+describe('undefined targets', () => {
+  it('probes nearest_distance_m on the steps that have an emitter and ignores the rest', () => {
+    const { encoder } = linearEncoder(data, ['sound'], 16, 6);
+    const result = evaluateEncoder({ encoder, data, split, targets: ['nearest_distance_m'], noise: [soundNoise], seed });
+    expect(value(result.rows, { severity: 0, metric: 'r2' })[0]).toBeGreaterThan(0.8);
+  });
+
+  it('refuses a target that is undefined on every training row, saying why', () => {
+    const latents = { ...data.latents, nearest_distance_m: new Float32Array(data.steps).fill(NaN) };
+    const { encoder } = linearEncoder(data, ['sound'], 16, 6);
+    expect(() => evaluateEncoder({ encoder, data: { ...data, latents }, split, targets: ['nearest_distance_m'], noise: [], seed }))
+      .toThrow(`probe target 'nearest_distance_m' is defined on 0 of ${split.train.length} training rows (needs 2)`);
+  });
+});
+
+describe('input checks', () => {
+  const { encoder } = linearEncoder(data, ['sight'], 4, 1);
+  it('names an unknown target and the valid ones', () => {
+    expect(() => evaluateEncoder({ encoder, data, split, targets: ['colour'], noise: [], seed })).toThrow("probe target 'colour' is unknown; expected one of x, y, heading");
+  });
+
+  it('rejects an invalid noise spec before any work', () => {
+    expect(() => evaluateEncoder({ encoder, data, split, targets: ['x'], noise: [{ channel: 'sight', kind: 'masking', severities: [1] }], seed }))
+      .toThrow("noise sight/masking: kind 'masking' cannot corrupt channel 'sight'");
+  });
+});
+
+/** What a fresh copy of the fake sight encoder gives for the given rows. */
+function testFeaturesOf(source: Dataset, rows: Int32Array, featureSize: number, encoderSeed: number): Float32Array {
+  const sight = new Float32Array(rows.length * 11);
+  rows.forEach((row, i) => sight.set(source.channels.sight.subarray(row * 11, row * 11 + 11), i * 11));
+  return linearEncoder(source, ['sight'], featureSize, encoderSeed).encoder.features({ sight }, rows.length);
+}
+
+/** The dataset with each given row's latents and channel values taken from another given row (x set far off, inputs negated). */
+function withScrambledRows(source: Dataset, rows: Int32Array): Dataset {
+  const donor = (i: number) => rows[(i * 7 + 3) % rows.length];
+  const latents = Object.fromEntries(Object.entries(source.latents).map(([name, values]) => {
+    const out = Float32Array.from(values);
+    rows.forEach((row, i) => { out[row] = name === 'x' ? 100 + i : values[donor(i)]; });
+    return [name, out];
+  })) as Record<LatentName, Float32Array>;
+  const channels = Object.fromEntries(Object.entries(source.channels).map(([name, values]) => {
+    const size = source.channelSize[name as keyof typeof source.channelSize];
+    const out = Float32Array.from(values);
+    rows.forEach((row, i) => out.set(values.subarray(donor(i) * size, donor(i) * size + size).map((v) => -v), row * size));
+    return [name, out];
+  })) as Dataset['channels'];
+  return { ...source, latents, channels };
+}

@@ -31,8 +31,8 @@ export function summaryMarkdown(input: SummaryInput): string {
   }
   const failed = run.cells.filter((c) => c.status === 'failed');
   if (failed.length > 0) {
-    lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', 'reason'],
-      failed.map((c) => [c.id, c.learner, String(c.seed), c.reason || 'no reason recorded'])), '');
+    lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', ...run.varyKeys, 'reason'],
+      failed.map((c) => [c.id, c.learner, String(c.seed), ...run.varyKeys.map((k) => c.vary[k] ?? ''), c.reason || 'no reason recorded'])), '');
   }
   if (input.warnings.length > 0) lines.push('## Warnings', '', ...input.warnings.map((w) => `- ${w}`), '');
   return lines.join('\n');

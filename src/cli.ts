@@ -8,6 +8,7 @@ import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
 import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
+import { dashboardListener } from './tui/dashboard/dashboard-listener.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -27,7 +28,7 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   explore: exploreCommand,
-  run: (args) => runCommand(args),
+  run: (args) => runCommand(args, { dashboard: dashboardListener }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,

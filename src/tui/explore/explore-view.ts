@@ -32,7 +32,7 @@ const DB_SPAN = 60;
 
 /** The explore screen's content for a state. */
 export function exploreView(state: ExploreState): ExploreView {
-  const { world } = state.worlds[state.worldIndex];
+  const world = state.worlds[state.worldIndex];
   const senses = noisySenses(state);
   const { pose, transition } = state;
   const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : 'stayed';
@@ -46,7 +46,7 @@ export function exploreView(state: ExploreState): ExploreView {
     sound: soundProps(senses.sound, world),
     touch: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), senses.touch[i])),
     motor: ACTIONS.map((action, i) => bar(action, senses.motor[i])),
-    noise: CHANNELS.map((c) => ({ text: `${c.padEnd(6)} ${noiseText(state.noise[c])}`, selected: c === state.noiseChannel })),
+    noise: CHANNELS.map((c) => ({ text: `${c.padEnd(5)} ${noiseText(state.noise[c])}`, selected: c === state.noiseChannel })),
     truth: state.latents ? truthLines(state, world) : null,
     help: state.help,
   };
@@ -59,13 +59,15 @@ function bar(label: string, value: number): LabelledBar {
 function touchLabel(name: string): string {
   const footfall = /^footfall_(\d+)$/.exec(name);
   if (footfall != null) return `footfall ${Number(footfall[1]) + 1}`;
-  return name === 'bump_force' ? 'bump' : name.replace('_', ' ');
+  const whisker = /^whisker_(\w)/.exec(name);
+  if (whisker != null) return `whisker ${whisker[1].toUpperCase()}`;
+  return name === 'bump_force' ? 'bump' : name;
 }
 
 function noiseText(noise: ChannelNoise): string {
   if (noise.severity === 0) return `${noise.kind} 0 clean`;
   const p = severityParameter(noise.kind, noise.severity);
-  const detail = { gaussian: `σ ${p}`, dropout: `p ${p}`, blackout: `p ${p}`, masking: `SNR ${p} dB` }[noise.kind];
+  const detail = { gaussian: `σ ${p}`, dropout: `p ${p}`, blackout: `p ${p}`, masking: `SNR ${p}dB` }[noise.kind];
   return `${noise.kind} ${noise.severity} ${detail}`;
 }
 

@@ -43,7 +43,7 @@ export function referenceFor(world: World): Record<ChannelName, ChannelReference
  * Draws come from the seed, world, clock and channel, so a redraw shows the same noise.
  */
 export function noisySenses(state: ExploreState): Channels {
-  const { world } = state.worlds[state.worldIndex];
+  const world = state.worlds[state.worldIndex];
   const clean = senseAll(world, state.pose, state.transition, state.action, state.stepIndex, DEFAULT_SENSE_SETTINGS);
   const out = { ...clean };
   for (const channel of CHANNELS) {

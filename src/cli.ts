@@ -2,9 +2,11 @@
 import { cellCommand } from './commands/cell.js';
 import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
-import { runCommand } from './commands/run.js';
+import { runCommand, type DashboardHooks } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
+import { summarise } from './stats/summarise.js';
+import { renderDashboard } from './tui/dashboard/render-dashboard.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -23,13 +25,21 @@ usage:
 type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
-  run: (args) => runCommand(args),
+  run: (args) => runCommand(args, { dashboard }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,
   schema: schemaCommand,
   report: reportCommand,
 };
+
+/** The live run dashboard, with 95% CIs from the statistics module. */
+function dashboard(hooks: DashboardHooks) {
+  return renderDashboard(hooks, (values) => {
+    const { n, mean, ciHigh } = summarise(values);
+    return { mean, halfWidth: n >= 2 ? ciHigh - mean : null };
+  });
+}
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {

@@ -1,12 +1,14 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
+import { exploreCommand } from './commands/explore.js';
 import { cellCommand } from './commands/cell.js';
 import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
 import { runCommand, type DashboardHooks } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
-import { summarise } from './stats/summarise.js';
 import { renderDashboard } from './tui/dashboard/render-dashboard.js';
+import { checkCommand } from './commands/check.js';
+import { senseCommand } from './commands/sense.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -25,20 +27,20 @@ usage:
 type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
+  explore: exploreCommand,
   run: (args) => runCommand(args, { dashboard }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,
   schema: schemaCommand,
   report: reportCommand,
+  check: checkCommand,
+  sense: senseCommand,
 };
 
-/** The live run dashboard, with 95% CIs from the statistics module. */
+/** The live run dashboard. */
 function dashboard(hooks: DashboardHooks) {
-  return renderDashboard(hooks, (values) => {
-    const { n, mean, ciHigh } = summarise(values);
-    return { mean, halfWidth: n >= 2 ? ciHigh - mean : null };
-  });
+  return renderDashboard(hooks);
 }
 
 /** Runs one command line and returns the process exit code. */

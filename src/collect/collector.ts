@@ -72,6 +72,10 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
   const free = freeCells(world);
   const { size, channels, scratch, latents } = allocate(steps, settings);
   const latent = new Float64Array(LATENT_NAMES.length);
+  const latentColumns = LATENT_NAMES.map((n) => latents[n]);
+  const sizes = CHANNELS.map((c) => size[c]);
+  const outputs = CHANNELS.map((c) => channels[c]);
+  const rows = CHANNELS.map((c) => scratch[c]);
   const episode = new Int32Array(steps);
   const hasNext = new Uint8Array(steps);
   let pose: Pose = world.start ?? randomPose(world, free, rng);
@@ -87,9 +91,9 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
       pose = transition.pose;
     }
     senseInto(scene, pose, transition, action, t, scratch, 0);
-    for (const c of CHANNELS) channels[c].set(scratch[c], t * size[c]);
+    for (let c = 0; c < outputs.length; c++) outputs[c].set(rows[c], t * sizes[c]);
     latentRow(scene, pose, transition, latent);
-    for (let j = 0; j < LATENT_NAMES.length; j++) latents[LATENT_NAMES[j]][t] = latent[j];
+    for (let j = 0; j < latentColumns.length; j++) latentColumns[j][t] = latent[j];
     episode[t] = Math.floor(t / episodeSteps);
     hasNext[t] = t + 1 < steps && (t + 1) % episodeSteps !== 0 ? 1 : 0;
   }

@@ -2,7 +2,7 @@ import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js
 import { HEADING_INDEX } from '../senses/heading-index.js';
 import { sceneFor, type SensoryScene } from '../senses/scene.js';
 import { visibleCell } from '../senses/sight.js';
-import { headingFrame } from '../senses/sight-rays.js';
+import { headingFrame, type HeadingFrame } from '../senses/sight-rays.js';
 import { cellAhead } from '../world/movement.js';
 import type { Pose, Transition } from '../world/types.js';
 import { LATENT_NAMES, type LatentName } from './dataset.js';
@@ -10,10 +10,21 @@ import { LATENT_NAMES, type LatentName } from './dataset.js';
 /** Position of each latent in a latent row (LATENT_NAMES order). */
 const AT = Object.fromEntries(LATENT_NAMES.map((name, i) => [name, i])) as Record<LatentName, number>;
 
-function emitterInView(scene: SensoryScene, pose: Pose): boolean {
-  for (let k = 0; k < scene.light.length; k++) {
-    const cell = visibleCell(scene, pose, k);
-    if (cell >= 0 && scene.world.emitterAt[cell] >= 0) return true;
+/**
+ * Whether any emitter cell is visible in the sight field: each emitter's offset is turned
+ * into field coordinates (rows ahead, columns across) and, when it falls inside the field,
+ * checked along its line of sight.
+ */
+function emitterInView(scene: SensoryScene, pose: Pose, frame: HeadingFrame): boolean {
+  const { width, depth } = scene.settings.sight;
+  const emitters = scene.world.emitters;
+  for (let e = 0; e < emitters.length; e++) {
+    const dx = emitters[e].x - pose.x;
+    const dy = emitters[e].y - pose.y;
+    const ahead = dx * frame.fx + dy * frame.fy;
+    const column = dx * frame.rx + dy * frame.ry + Math.floor(width / 2);
+    if (ahead < 1 || ahead > depth || column < 0 || column >= width) continue;
+    if (visibleCell(scene, pose, (ahead - 1) * width + column) >= 0) return true;
   }
   return false;
 }
@@ -30,13 +41,15 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
   const { world } = scene;
   const heading = HEADING_INDEX[pose.heading];
   let nearest = 0;
-  let nearestCells = Infinity;
-  world.emitters.forEach((e, i) => {
-    const cells = Math.hypot(e.x - pose.x, e.y - pose.y);
-    if (cells < nearestCells) { nearest = i; nearestCells = cells; }
-  });
+  let nearestSquared = Infinity;
+  for (let e = 0; e < world.emitters.length; e++) {
+    const dx = world.emitters[e].x - pose.x;
+    const dy = world.emitters[e].y - pose.y;
+    if (dx * dx + dy * dy < nearestSquared) { nearest = e; nearestSquared = dx * dx + dy * dy; }
+  }
   const target = world.emitters[nearest];
-  const { fx, fy, rx, ry } = headingFrame(heading);
+  const frame = headingFrame(heading);
+  const { fx, fy, rx, ry } = frame;
   const dx = target.x - pose.x;
   const dy = target.y - pose.y;
   const azimuth = (Math.atan2(dx * rx + dy * ry, dx * fx + dy * fy) * 180) / Math.PI;
@@ -49,9 +62,9 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
   row[AT.material_ahead] = world.material[aheadCell];
   row[AT.wall_ahead] = world.solid[aheadCell];
   row[AT.nearest_emitter] = nearest;
-  row[AT.nearest_distance_m] = nearestCells * world.cellSizeM;
+  row[AT.nearest_distance_m] = Math.sqrt(nearestSquared) * world.cellSizeM;
   row[AT.nearest_azimuth_deg] = azimuth === -180 ? 180 : azimuth;
-  row[AT.emitter_in_view] = emitterInView(scene, pose) ? 1 : 0;
+  row[AT.emitter_in_view] = emitterInView(scene, pose, frame) ? 1 : 0;
   row[AT.moved] = transition.moved ? 1 : 0;
   row[AT.bumped] = transition.bumped ? 1 : 0;
 }

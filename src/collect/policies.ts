@@ -1,5 +1,8 @@
 import { randomInt, type Rng } from '../random.js';
-import { ACTIONS, type Action, type Transition } from '../world/types.js';
+import { ACTIONS as ACTION_LIST, type Action, type Transition } from '../world/types.js';
+
+// A module-local copy: imported bindings cost a lookup on every access in the hot loop.
+const ACTIONS = ACTION_LIST;
 
 /** What a policy may look at: the outcome of the last action and the channels it was sensed with. */
 export interface Observation {
@@ -44,20 +47,16 @@ export const SEEK_TURN_DB = 1;
 export const SEEK_EXPLORE = 0.1;
 
 /**
- * Heads for the loudest source using its own ears only: it sums the power in all bands of
- * each ear, turns towards the louder ear when they differ by more than SEEK_TURN_DB, and goes
- * forward otherwise; with probability SEEK_EXPLORE it acts at random.
+ * Heads for the loudest source using its own ears only: it averages the interaural level
+ * difference over all bands, turns towards the louder ear when the average exceeds
+ * SEEK_TURN_DB, and goes forward otherwise; with probability SEEK_EXPLORE it acts at random.
  */
 export const seek: Policy = ({ sound }, rng) => {
   if (rng() < SEEK_EXPLORE) return ACTIONS[randomInt(rng, ACTIONS.length)];
   const bands = sound.length / 2;
-  let left = 0;
-  let right = 0;
-  for (let b = 0; b < bands; b++) {
-    left += 10 ** (sound[b] / 10);
-    right += 10 ** (sound[bands + b] / 10);
-  }
-  const differenceDb = 10 * Math.log10(left / right);
+  let sum = 0;
+  for (let b = 0; b < bands; b++) sum += sound[b] - sound[bands + b];
+  const differenceDb = sum / bands;
   if (differenceDb > SEEK_TURN_DB) return 'turn-left';
   if (differenceDb < -SEEK_TURN_DB) return 'turn-right';
   return 'forward';

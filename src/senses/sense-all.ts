@@ -18,11 +18,11 @@ export function senseInto(
   scene: SensoryScene, pose: Pose, transition: Transition, action: Action, stepIndex: number,
   out: ChannelRows, row: number,
 ): void {
-  const { settings } = scene;
-  senseSight(scene, pose, out.sight, row * channelSize('sight', settings));
-  senseSound(scene, pose, transition, stepIndex, out.sound, row * channelSize('sound', settings));
-  senseTouch(scene, pose, transition, out.touch, row * channelSize('touch', settings));
-  senseMotor(action, out.motor, row * channelSize('motor', settings));
+  const { sizes } = scene;
+  senseSight(scene, pose, out.sight, row * sizes.sight);
+  senseSound(scene, pose, transition, stepIndex, out.sound, row * sizes.sound);
+  senseTouch(scene, pose, transition, out.touch, row * sizes.touch);
+  senseMotor(action, out.motor, row * sizes.motor);
 }
 
 /** Every channel at one step, each as a fresh flat array in the channel's shape (registry.ts). */

@@ -18,12 +18,12 @@ export const FAR_EAST_WEST = 2;
  * distance between cell centres − wall_loss_db per solid cell strictly between the two
  * (on the Bresenham line drawn from the listener).
  */
-export function soundCellTable(scene: SensoryScene, cell: number): Float64Array {
+export function soundCellTable(scene: SensoryScene, cell: number): Float32Array {
   const { world, bandsHz, emitterPower1m } = scene;
   const bands = bandsHz.length;
   const x = cell % world.width;
   const y = Math.floor(cell / world.width);
-  const table = new Float64Array(world.emitters.length * 3 * bands);
+  const table = new Float32Array(world.emitters.length * 3 * bands);
   world.emitters.forEach((e, i) => {
     const dx = e.x - x;
     const dy = e.y - y;

@@ -5,7 +5,7 @@ import { soundTableAt, type SensoryScene } from './scene.js';
 import { headingFrame } from './sight-rays.js';
 import { FAR_EAST_WEST, FAR_NORTH_SOUTH, NEAR } from './sound-table.js';
 
-function addBands(out: Float32Array, at: number, source: Float64Array, from: number, bands: number): void {
+function addBands(out: Float32Array, at: number, source: Float32Array, from: number, bands: number): void {
   for (let b = 0; b < bands; b++) out[at + b] += source[from + b];
 }
 

@@ -24,5 +24,5 @@ export function senseTouch(scene: SensoryScene, pose: Pose, transition: Transiti
   out[at + 2] = isBlocked(world, pose.x + rx, pose.y + ry) ? 1 : 0;
   out[at + 3] = transition.bumped ? 1 : 0;
   const texture = world.materials[world.material[pose.y * world.width + pose.x]].texture;
-  for (let i = 0; i < TEXTURE_SIZE; i++) out[at + 4 + i] = transition.moved ? texture[i] : 0;
+  for (let i = 0; i < texture.length; i++) out[at + 4 + i] = transition.moved ? texture[i] : 0;
 }

@@ -74,20 +74,20 @@ function checkShape(node: YamlNode, { rows, offsets }: MapRows, problems: Proble
   return even;
 }
 
+/** Glyph tables for filling the grid: what each glyph means and the floor under each emitter. */
+interface Legend {
+  readonly materials: readonly MaterialEntry[];
+  readonly emitters: readonly EmitterEntry[];
+  readonly onMaterial: readonly number[];
+}
+
 /**
- * Validates the map block against the glyphs and builds the cell arrays.
- *
- * Each emitter glyph must appear exactly once: an emitter is one sound source at one place,
- * so a second copy is reported rather than silently becoming a second source.
+ * Fills the cell arrays from the rows, reporting unknown glyphs and emitters placed twice or
+ * not at all. Each emitter glyph must appear exactly once: an emitter is one sound source at
+ * one place, so a second copy is reported rather than silently becoming a second source.
  */
-export function readMap(
-  node: YamlNode, text: string, lines: LineCounter,
-  materials: readonly MaterialEntry[], emitters: readonly EmitterEntry[], onMaterial: readonly number[],
-  problems: Problems,
-): MapGrid | null {
-  const layout = mapRows(node, text, lines, problems);
-  if (layout == null || !checkShape(node, layout, problems)) return null;
-  const { rows, offsets } = layout;
+function fillCells({ rows, offsets }: MapRows, legend: Legend, problems: Problems): MapGrid | null {
+  const { materials, emitters, onMaterial } = legend;
   const width = rows[0].length;
   const height = rows.length;
   const glyphs = glyphTable(materials, emitters);
@@ -95,45 +95,46 @@ export function readMap(
   const solid = new Uint8Array(width * height);
   const emitterAt = new Int16Array(width * height).fill(-1);
   const emitterCells: { x: number; y: number }[] = [];
-  const firstSeen = new Map<number, number>();
-  let valid = true;
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const glyph = rows[y][x];
-      const meaning = glyphs.get(glyph);
-      const offset = offsets[y] + x;
-      const i = y * width + x;
-      if (meaning == null) {
-        problems.report(offset, `unknown glyph ${JSON.stringify(glyph)} in map at x=${x}, y=${y}: not a material or emitter glyph`);
-        valid = false;
-      } else if (meaning.kind === 'material') {
-        material[i] = meaning.index;
-        solid[i] = materials[meaning.index].material.solid ? 1 : 0;
-      } else {
-        const e = meaning.index;
-        if (firstSeen.has(e)) {
-          problems.report(offset, `emitter '${emitters[e].name}' (glyph '${glyph}') appears again at x=${x}, y=${y}; `
-            + `it was already placed at ${problems.where(firstSeen.get(e))}, and each emitter is one source`);
-          valid = false;
-          continue;
-        }
-        firstSeen.set(e, offset);
-        emitterCells[e] = { x, y };
-        material[i] = onMaterial[e];
-        solid[i] = emitters[e].solid ? 1 : 0;
-        emitterAt[i] = e;
-      }
+  const placedAt = new Map<number, number>(); // emitter index -> file offset of its glyph
+  const before = problems.list.length;
+  for (let i = 0; i < width * height; i++) {
+    const x = i % width;
+    const y = Math.floor(i / width);
+    const glyph = rows[y][x];
+    const meaning = glyphs.get(glyph);
+    const offset = offsets[y] + x;
+    if (meaning == null) {
+      problems.report(offset, `unknown glyph ${JSON.stringify(glyph)} in map at x=${x}, y=${y}: not a material or emitter glyph`);
+    } else if (meaning.kind === 'material') {
+      material[i] = meaning.index;
+      solid[i] = materials[meaning.index].material.solid ? 1 : 0;
+    } else if (placedAt.has(meaning.index)) {
+      problems.report(offset, `emitter '${emitters[meaning.index].name}' (glyph '${glyph}') appears again at x=${x}, y=${y}; `
+        + `it was already placed at ${problems.where(placedAt.get(meaning.index))}, and each emitter is one source`);
+    } else {
+      placedAt.set(meaning.index, offset);
+      emitterCells[meaning.index] = { x, y };
+      material[i] = onMaterial[meaning.index];
+      solid[i] = emitters[meaning.index].solid ? 1 : 0;
+      emitterAt[i] = meaning.index;
     }
   }
   emitters.forEach((e, index) => {
-    if (!firstSeen.has(index)) {
-      problems.report(e.glyphNode, `emitter '${e.name}' (glyph '${e.glyph}') does not appear in the map`);
-      valid = false;
-    }
+    if (!placedAt.has(index)) problems.report(e.glyphNode, `emitter '${e.name}' (glyph '${e.glyph}') does not appear in the map`);
   });
-  if (!valid) return null;
-  const grid = { width, height, material, solid, emitterAt, emitterCells };
-  return checkEnclosure(grid, node, offsets, problems) ? grid : null;
+  return problems.list.length > before ? null : { width, height, material, solid, emitterAt, emitterCells };
+}
+
+/** Validates the `map` block against the glyphs and builds the cell arrays. */
+export function readMap(
+  node: YamlNode, text: string, lines: LineCounter,
+  materials: readonly MaterialEntry[], emitters: readonly EmitterEntry[], onMaterial: readonly number[],
+  problems: Problems,
+): MapGrid | null {
+  const layout = mapRows(node, text, lines, problems);
+  if (layout == null || !checkShape(node, layout, problems)) return null;
+  const grid = fillCells(layout, { materials, emitters, onMaterial }, problems);
+  return grid != null && checkEnclosure(grid, node, layout.offsets, problems) ? grid : null;
 }
 
 /** An open border lets the agent walk off the map; a map with no free cell has nowhere to stand. */

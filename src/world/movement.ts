@@ -1,4 +1,4 @@
-import { HEADINGS, type Action, type Heading, type Pose, type Transition, type World } from './types.js';
+import type { Action, Heading, Pose, Transition, World } from './types.js';
 
 /** One cell along a heading as [dx, dy]; y grows southwards (down the map). */
 export function headingVector(heading: Heading): readonly [number, number] {
@@ -22,9 +22,8 @@ export function isBlocked(world: World, x: number, y: number): boolean {
   return world.solid[y * world.width + x] === 1;
 }
 
-function turned(heading: Heading, quarterTurns: number): Heading {
-  return HEADINGS[(HEADINGS.indexOf(heading) + quarterTurns + 4) % 4];
-}
+const LEFT_OF: Readonly<Record<Heading, Heading>> = { north: 'west', west: 'south', south: 'east', east: 'north' };
+const RIGHT_OF: Readonly<Record<Heading, Heading>> = { north: 'east', east: 'south', south: 'west', west: 'north' };
 
 /**
  * Applies one action: forward/back move one cell along the heading, turns rotate a quarter
@@ -34,7 +33,7 @@ function turned(heading: Heading, quarterTurns: number): Heading {
 export function step(world: World, pose: Pose, action: Action): Transition {
   if (action === 'stay') return { pose, moved: false, bumped: false };
   if (action === 'turn-left' || action === 'turn-right') {
-    const heading = turned(pose.heading, action === 'turn-left' ? -1 : 1);
+    const heading = action === 'turn-left' ? LEFT_OF[pose.heading] : RIGHT_OF[pose.heading];
     return { pose: { ...pose, heading }, moved: false, bumped: false };
   }
   const [dx, dy] = headingVector(pose.heading);

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { closest } from 'fastest-levenshtein';
 import { LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
-import { listField, numberField, readFields, stringField } from './fields.js';
+import { listField, numberField, readFields, stringField, type Fields } from './fields.js';
 import { readMap, type MapGrid } from './map-text.js';
 import { readEmitter, readMaterial, readStart, type EmitterEntry, type MaterialEntry, type StartEntry } from './parts.js';
 import { createProblems, WorldFileError, type Problems } from './problems.js';
@@ -85,45 +85,67 @@ function placeEmitters(entries: readonly EmitterEntry[], floors: readonly number
   }));
 }
 
-/** Reads and validates a world; returns the world (or null) and every problem found. */
-function readWorld(text: string, path: string): { world: World | null; problems: string[] } {
-  const lines = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: false });
-  const problems = createProblems(path, lines);
-  if (doc.errors.length > 0) {
-    for (const error of doc.errors) problems.report(error.pos[0], `YAML syntax: ${error.message.split('\n')[0]}`);
-    return { world: null, problems: problems.list };
-  }
-  const fields = readFields(doc.contents as YamlNode | null, 'the world', WORLD_KEYS, REQUIRED_KEYS, problems);
-  if (fields == null) return { world: null, problems: problems.list };
+type Header = Pick<World, 'name' | 'description' | 'cellSizeM' | 'ambientDb' | 'wallLossDb'>;
+
+function readHeader(fields: Fields, problems: Problems): Header | null {
   const name = stringField(fields, 'name', problems);
   const description = stringField(fields, 'description', problems, { fallback: WORLD_DEFAULTS.description });
   const cellSizeM = numberField(fields, 'cell_size_m', { above: 0, max: 100 }, problems);
   const ambientDb = numberField(fields, 'ambient_db', { min: -20, max: 140 }, problems, WORLD_DEFAULTS.ambientDb);
   const wallLossDb = numberField(fields, 'wall_loss_db', { min: 0, max: 200 }, problems, WORLD_DEFAULTS.wallLossDb);
+  if (name == null || description == null || cellSizeM == null || ambientDb == null || wallLossDb == null) return null;
+  return { name, description, cellSizeM, ambientDb, wallLossDb };
+}
+
+interface Palette {
+  readonly materials: MaterialEntry[];
+  readonly emitters: EmitterEntry[];
+  /** Material index under each emitter. */
+  readonly floors: number[];
+}
+
+/** Materials and emitters, checked one by one and then against each other. */
+function readPalette(fields: Fields, problems: Problems): Palette | null {
   const materials = readList(listField(fields, 'materials', problems), readMaterial, problems);
   const emitters = readList(listField(fields, 'emitters', problems), readEmitter, problems);
-  const startNode = fields.values.get('start');
-  const start = startNode == null ? undefined : readStart(startNode, problems);
   if (materials != null && (materials.length === 0 || materials.length > MAX_MATERIALS)) {
     problems.report(fields.values.get('materials'), `'materials' must list 1 to ${MAX_MATERIALS} materials`);
   }
   if (emitters != null && (emitters.length === 0 || emitters.length > MAX_EMITTERS)) {
     problems.report(fields.values.get('emitters'), `'emitters' must list 1 to ${MAX_EMITTERS} emitters (sound and the nearest-emitter targets need one)`);
   }
-  if (materials == null || emitters == null || problems.list.length > 0) return { world: null, problems: problems.list };
+  if (materials == null || emitters == null || problems.list.length > 0) return null;
   checkUnique(materials, emitters, problems);
   const floors = resolveFloors(materials, emitters, problems);
-  if (floors == null || problems.list.length > 0) return { world: null, problems: problems.list };
+  return floors == null || problems.list.length > 0 ? null : { materials, emitters, floors };
+}
+
+/**
+ * Reads and validates a world; returns the world (or null) and every problem found.
+ * Checks run in stages (syntax, keys and values, glyphs and names, map), and a later stage
+ * runs only when the earlier ones found nothing, so one mistake is not reported many times.
+ */
+function readWorld(text: string, path: string): { world: World | null; problems: string[] } {
+  const lines = new LineCounter();
+  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: false });
+  const problems = createProblems(path, lines);
+  const failed = { world: null, problems: problems.list };
+  if (doc.errors.length > 0) {
+    for (const error of doc.errors) problems.report(error.pos[0], `YAML syntax: ${error.message.split('\n')[0]}`);
+    return failed;
+  }
+  const fields = readFields(doc.contents as YamlNode | null, 'the world', WORLD_KEYS, REQUIRED_KEYS, problems);
+  if (fields == null) return failed;
+  const header = readHeader(fields, problems);
+  const startNode = fields.values.get('start');
+  const start = startNode == null ? undefined : readStart(startNode, problems);
+  const palette = readPalette(fields, problems);
+  if (header == null || palette == null || start === null || problems.list.length > 0) return failed;
+  const { materials, emitters, floors } = palette;
   const grid = readMap(fields.values.get('map')!, text, lines, materials, emitters, floors, problems);
-  if (grid == null || start === null || (start != null && !checkStart(start, grid, problems))) {
-    return { world: null, problems: problems.list };
-  }
-  if (name == null || description == null || cellSizeM == null || ambientDb == null || wallLossDb == null) {
-    return { world: null, problems: problems.list };
-  }
+  if (grid == null || (start != null && !checkStart(start, grid, problems))) return failed;
   const world: World = {
-    name, description, cellSizeM, ambientDb, wallLossDb,
+    ...header,
     materials: materials.map((m) => m.material), emitters: placeEmitters(emitters, floors, grid),
     width: grid.width, height: grid.height, material: grid.material, solid: grid.solid, emitterAt: grid.emitterAt,
     ...(start != null ? { start: { x: start.x, y: start.y, heading: start.heading } } : {}),

@@ -59,6 +59,17 @@ describe('sight line-of-sight occlusion on hand-drawn maps (Bresenham 1965 lines
   });
 });
 
+describe('a floor-level (non-solid) emitter', () => {
+  it('is seen in its own colour and does not hide what lies behind it', () => {
+    // The hum `o` (blue, not solid) stands 1 cell ahead of (2,4) facing north; the floor behind stays lit.
+    const world = tinyWorld(['#####', '#...#', '#...#', '#.o.#', '#...#', '#####']);
+    const pose = { x: 2, y: 4, heading: 'north' as const };
+    const sight = senseAll(world, pose, { pose, moved: false, bumped: false }, 'stay', 0).sight;
+    expect([...sight.subarray(6, 9)]).toEqual([0, 0, 1]);
+    expect(sight[(1 * WIDTH + 2) * 3 + 1]).toBeCloseTo(0.4 / 4, 6);
+  });
+});
+
 describe('sight values', () => {
   const world = tinyWorld(['#####', '#..E#', '#...#', '#...#', '#...#', '#...#', '#####']);
   const pose = { x: 2, y: 5, heading: 'north' as const };

@@ -6,9 +6,9 @@ import { planCommand } from './commands/plan.js';
 import { runCommand } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
+import { renderDashboard } from './tui/dashboard/render-dashboard.js';
 import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
-import { dashboardListener } from './tui/dashboard/dashboard-listener.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -28,7 +28,7 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   explore: exploreCommand,
-  run: (args) => runCommand(args, { dashboard: dashboardListener }),
+  run: (args) => runCommand(args, { dashboard: renderDashboard }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,

@@ -1,10 +1,11 @@
 import { fileURLToPath } from 'node:url';
-import { collect, splitByEpisode } from '../collect/index.js';
+import { collect } from '../collect/collector.js';
+import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
 import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
-import { loadWorld } from '../world/index.js';
+import { loadWorld } from '../world/parse.js';
 
 /** One benchmark figure. */
 export interface BenchRow {

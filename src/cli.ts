@@ -1,6 +1,12 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
-import { checkCommand } from './commands/check.js';
+import { exploreCommand } from './commands/explore.js';
+import { cellCommand } from './commands/cell.js';
+import { clusterCommand } from './commands/cluster.js';
+import { planCommand } from './commands/plan.js';
+import { runCommand } from './commands/run.js';
+import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
+import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
@@ -20,8 +26,14 @@ usage:
 type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
-  check: checkCommand,
+  explore: exploreCommand,
+  run: (args) => runCommand(args),
+  plan: planCommand,
+  cell: (args) => cellCommand(args),
+  cluster: clusterCommand,
+  schema: schemaCommand,
   report: reportCommand,
+  check: checkCommand,
   sense: senseCommand,
 };
 

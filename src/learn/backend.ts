@@ -13,7 +13,7 @@ let gradientsReady = false;
  * (its Node build locates the `.wasm` next to itself; nothing is fetched). Production
  * mode silences the banner that recommends a native Node backend.
  */
-export async function initBackend(name: BackendName): Promise<void> {
+export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
   if (!gradientsReady) {
     tf.env().set('PROD', true);
     registerStockGradients();

@@ -116,14 +116,18 @@ function trainEpoch(ctx: EpochContext, train: SplitTensors, epoch: number): { lo
   return { loss: sum / count, angles: angles.means() };
 }
 
-/** Example-weighted mean loss over a split, in batches of the training batch size. */
-function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: SplitTensors): number {
+/**
+ * Example-weighted mean loss over a split, in batches of the training batch size taken
+ * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
+ * of them would be far harder than the shuffled training batches.
+ */
+function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: SplitTensors, order: Int32Array): number {
   let sum = 0;
   let count = 0;
   for (let start = 0; start < split.n; start += spec.train.batch) {
     const end = Math.min(start + spec.train.batch, split.n);
     if (end - start < minBatch(spec) && count > 0) continue;
-    const rows = Int32Array.from({ length: end - start }, (_, i) => start + i);
+    const rows = order.subarray(start, end);
     sum += (end - start) * tf.tidy(() => {
       const batch = gatherBatch(split, rows);
       const outputs = towerOutputs(towers, batch);
@@ -169,12 +173,13 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     if (train.n < minBatch(spec)) throw new Error(`learner '${spec.name}': the training split has ${train.n} usable rows`);
     if (validation.n < minBatch(spec)) throw new Error(`learner '${spec.name}': the validation split has ${validation.n} usable rows`);
     const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: createRng(options.seed, 'shuffle', spec.name), step: 0 };
+    const validationOrder = permutation(validation.n, createRng(options.seed, 'shuffle', spec.name, 'validation'));
     let bestLoss = Infinity;
     let sinceBest = 0;
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
       const started = performance.now();
       const { loss, angles } = trainEpoch(ctx, train, epoch);
-      const validationLoss = evaluate(spec, towers, signal, validation);
+      const validationLoss = evaluate(spec, towers, signal, validation, validationOrder);
       if (!Number.isFinite(validationLoss)) throw new LearnerDivergedError(spec.name, 'validation', epoch, validationLoss);
       const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds: (performance.now() - started) / 1000, alignmentDeg: angles };
       log.push(entry);

@@ -14,7 +14,7 @@ import { summaryMarkdown } from './summary.js';
 export interface ReportFiles {
   readonly summaryPath: string;
   readonly comparisonsPath: string;
-  /** Absolute or outDir-joined paths of the SVG plots. */
+  /** Paths of the SVG plots written, joined to outDir. */
   readonly plots: string[];
   readonly warnings: string[];
 }
@@ -79,7 +79,7 @@ function trainingPoints(run: StoredRun, combo: Combination): BandPoint[] {
     const mine = cells.filter((c) => c.learner === learner);
     const epochs = Math.max(...mine.map((c) => c.validationLoss.length));
     return Array.from({ length: epochs }, (_, e): BandPoint => {
-      const s = summarise(mine.map((c) => c.validationLoss[e]).filter((v) => v !== undefined));
+      const s = summarise(mine.map((c) => c.validationLoss[e] ?? NaN));
       return { learner, x: e + 1, mean: s.mean, low: s.ciLow, high: s.ciHigh };
     });
   });

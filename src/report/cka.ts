@@ -5,16 +5,33 @@
  * x is [rows, colsX] and y is [rows, colsY], row-major. NaN when either side is constant.
  */
 export function linearCka(x: Float32Array, colsX: number, y: Float32Array, colsY: number): number {
-  const rows = x.length / colsX;
-  if (!Number.isInteger(rows) || y.length / colsY !== rows) {
-    throw new Error(`linearCka: x has ${x.length / colsX} rows of ${colsX}, y has ${y.length / colsY} rows of ${colsY}`);
+  const rowsX = x.length / colsX;
+  if (!Number.isInteger(rowsX) || y.length / colsY !== rowsX) {
+    throw new Error(`linearCka: x has ${rowsX} rows of ${colsX}, y has ${y.length / colsY} rows of ${colsY}`);
   }
-  const xc = centred(x, rows, colsX);
-  const yc = centred(y, rows, colsY);
-  const cross = frobeniusSquared(gram(xc, colsX, yc, colsY, rows));
-  const selfX = Math.sqrt(frobeniusSquared(gram(xc, colsX, xc, colsX, rows)));
-  const selfY = Math.sqrt(frobeniusSquared(gram(yc, colsY, yc, colsY, rows)));
-  return selfX === 0 || selfY === 0 ? NaN : cross / (selfX * selfY);
+  return linearCkaPrepared(prepareCka(x, colsX), prepareCka(y, colsY));
+}
+
+/** A representation centred once, with its ‖XᵀX‖_F, for comparing it with many others. */
+export interface CkaOperand {
+  readonly centred: Float64Array; // [rows, cols]
+  readonly rows: number;
+  readonly cols: number;
+  readonly selfNorm: number;
+}
+
+/** Centres x [rows, cols] and computes ‖XᵀX‖_F once. */
+export function prepareCka(x: Float32Array, cols: number): CkaOperand {
+  const rows = x.length / cols;
+  const centredX = centred(x, rows, cols);
+  return { centred: centredX, rows, cols, selfNorm: Math.sqrt(frobeniusSquared(gram(centredX, cols, centredX, cols, rows))) };
+}
+
+/** Linear CKA of two prepared representations of the same rows; NaN when either is constant. */
+export function linearCkaPrepared(a: CkaOperand, b: CkaOperand): number {
+  if (a.rows !== b.rows) throw new Error(`linearCka: x has ${a.rows} rows of ${a.cols}, y has ${b.rows} rows of ${b.cols}`);
+  if (a.selfNorm === 0 || b.selfNorm === 0) return NaN;
+  return frobeniusSquared(gram(a.centred, a.cols, b.centred, b.cols, a.rows)) / (a.selfNorm * b.selfNorm);
 }
 
 /** Columns minus their means, in float64. // [rows, cols] */

@@ -19,7 +19,10 @@ export interface Comparison extends PairedComparison {
   readonly pHolm: number;
 }
 
-/** Every paired comparison of a learner's probe score with the baseline's, Holm-adjusted together. */
+/**
+ * Every paired comparison of a learner's probe score with the baseline's, Holm-adjusted
+ * together across the whole report (all combinations, targets, noises and severities).
+ */
 export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
   const raw: Omit<Comparison, 'pHolm'>[] = [];
   for (const combo of combinations(rows, varyKeys)) {
@@ -44,8 +47,27 @@ export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readon
       }
     }
   }
-  const adjusted = holm(raw.map((c) => c.p));
-  return raw.map((c, i) => ({ ...c, pHolm: adjusted[i] }));
+  const hypothesis = hypothesisKeys(raw);
+  const distinct = unique(hypothesis);
+  const pOf = new Map(raw.map((c, i) => [hypothesis[i], c.p]));
+  const adjusted = new Map(holm(distinct.map((h) => pOf.get(h)!)).map((p, i) => [distinct[i], p]));
+  return raw.map((c, i) => ({ ...c, pHolm: adjusted.get(hypothesis[i])! }));
+}
+
+/**
+ * One key per tested hypothesis. Severity 0 is the clean score, stored once per noise:
+ * identical clean comparisons are one hypothesis, so they count once in Holm's m and
+ * share its adjusted p.
+ */
+function hypothesisKeys(comparisons: readonly Omit<Comparison, 'pHolm'>[]): string[] {
+  return comparisons.map((c, i) => (c.severity === 0
+    ? JSON.stringify([c.combination, c.learner, c.target, c.metric, c.n, c.meanDiff, c.sdDiff]) : `#${i}`));
+}
+
+/** Holm's m: the number of distinct hypotheses with a defined p-value. */
+export function holmFamilySize(comparisons: readonly Comparison[]): number {
+  const keys = hypothesisKeys(comparisons);
+  return unique(keys.filter((_, i) => !Number.isNaN(comparisons[i].p))).length;
 }
 
 /** The comparisons.csv text (DESIGN, Output layout), vary columns last. */

@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { summarise, type Summary } from '../stats/summarise.js';
-import { linearCka } from './cka.js';
+import { linearCkaPrepared, prepareCka } from './cka.js';
 import { comboKey, unique, type Combination } from './groups.js';
 import type { CellRecord, StoredRun } from './load.js';
 import { readNpy, type NpyArray } from './npy.js';
@@ -12,7 +12,7 @@ export interface LearnerCka {
   readonly matrix: readonly (readonly Summary[])[];
 }
 
-/** The done cells of a combination, matched by the cell ids in its result rows or by the vary values in cell.json. */
+/** The cells of a combination: those whose id appears in its result rows, and unfinished or failed ones whose cell.json vary values match. */
 export function cellsOf(run: StoredRun, combo: Combination): CellRecord[] {
   const ids = new Set(combo.rows.map((r) => r.cell));
   const key = comboKey(combo.values, run.varyKeys);
@@ -30,25 +30,37 @@ export async function learnerCka(run: StoredRun, combo: Combination, warnings: s
   if (learners.length < 2) return null;
   const values = learners.map(() => learners.map((): number[] => []));
   for (const seed of unique(cells.map((c) => c.seed))) {
-    const features = new Map<string, NpyArray>();
-    for (const c of cells.filter((cell) => cell.seed === seed)) {
-      const path = join(run.outDir, 'cells', c.id, 'test_features.npy');
-      try {
-        const array = await readNpy(path);
-        if (array.shape.length !== 2) throw new Error(`${path}: expected a 2-D array [rows, features], got shape (${array.shape.join(', ')})`);
-        features.set(c.learner, array);
-      } catch (error) {
-        warnings.push((error as Error).message);
-      }
+    const features = await seedFeatures(run, cells.filter((c) => c.seed === seed), warnings);
+    if (features.size === 0) continue;
+    const rows = Math.min(...[...features.values()].map((f) => f.shape[0]));
+    if ([...features.values()].some((f) => f.shape[0] !== rows)) {
+      warnings.push(`seed ${seed}: learners stored different numbers of test rows; CKA between learners uses the first ${rows}`);
     }
+    const prepared = new Map([...features].map(([learner, f]) => [learner, prepareCka(f.data.subarray(0, rows * f.shape[1]), f.shape[1])]));
     learners.forEach((a, i) => learners.forEach((b, j) => {
-      const fa = features.get(a);
-      const fb = features.get(b);
-      if (fa == null || fb == null) return;
-      const rows = Math.min(fa.shape[0], fb.shape[0]);
-      if (fa.shape[0] !== fb.shape[0] && i < j) warnings.push(`seed ${seed}: ${a} and ${b} stored different test row counts; CKA uses the first ${rows}`);
-      values[i][j].push(linearCka(fa.data.subarray(0, rows * fa.shape[1]), fa.shape[1], fb.data.subarray(0, rows * fb.shape[1]), fb.shape[1]));
+      const pa = prepared.get(a);
+      const pb = prepared.get(b);
+      if (j < i || pa == null || pb == null) return;
+      const value = linearCkaPrepared(pa, pb);
+      values[i][j].push(value);
+      if (j !== i) values[j][i].push(value);
     }));
   }
   return { learners, matrix: values.map((row) => row.map((v) => summarise(v))) };
+}
+
+/** The 2-D test features of one seed's cells, by learner; unreadable files become warnings. */
+async function seedFeatures(run: StoredRun, cells: readonly CellRecord[], warnings: string[]): Promise<Map<string, NpyArray>> {
+  const features = new Map<string, NpyArray>();
+  for (const c of cells) {
+    const path = join(run.outDir, 'cells', c.id, 'test_features.npy');
+    try {
+      const array = await readNpy(path);
+      if (array.shape.length !== 2) throw new Error(`${path}: expected a 2-D array [rows, features], got shape (${array.shape.join(', ')})`);
+      features.set(c.learner, array);
+    } catch (error) {
+      warnings.push((error as Error).message);
+    }
+  }
+  return features;
 }

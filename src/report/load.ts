@@ -3,7 +3,7 @@ import { readdir, readFile, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { parseCsv } from './csv.js';
-import { parseResultsCsv, type ResultRow } from './results-table.js';
+import { parseResultsCsv, type ResultRow, type ResultsTable } from './results-table.js';
 
 /** What a cell folder says about its cell (cells/<id>/cell.json). */
 export interface CellRecord {
@@ -13,8 +13,10 @@ export interface CellRecord {
   readonly status: 'done' | 'failed' | 'unknown';
   readonly reason: string;
   readonly vary: Readonly<Record<string, string>>;
-  /** Mean validation loss per epoch from train.csv, [epoch - 1]; empty without train.csv. */
+  /** This cell's validation loss per epoch from train.csv, [epoch − 1]; empty without train.csv. */
   readonly validationLoss: readonly number[];
+  /** Angle in degrees between the rule's update and the true gradient at the last epoch, per layer (alignment_deg_<layer> columns). */
+  readonly finalAlignmentDeg: Readonly<Record<string, number>>;
   readonly hasFeatures: boolean;
 }
 
@@ -33,8 +35,10 @@ export interface StoredRun {
 export async function loadRun(outDir: string): Promise<StoredRun> {
   if (!existsSync(outDir) || !(await stat(outDir)).isDirectory()) throw new Error(`${outDir}: no such directory`);
   const resultsPath = join(outDir, 'results.csv');
-  if (!existsSync(resultsPath)) throw new Error(`${resultsPath}: not found (no results to report; run the sweep first)`);
-  const table = parseResultsCsv(await readFile(resultsPath, 'utf8'), resultsPath);
+  const table = existsSync(resultsPath)
+    ? parseResultsCsv(await readFile(resultsPath, 'utf8'), resultsPath)
+    : await cellResults(join(outDir, 'cells'));
+  if (table == null) throw new Error(`${resultsPath}: not found (no results to report; run the sweep first)`);
   if (table.rows.length === 0) throw new Error(`${resultsPath}: holds no result rows (no results to report)`);
   const warnings: string[] = [];
   const config = await readConfig(join(outDir, 'config.resolved.yaml'), warnings);
@@ -47,6 +51,24 @@ export async function loadRun(outDir: string): Promise<StoredRun> {
     baseline = null;
   }
   return { outDir, name: config.name, baseline, varyKeys: table.varyKeys, rows: table.rows, cells, warnings };
+}
+
+/**
+ * Without a top-level results.csv (e.g. cells run on other machines and copied in), the
+ * union of the cells' own scores (cells/<id>/scores.csv, the same format); null when there are none.
+ */
+async function cellResults(dir: string): Promise<ResultsTable | null> {
+  if (!existsSync(dir)) return null;
+  const paths = (await readdir(dir)).sort().map((id) => join(dir, id, 'scores.csv')).filter(existsSync);
+  if (paths.length === 0) return null;
+  const tables = await Promise.all(paths.map(async (p) => parseResultsCsv(await readFile(p, 'utf8'), p)));
+  const varyKeys = tables[0].varyKeys;
+  tables.forEach((t, i) => {
+    if (JSON.stringify(t.varyKeys) !== JSON.stringify(varyKeys)) {
+      throw new Error(`${paths[i]}:1: vary columns ${t.varyKeys.join(', ') || '(none)'} differ from ${paths[0]}'s ${varyKeys.join(', ') || '(none)'}`);
+    }
+  });
+  return { varyKeys, rows: tables.flatMap((t) => t.rows) };
 }
 
 async function readConfig(path: string, warnings: string[]): Promise<{ name: string; baseline: string | null }> {
@@ -69,7 +91,7 @@ async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]>
     const jsonPath = join(dir, id, 'cell.json');
     if (!existsSync(jsonPath)) continue; // an unfinished cell: nothing was committed
     try {
-      cells.push(await readCell(join(dir, id), id));
+      cells.push(await readCell(join(dir, id), id, warnings));
     } catch (error) {
       warnings.push((error as Error).message);
     }
@@ -77,7 +99,7 @@ async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]>
   return cells;
 }
 
-async function readCell(dir: string, id: string): Promise<CellRecord> {
+async function readCell(dir: string, id: string, warnings: string[]): Promise<CellRecord> {
   const jsonPath = join(dir, 'cell.json');
   let json: Record<string, unknown>;
   try {
@@ -91,6 +113,12 @@ async function readCell(dir: string, id: string): Promise<CellRecord> {
     for (const [k, v] of Object.entries(json.vary)) vary[k] = typeof v === 'string' ? v : JSON.stringify(v);
   }
   const trainPath = join(dir, 'train.csv');
+  let training: ReturnType<typeof parseTrainCsv> = { validationLoss: [], finalAlignmentDeg: {} };
+  try {
+    if (existsSync(trainPath)) training = parseTrainCsv(await readFile(trainPath, 'utf8'), trainPath);
+  } catch (error) {
+    warnings.push(`${(error as Error).message} (training curve left out)`);
+  }
   return {
     id,
     learner: typeof json.learner === 'string' ? json.learner : '?',
@@ -98,13 +126,13 @@ async function readCell(dir: string, id: string): Promise<CellRecord> {
     status,
     reason: typeof json.reason === 'string' ? json.reason : '',
     vary,
-    validationLoss: existsSync(trainPath) ? validationLosses(await readFile(trainPath, 'utf8'), trainPath) : [],
+    ...training,
     hasFeatures: existsSync(join(dir, 'test_features.npy')),
   };
 }
 
-/** The validation_loss column of a train.csv, indexed by epoch − 1. */
-function validationLosses(text: string, path: string): number[] {
+/** The validation_loss column of a train.csv indexed by epoch − 1, and the last row's alignment angles. */
+function parseTrainCsv(text: string, path: string): { validationLoss: number[]; finalAlignmentDeg: Record<string, number> } {
   const [header, ...records] = parseCsv(text, path);
   const epochAt = header?.fields.indexOf('epoch') ?? -1;
   const lossAt = header?.fields.indexOf('validation_loss') ?? -1;
@@ -113,7 +141,17 @@ function validationLosses(text: string, path: string): number[] {
   for (const { line, fields } of records) {
     const epoch = Number(fields[epochAt]);
     if (!Number.isInteger(epoch) || epoch < 1) throw new Error(`${path}:${line}: epoch: expected a positive integer, got '${fields[epochAt]}'`);
-    losses[epoch - 1] = Number(fields[lossAt]);
+    losses[epoch - 1] = numberOrNaN(fields[lossAt]);
   }
-  return Array.from(losses, (v) => v ?? NaN);
+  const finalAlignmentDeg: Record<string, number> = {};
+  const last = records.at(-1);
+  header.fields.forEach((name, i) => {
+    if (last != null && name.startsWith('alignment_deg_')) finalAlignmentDeg[name.slice('alignment_deg_'.length)] = numberOrNaN(last.fields[i]);
+  });
+  return { validationLoss: Array.from(losses, (v) => v ?? NaN), finalAlignmentDeg };
+}
+
+/** A CSV number; an empty field is a missing value, not 0. */
+function numberOrNaN(text: string | undefined): number {
+  return text == null || text.trim() === '' ? NaN : Number(text);
 }

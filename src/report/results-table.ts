@@ -1,3 +1,4 @@
+import type { ScoreRow } from '../experiment/events.js';
 import { csvLine, parseCsv } from './csv.js';
 
 /** The fixed leading columns of results.csv (DESIGN, Output layout); vary keys follow. */
@@ -5,24 +6,18 @@ export const RESULTS_COLUMNS = [
   'cell', 'learner', 'objective', 'rule', 'seed', 'target', 'channel', 'kind', 'severity', 'metric', 'value',
 ] as const;
 
-/** Metrics a results row may carry: probe scores, the chance level beside accuracy, and CKA. */
+/** Metrics a results row may carry: probe scores (r2, accuracy), the chance level beside accuracy, and CKA ('-' target). */
 export const RESULT_METRICS = ['r2', 'accuracy', 'chance', 'cka'] as const;
 export type ResultMetric = (typeof RESULT_METRICS)[number];
 
-/** One measurement: one row of results.csv. */
-export interface ResultRow {
+/**
+ * One measurement: one row of results.csv. The same shape as the runner's rows (a
+ * ScoreRow with its cell), so either side can write and read the other's files.
+ */
+export interface ResultRow extends ScoreRow {
   readonly cell: string;
-  readonly learner: string;
   readonly objective: string;
   readonly rule: string;
-  readonly seed: number;
-  /** A latent name, or '-' for rows that are not about a target (cka). */
-  readonly target: string;
-  readonly channel: string;
-  readonly kind: string;
-  readonly severity: number;
-  readonly metric: ResultMetric;
-  readonly value: number;
   /** Value of each vary key for this cell, as text. */
   readonly vary: Readonly<Record<string, string>>;
 }
@@ -71,7 +66,7 @@ export function parseResultsCsv(text: string, fileName = 'results.csv'): Results
       seed: integer(at('seed'), fileName, line, 'seed'),
       target: at('target'), channel: at('channel'), kind: at('kind'),
       severity: number(at('severity'), fileName, line, 'severity'),
-      metric: metric as ResultMetric,
+      metric,
       value: number(at('value'), fileName, line, 'value'),
       vary,
     };

@@ -1,7 +1,10 @@
+import { createRng } from '../random.js';
+import { bootstrapCi, interquartileMean } from '../stats/robust.js';
 import { summarise, type Summary } from '../stats/summarise.js';
 import { isReliable, type Comparison } from './comparisons.js';
 import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
+import type { CellRecord } from './load.js';
 import type { ResultRow } from './results-table.js';
 import { robustnessFigures, type CurvePoint } from './robustness.js';
 
@@ -55,8 +58,9 @@ export function verdict(target: string, noise: Noise, baseline: string, comparis
     const mine = noisy.filter((c) => c.learner === learner && isReliable(c));
     const higher = mine.filter((c) => c.meanDiff > 0).map((c) => String(c.severity));
     const lower = mine.filter((c) => c.meanDiff < 0).map((c) => String(c.severity));
-    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at severity ${englishList(higher)}`);
-    if (lower.length > 0) parts.push(`${learner} scored reliably lower at severity ${englishList(lower)}`);
+    const at = (levels: readonly string[]): string => `${levels.length === 1 ? 'severity' : 'severities'} ${englishList(levels)}`;
+    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at ${at(higher)}`);
+    if (lower.length > 0) parts.push(`${learner} scored reliably lower than ${baseline} at ${at(lower)}`);
     if (higher.length === 0 && lower.length === 0) quiet.push(learner);
   }
   if (quiet.length > 0) parts.push(`${englishList(quiet)} ${quiet.length === 1 ? 'was' : 'were'} not distinguishable from ${baseline}`);
@@ -64,4 +68,30 @@ export function verdict(target: string, noise: Noise, baseline: string, comparis
   let line = `In these runs (${seeds} ${noun}), for ${target} under ${noise.channel} ${noise.kind} noise, counting a difference as reliable when its Holm-adjusted p < 0.05 and its 95% CI excludes 0: ${parts.join('; ')}.`;
   if (seeds < FEW_SEEDS) line += ` With ${seeds} ${noun} the paired tests have little power, so "not distinguishable" is not evidence of equal robustness.`;
   return line;
+}
+
+/**
+ * Interquartile mean with a 95% percentile-bootstrap CI per learner and severity
+ * (Agarwal et al. 2021, NeurIPS), for runs with many seeds. The bootstrap stream is
+ * seeded from a fixed name, so the same results give the same table.
+ */
+export function iqmTable(rows: readonly ResultRow[], streamName: string): string[] {
+  const levels = severities(rows);
+  return table(['learner', ...levels.map((s) => `severity ${s}`)], unique(rows.map((r) => r.learner)).map((learner) => [
+    learner, ...levels.map((s) => {
+      const values = [...bySeed(rows, (r) => r.learner === learner && r.severity === s).values()];
+      const ci = bootstrapCi(values, interquartileMean, createRng(0, 'bootstrap', streamName, learner, s), 2000);
+      return `${num(ci.estimate)} [${num(ci.low)}, ${num(ci.high)}]`;
+    }),
+  ]));
+}
+
+/** Final-epoch angle between each rule's update and the true gradient, per learner and layer, over seeds. */
+export function alignmentTable(cells: readonly CellRecord[]): string[] {
+  const measured = cells.filter((c) => c.status === 'done' && Object.keys(c.finalAlignmentDeg).length > 0);
+  const layers = unique(measured.flatMap((c) => Object.keys(c.finalAlignmentDeg)));
+  if (layers.length === 0) return [];
+  return table(['learner', ...layers.map((l) => `layer ${l} (degrees)`)], unique(measured.map((c) => c.learner)).map((learner) => [
+    learner, ...layers.map((layer) => meanCi(summarise(measured.filter((c) => c.learner === learner).map((c) => c.finalAlignmentDeg[layer] ?? NaN)))),
+  ]));
 }

@@ -1,10 +1,10 @@
-import type { Comparison } from './comparisons.js';
-import { noises, scoreMetric, unique, type Combination } from './groups.js';
-import type { LearnerCka } from './learner-cka.js';
+import { holmFamilySize, type Comparison } from './comparisons.js';
+import { noises, scoreMetric, unique, type Combination, type Noise } from './groups.js';
+import { cellsOf, type LearnerCka } from './learner-cka.js';
 import type { StoredRun } from './load.js';
 import { meanCi, table } from './markdown.js';
 import { robustnessPlotPath, trainingPlotPath } from './plots.js';
-import { comparisonTable, robustnessTable, scoreTable, verdict } from './sections.js';
+import { FEW_SEEDS, alignmentTable, comparisonTable, iqmTable, robustnessTable, scoreTable, verdict } from './sections.js';
 
 /** Everything summary.md is written from. */
 export interface SummaryInput {
@@ -49,36 +49,53 @@ function preamble({ run, comparisons }: SummaryInput): string[] {
     'Scores are R² for continuous targets and accuracy for categorical ones. Each cell shows the mean over seeds ± the half-width of its 95% confidence interval (Student t), with n seeds.',
   ];
   if (run.baseline != null) {
-    lines.push(`Paired differences are learner − baseline on the same seeds (same data and noise draws), tested with the paired t-test; p-values are Holm-adjusted over all ${comparisons.length} comparisons in this report (Holm 1979).`);
+    lines.push(`Paired differences are learner − baseline on the same seeds (same data and noise draws), tested with the paired t-test; p-values are Holm-adjusted (Holm 1979) over the ${holmFamilySize(comparisons)} comparisons in this report that have a defined p-value (a clean comparison repeated under several noises counts once). p and d_z are n/a with fewer than 2 seeds or when every seed gives the same difference.`);
   }
   return lines;
 }
 
 function combinationBlock(input: SummaryInput, combo: Combination, index: number | null): string[] {
-  const { run } = input;
   const lines: string[] = [];
   for (const target of unique(combo.rows.map((r) => r.target)).filter((t) => t !== '-')) {
     const metric = scoreMetric(combo.rows, target);
     if (metric == null) continue;
     const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
-    for (const noise of noises(scored)) {
-      const rows = scored.filter((r) => r.channel === noise.channel && r.kind === noise.kind);
-      const chance = combo.rows.filter((r) => r.target === target && r.metric === 'chance' && r.channel === noise.channel && r.kind === noise.kind);
-      lines.push(`### ${target}: ${noise.channel} ${noise.kind} noise (${METRIC_NAMES[metric]})`, '', ...scoreTable(rows, chance), '');
-      const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
-      if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
-      lines.push(`Robustness of the mean curves (CE and relative CE against the baseline; Hendrycks & Dietterich 2019):`, '',
-        ...robustnessTable(rows, run.baseline), '');
-      if (run.baseline == null) continue;
-      const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target
-        && c.channel === noise.channel && c.kind === noise.kind);
-      lines.push(`Paired differences against \`${run.baseline}\` (learner − baseline):`, '', ...comparisonTable(mine), '',
-        verdict(target, noise, run.baseline, mine), '');
-    }
+    for (const noise of noises(scored)) lines.push(...noiseSection(input, combo, index, target, metric, noise));
   }
   lines.push(...ckaBlocks(input, combo));
   const training = trainingPlotPath(index);
   if (input.plots.has(training)) lines.push('### Training', '', `![validation loss per epoch](${training})`, '');
+  const alignment = alignmentTable(cellsOf(input.run, combo));
+  if (alignment.length > 0) {
+    lines.push('### Alignment of the learning rule with the gradient', '',
+      'Angle between each layer\'s update under the learning rule and the true gradient at the last epoch (0° = backprop\'s direction, 90° = unrelated).', '',
+      ...alignment, '');
+  }
+  return lines;
+}
+
+/** Scores, robustness figures and paired comparisons of one target under one noise. */
+function noiseSection(input: SummaryInput, combo: Combination, index: number | null, target: string, metric: 'r2' | 'accuracy', noise: Noise): string[] {
+  const { baseline } = input.run;
+  const inNoise = combo.rows.filter((r) => r.target === target && r.channel === noise.channel && r.kind === noise.kind);
+  const rows = inNoise.filter((r) => r.metric === metric);
+  const lines = [`### ${target}: ${noise.channel} ${noise.kind} noise (${METRIC_NAMES[metric]})`, '',
+    ...scoreTable(rows, inNoise.filter((r) => r.metric === 'chance')), ''];
+  if (unique(rows.map((r) => r.seed)).length >= FEW_SEEDS) {
+    lines.push('Interquartile mean over seeds with its 95% percentile-bootstrap CI (Agarwal et al. 2021):', '',
+      ...iqmTable(rows, `${combo.index}/${target}/${noise.channel}/${noise.kind}`), '');
+  }
+  const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
+  if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
+  lines.push('Robustness of the mean curves (Hendrycks & Dietterich 2019): normalised area is the average score over the severity range (trapezoid rule); '
+    + 'drop is the clean score minus the score at the highest severity; CE is the summed error 1 − score over noisy severities relative to the baseline\'s; '
+    + 'relative CE counts only the error added to each learner\'s own clean error.', '',
+    ...robustnessTable(rows, baseline), '');
+  if (baseline == null) return lines;
+  const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target
+    && c.channel === noise.channel && c.kind === noise.kind);
+  lines.push(`Paired differences against \`${baseline}\` (learner − baseline):`, '', ...comparisonTable(mine), '',
+    verdict(target, noise, baseline, mine), '');
   return lines;
 }
 

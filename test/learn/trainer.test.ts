@@ -1,7 +1,9 @@
 import * as tf from '@tensorflow/tfjs-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { initBackend, LearnerDivergedError, trainLearner } from '../../src/learn/index.js';
+import { TrainingStatistics } from '../../src/learn/examples.js';
 import { heNormal } from '../../src/learn/init.js';
+import { OBJECTIVE_REGISTRY } from '../../src/learn/objectives.js';
 import { OBJECTIVES, RULES, type EpochLog } from '../../src/learn/spec.js';
 import { createRng } from '../../src/random.js';
 import { episodeSplit, learnerSpec, syntheticDataset } from './synthetic.js';
@@ -146,5 +148,32 @@ describe('failures and resources', () => {
   it('rejects a spec that lacks what its objective needs', async () => {
     await expect(trainLearner(learnerSpec({ name: 'x', target: [] }), data, split, { seed: 1 }))
       .rejects.toThrow("learner 'x': objective 'predict' needs at least one target channel");
+  });
+});
+
+describe('early stopping', () => {
+  it('stops after `patience` epochs without a lower validation loss', async () => {
+    // With a learning rate of 1e-20 no float32 weight can change, so the validation loss
+    // repeats exactly: epoch 1 is best and epochs 2 and 3 exhaust a patience of 2.
+    const spec = learnerSpec({ train: { optimizer: 'sgd', learningRate: 1e-20, epochs: 10, patience: 2 } });
+    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
+    encoder.dispose();
+    expect(log.map((l) => l.epoch)).toEqual([1, 2, 3]);
+    expect(log[2].validationLoss).toBe(log[0].validationLoss);
+  });
+});
+
+describe('forecast examples', () => {
+  it('pair step t with the action recorded at t + 1 (the action taken between t and t + 1)', () => {
+    const spec = learnerSpec({ objective: 'forecast' });
+    const signal = OBJECTIVE_REGISTRY.forecast(spec, data).signal!;
+    const steps = split.train.subarray(0, 60);
+    const examples = signal.examples(new TrainingStatistics(data, split.train), steps);
+    const rows = steps.filter((t) => data.hasNext[t] === 1);
+    expect(examples.n).toBe(rows.length);
+    expect(examples.n).toBeLessThan(steps.length); // an episode boundary falls inside
+    rows.forEach((t, i) => {
+      expect(Array.from(examples.extra!.data.subarray(i * 5, i * 5 + 5))).toEqual(Array.from(data.channels.motor.subarray((t + 1) * 5, (t + 2) * 5)));
+    });
   });
 });

@@ -125,18 +125,18 @@ function testFeaturesOf(source: Dataset, rows: Int32Array, featureSize: number, 
   return linearEncoder(source, ['sight'], featureSize, encoderSeed).encoder.features({ sight }, rows.length);
 }
 
-/** X */
-function withScrambledRows(source: Dataset, test: Int32Array): Dataset {
-  const donor = (i: number) => test[(i * 7 + 3) % test.length];
+/** The dataset with each given row's latents and channel values taken from another given row (x set far off, inputs negated). */
+function withScrambledRows(source: Dataset, rows: Int32Array): Dataset {
+  const donor = (i: number) => rows[(i * 7 + 3) % rows.length];
   const latents = Object.fromEntries(Object.entries(source.latents).map(([name, values]) => {
     const out = Float32Array.from(values);
-    test.forEach((row, i) => { out[row] = name === 'x' ? 100 + i : values[donor(i)]; });
+    rows.forEach((row, i) => { out[row] = name === 'x' ? 100 + i : values[donor(i)]; });
     return [name, out];
   })) as Record<LatentName, Float32Array>;
   const channels = Object.fromEntries(Object.entries(source.channels).map(([name, values]) => {
     const size = source.channelSize[name as keyof typeof source.channelSize];
     const out = Float32Array.from(values);
-    test.forEach((row, i) => out.set(values.subarray(donor(i) * size, donor(i) * size + size).map((v) => -v), row * size));
+    rows.forEach((row, i) => out.set(values.subarray(donor(i) * size, donor(i) * size + size).map((v) => -v), row * size));
     return [name, out];
   })) as Dataset['channels'];
   return { ...source, latents, channels };

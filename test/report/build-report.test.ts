@@ -1,4 +1,4 @@
-import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
+import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -42,9 +42,16 @@ describe('summary.md (from the fixture test data)', () => {
     const text = await readFile(files.summaryPath, 'utf8');
     expect(text).toContain('In these runs (3 seeds), for x under sight gaussian noise, counting a difference as reliable when its '
       + 'Holm-adjusted p < 0.05 and its 95% CI excludes 0: sound-from-sight scored reliably higher than sight-autoencoder at severity 1; '
-      + 'untrained scored reliably lower at severity 1. With 3 seeds the paired tests have little power');
+      + 'untrained scored reliably lower than sight-autoencoder at severity 1. With 3 seeds the paired tests have little power');
     expect(text).toContain('for wall_ahead under sight gaussian noise, counting a difference as reliable when its Holm-adjusted p < 0.05 '
       + 'and its 95% CI excludes 0: sound-from-sight and untrained were not distinguishable from sight-autoencoder.');
+  });
+
+  it('tabulates the final alignment angle per layer over seeds', async () => {
+    // layer 1 ends at 61, 62, 63 degrees → mean 62, sd 1, half-width 4.3027 / √3 = 2.484 (t from standard tables).
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| learner | layer 1 (degrees) | layer 2 (degrees) |');
+    expect(text).toContain('| sound-from-sight | 62.000 ± 2.484 (n=3) | 0.000 ± 0.000 (n=3) |');
   });
 
   it('lists the failed cell with its reason', async () => {
@@ -119,6 +126,23 @@ describe('buildReport errors', () => {
       expect(await readdir(empty)).toEqual([]);
     } finally {
       await rm(empty, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('buildReport with damaged cell files', () => {
+  it('warns about a bad train.csv and a bad cell.json, naming the file, and still reports', async () => {
+    const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
+    try {
+      await writeFixture(damaged);
+      await writeFile(join(damaged, 'cells', 'untra-1', 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
+      await writeFile(join(damaged, 'cells', 'untra-2', 'cell.json'), '{ not json');
+      const report = await buildReport(damaged);
+      expect(report.warnings).toContain(`${join(damaged, 'cells', 'untra-1', 'train.csv')}:2: epoch: expected a positive integer, got 'first' (training curve left out)`);
+      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', 'untra-2', 'cell.json')}: not valid JSON`))).toBe(true);
+      expect(await readFile(report.summaryPath, 'utf8')).toContain('## Warnings');
+    } finally {
+      await rm(damaged, { recursive: true, force: true });
     }
   });
 });

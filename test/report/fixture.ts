@@ -16,7 +16,7 @@ export const SCORES: Readonly<Record<string, Readonly<Record<number, readonly [n
 };
 
 const META: Readonly<Record<string, readonly [string, string]>> = {
-  'sound-from-sight': ['predict', 'backprop'],
+  'sound-from-sight': ['predict', 'feedback-alignment'],
   'sight-autoencoder': ['reconstruct', 'backprop'],
   untrained: ['untrained', 'backprop'],
 };
@@ -38,7 +38,10 @@ export async function writeFixture(dir: string, options: { features?: boolean } 
       const cellDir = join(dir, 'cells', cell);
       await mkdir(cellDir, { recursive: true });
       await writeFile(join(cellDir, 'cell.json'), JSON.stringify({ learner, seed, status: 'done', reason: '' }));
-      await writeFile(join(cellDir, 'train.csv'), 'epoch,train_loss,validation_loss,seconds\n1,1.0,1.2,0.1\n2,0.8,0.9,0.1\n3,0.7,0.8,0.1\n');
+      await writeFile(join(cellDir, 'train.csv'), META[learner][1] === 'feedback-alignment'
+        // Alignment angles (columns named as the runner names them): layer 1 ends at 60 + seed degrees, layer 2 at 0.
+        ? `epoch,train_loss,validation_loss,seconds,alignment_deg_1,alignment_deg_2\n1,1.0,1.2,0.1,89,0\n2,0.8,0.9,0.1,${60 + seed},0\n`
+        : 'epoch,train_loss,validation_loss,seconds\n1,1.0,1.2,0.1\n2,0.8,0.9,0.1\n3,0.7,0.8,0.1\n');
       if (options.features === true) {
         // [4 rows, 2 features]: every learner sees the same rows; untrained is a scaled copy (CKA 1).
         const f = learner === 'sight-autoencoder' ? [1, 0, 0, 1, 1, 1, 2, 0] : [1, 2, 3, 4, 5, 6, 7, 9];

@@ -1,4 +1,4 @@
-import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdir, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -42,6 +42,26 @@ describe('report with vary keys', () => {
       expect(records.slice(1).map((r) => [r.fields.at(-1), Number(r.fields[7]).toFixed(3)])).toEqual([
         ['[64]', '0.075'], ['[128, 64]', '0.175'],
       ]);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('report from per-cell results', () => {
+  it('reads the scores.csv file of every cell when there is no top-level results.csv', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-cells-'));
+    try {
+      const all = rows();
+      for (const cell of new Set(all.map((r) => r.cell))) {
+        await mkdir(join(dir, 'cells', cell), { recursive: true });
+        await writeFile(join(dir, 'cells', cell, 'scores.csv'),
+          formatResultsCsv(all.filter((r) => r.cell === cell), ['learners.*.encoder.hidden']));
+      }
+      await writeFile(join(dir, 'config.resolved.yaml'), 'name: cells-test\nprobe: { baseline: a }\n');
+      const files = await buildReport(dir);
+      const records = parseCsv(await readFile(files.comparisonsPath, 'utf8'), 'comparisons.csv');
+      expect(records.length).toBe(3);
     } finally {
       await rm(dir, { recursive: true, force: true });
     }

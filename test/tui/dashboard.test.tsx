@@ -20,6 +20,11 @@ const meanWithFixedHalfWidth: Summarise = (v) => ({ mean: v.reduce((a, b) => a +
 
 const tick = () => new Promise((resolve) => setTimeout(resolve, 20));
 
+/** Waits until the dashboard has subscribed (its key handler is attached in the same commit). */
+async function mounted(events: { listeners: Set<unknown> }): Promise<void> {
+  for (let i = 0; i < 500 && events.listeners.size === 0; i++) await tick();
+}
+
 async function waitFor(read: () => string, pattern: string): Promise<string> {
   for (let i = 0; i < 200; i++) {
     if (read().includes(pattern)) return read();
@@ -32,7 +37,7 @@ describe('Dashboard', () => {
   it('draws progress, workers and the score table after a sequence of events', async () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={6} name="demo" summarise={meanWithFixedHalfWidth} now={() => 5000} />);
-    await tick();
+    await mounted(events);
     for (const e of SWEEP) events.emit(e);
     const frame = await waitFor(() => app.lastFrame() ?? '', 'epoch 3');
     expect(frame.split('\n')).toEqual([
@@ -58,7 +63,7 @@ describe('Dashboard', () => {
   it('shows mean ± half-width once two seeds are in', async () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={2} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
-    await tick();
+    await mounted(events);
     events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score('a', 1, 0, 0.5)] });
     events.emit({ type: 'cell-done', cell: cell(1, 'a', 2), worker: 1, seconds: 1, scores: [score('a', 2, 0, 0.7)] });
     const frame = await waitFor(() => app.lastFrame() ?? '', '2 seeds');
@@ -69,7 +74,7 @@ describe('Dashboard', () => {
   it('cycles the target with t', async () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
-    await tick();
+    await mounted(events);
     events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score('a', 1, 0, 0.5), score('a', 1, 0, 0.25, 'heading')] });
     await waitFor(() => app.lastFrame() ?? '', 'wall_ahead (accuracy) ·');
     app.stdin.write('t');
@@ -82,11 +87,23 @@ describe('Dashboard', () => {
     const events = source();
     let stops = 0;
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => { stops += 1; }} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
-    await tick();
+    await mounted(events);
+    app.stdin.write('q');
     app.stdin.write('q');
     await waitFor(() => app.lastFrame() ?? '', 'stopping: letting running cells finish');
-    app.stdin.write('q');
+    app.stdin.write('\u0003'); // Ctrl-C
     await tick();
+    expect(stops).toBe(1);
+    app.unmount();
+  });
+
+  it('calls onStop on Ctrl-C', async () => {
+    const events = source();
+    let stops = 0;
+    const app = render(<Dashboard subscribe={events.subscribe} onStop={() => { stops += 1; }} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
+    await mounted(events);
+    app.stdin.write('\u0003');
+    await waitFor(() => app.lastFrame() ?? '', 'stopping');
     expect(stops).toBe(1);
     app.unmount();
   });
@@ -94,7 +111,7 @@ describe('Dashboard', () => {
   it('removes its listener when unmounted', async () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
-    await tick();
+    await mounted(events);
     expect(events.listeners.size).toBe(1);
     app.unmount();
     expect(events.listeners.size).toBe(0);

@@ -21,10 +21,10 @@ describe('SoundPanel', () => {
       <SoundPanel title="sound" bandLabels={['100', '250', '1.0k', '8k']} leftDb={[20, 30, 40, 60]} rightDb={[60, 45, 20, 10]} floorDb={20} ceilingDb={60} height={2} />,
     )).toEqual([
       'sound',
-      'L          ██',
-      '     ▄▄ ██ ██',
-      'R ██ ▂▂',
-      '  ██ ██',
+      '           ██',
+      'L    ▄▄ ██ ██',
+      '  ██ ▂▂',
+      'R ██ ██',
       '  100   1.0k',
       '     250   8k',
     ]);

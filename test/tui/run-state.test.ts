@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { initialRunState, reduceRun, type RunState } from '../../src/tui/dashboard/run-state.js';
+import { summariseScores } from '../../src/tui/dashboard/render-dashboard.js';
 import { etaSeconds, progressText, queuedCells, tableText, workerTexts } from '../../src/tui/dashboard/run-view.js';
 import { SWEEP, cell } from './run-events.js';
 
@@ -63,5 +64,18 @@ describe('run state', () => {
       { label: 'sound-from-sight', cells: ['0.90', '0.70'] },
       { label: 'autoencoder', cells: ['0.80', '0.40'] },
     ]);
+  });
+});
+
+describe('score summary', () => {
+  it('gives mean ± t(0.975, n − 1)·sd/√n, e.g. 12.706 for two seeds (Student t table, df = 1)', () => {
+    // 0.5 and 0.7: mean 0.6, sd 0.1414, half-width 12.706 · 0.1414 / √2 = 1.2706.
+    const s = summariseScores([0.5, 0.7]);
+    expect(s.mean).toBeCloseTo(0.6, 12);
+    expect(s.halfWidth).toBeCloseTo(1.2706, 3);
+  });
+
+  it('gives no half-width for a single seed', () => {
+    expect(summariseScores([0.5])).toEqual({ mean: 0.5, halfWidth: null });
   });
 });

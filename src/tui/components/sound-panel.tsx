@@ -22,7 +22,7 @@ function earRows(name: string, levelsDb: readonly number[], p: SoundPanelProps):
   const fractions = levelsDb.map((db) => (db - p.floorDb) / (p.ceilingDb - p.floorDb));
   const rows: string[] = [];
   for (let row = p.height - 1; row >= 0; row--) {
-    const prefix = row === p.height - 1 ? `${name} ` : '  ';
+    const prefix = row === 0 ? `${name} ` : '  ';
     rows.push(prefix + fractions.map((f) => verticalBarCell(f, row, p.height).repeat(SLOT - 1)).join(' '));
   }
   return rows;

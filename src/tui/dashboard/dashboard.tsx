@@ -1,5 +1,5 @@
 import { Box, Text, useApp, useInput } from 'ink';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { HelpLine } from '../components/help-line.js';
 import { ProgressHeader } from '../components/progress-header.js';
 import { ResultsTable } from '../components/results-table.js';
@@ -27,12 +27,14 @@ export function Dashboard(props: DashboardProps) {
   const [viewIndex, setViewIndex] = useState(0);
   const [noiseIndex, setNoiseIndex] = useState(0);
   const [stopping, setStopping] = useState(false);
+  const stopSent = useRef(false); // keys can arrive faster than re-renders
   const { exit } = useApp();
 
   useInput((input, key) => {
     if (input === 't') setViewIndex((i) => i + 1);
     else if (input === 'n') setNoiseIndex((i) => i + 1);
-    else if ((input === 'q' || (key.ctrl && input === 'c')) && !stopping) {
+    else if ((input === 'q' || (key.ctrl && input === 'c')) && !stopSent.current) {
+      stopSent.current = true;
       setStopping(true);
       props.onStop();
     }

@@ -1,4 +1,5 @@
 import { render } from 'ink';
+import { summarise } from '../../stats/summarise.js';
 import { Dashboard } from './dashboard.js';
 import type { Summarise } from './run-view.js';
 import type { Subscribe } from './use-run-state.js';
@@ -20,12 +21,18 @@ export interface DashboardHandle {
   unmount(): void;
 }
 
+/** Mean and 95% Student-t half-width of one learner's scores across seeds (null below 2 seeds). */
+export const summariseScores: Summarise = (values) => {
+  const s = summarise(values);
+  return { mean: s.mean, halfWidth: s.n >= 2 ? (s.ciHigh - s.ciLow) / 2 : null };
+};
+
 /**
  * Mounts the run dashboard on the terminal. It closes by itself once it receives
  * `sweep-done`; Ctrl-C does not kill the process but calls `onStop`.
  */
-export function renderDashboard(options: DashboardOptions, summarise: Summarise): DashboardHandle {
-  const instance = render(<Dashboard {...options} summarise={summarise} now={Date.now} />, { exitOnCtrlC: false });
+export function renderDashboard(options: DashboardOptions): DashboardHandle {
+  const instance = render(<Dashboard {...options} summarise={summariseScores} now={Date.now} />, { exitOnCtrlC: false });
   return {
     waitUntilExit: async () => { await instance.waitUntilExit(); },
     unmount: () => instance.unmount(),

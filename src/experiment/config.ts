@@ -1,0 +1,115 @@
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { LineCounter, parseDocument } from 'yaml';
+import { checkConfig } from './config-checks.js';
+import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { DEFAULTS } from './defaults.js';
+import { resolveSettings, type Sweep } from './resolved-config.js';
+import { configSchema, type FilledConfig } from './schema.js';
+import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
+import { problemsFromIssues } from './zod-problems.js';
+
+/** Where the results go when neither the config nor the command line says. */
+export interface LoadOptions {
+  /** Overrides the config's `out` (resolved against the working directory). */
+  readonly out?: string;
+}
+
+/**
+ * Reads, validates and expands a config file; throws ConfigError listing every problem.
+ * Reads files only: nothing is written.
+ */
+export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
+  const source = parseSource(file);
+  const configDir = dirname(resolve(file));
+  const fail = (problems: readonly ConfigProblem[]) => {
+    if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
+  };
+  const parsed = configSchema.safeParse(source.doc.toJS(), { reportInput: true });
+  if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
+  const filled = parsed.data as FilledConfig;
+  fail(checkConfig(filled, configDir));
+  const varyKeys = Object.keys(filled.vary);
+  const matches = varyKeys.map((key) => matchVaryPath(filled, key));
+  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
+
+  const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
+    const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
+    const problems = validate(config, configDir);
+    if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
+    return {
+      vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
+      settings: resolveSettings(config, resolve(configDir, config.world)),
+    };
+  });
+  return {
+    name: filled.name,
+    configPath: resolve(file),
+    out: outFolder(filled, configDir, options),
+    seeds: filled.seeds,
+    backend: filled.backend,
+    varyKeys,
+    combinations,
+    filled,
+  };
+}
+
+function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {
+  if (options.out != null) return resolve(options.out);
+  if (filled.out != null) return resolve(configDir, filled.out);
+  return resolve(DEFAULTS.outRoot, filled.name);
+}
+
+function parseSource(file: string): ConfigSource {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (error) {
+    throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
+  }
+  const lineCounter = new LineCounter();
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false });
+  if (doc.errors.length > 0) {
+    throw new ConfigError(doc.errors.map((error) => {
+      const { line, col } = lineCounter.linePos(error.pos[0]);
+      return `${file}:${line}:${col}: (YAML): ${error.message.split('\n')[0]}`;
+    }));
+  }
+  return { file, doc, lineCounter };
+}
+
+function validate(config: FilledConfig, configDir: string): ConfigProblem[] {
+  const parsed = configSchema.safeParse(config, { reportInput: true });
+  if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
+  return checkConfig(parsed.data, configDir);
+}
+
+function checkVaryKey(filled: FilledConfig, configDir: string, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
+  const at = ['vary', key];
+  if (paths.length === 0) {
+    return [{ path: at, atKey: true, message: `matches no setting${suggestion(key, settablePaths(filled))}` }];
+  }
+  const values = filled.vary[key];
+  const texts = values.map(varyText);
+  return values.flatMap((value, i) => {
+    if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
+    const problems = validate(withValues(filled, [{ paths, value }]), configDir);
+    return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
+  });
+}
+
+/** Dotted paths of every setting a vary key could name, for suggestions. */
+function settablePaths(filled: FilledConfig): string[] {
+  const flatten = (node: unknown, prefix: string): string[] => {
+    if (node == null || typeof node !== 'object' || Array.isArray(node)) return [prefix];
+    return Object.entries(node).flatMap(([key, value]) => flatten(value, `${prefix}.${key}`));
+  };
+  return [
+    'world',
+    ...flatten(filled.collect, 'collect'),
+    ...flatten(filled.senses, 'senses'),
+    ...filled.learners.flatMap((learner) => flatten(learner, 'learners.*')),
+    ...flatten(filled.probe, 'probe'),
+    ...filled.noise.flatMap((entry) => flatten(entry, 'noise.*')),
+  ];
+}

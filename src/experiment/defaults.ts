@@ -1,0 +1,86 @@
+import type { LatentName } from '../collect/dataset.js';
+import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
+import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
+
+export const POLICIES = ['wander', 'uniform', 'seek'] as const;
+export type PolicyName = (typeof POLICIES)[number];
+
+/** How the agent gathers experience for one seed. */
+export interface CollectSettings {
+  readonly policy: PolicyName;
+  readonly steps: number;
+  readonly episodeSteps: number;
+  readonly split: { readonly train: number; readonly validation: number; readonly test: number };
+}
+
+/** What the linear read-outs predict and whom the learners are compared against. */
+export interface ProbeSettings {
+  readonly targets: readonly LatentName[];
+  /** Name of the learner that corruption errors are relative to and paired tests compare against. */
+  readonly baseline: string;
+}
+
+/**
+ * Every default a config may leave out, in one place (config keys are the snake_case of these).
+ * A config file holds only the settings it changes; `config.resolved.yaml` shows all of them.
+ */
+export const DEFAULTS = {
+  /** Seeds of the sweep; each seed regenerates world experience, weights and noise draws. */
+  seeds: [1, 2, 3] as readonly number[],
+  /** TensorFlow.js backend of each worker: wasm (SIMD, ~5× faster) or cpu (plain JavaScript). */
+  backend: 'wasm' as BackendName,
+  collect: {
+    /** Behaviour policy: wander (persistent random walk), uniform (i.i.d. actions), seek (heads for emitters). */
+    policy: 'wander',
+    /** Agent steps collected per seed; 20 000 steps take about a second to collect. */
+    steps: 20_000,
+    /** Steps before the agent is reset to a random free cell; episodes are the unit of the split. */
+    episodeSteps: 200,
+    /** Fractions of episodes for training, early stopping / probe penalty choice, and scoring. */
+    split: { train: 0.7, validation: 0.15, test: 0.15 },
+  } as CollectSettings,
+  /** Sight field in cells (width × depth) and sound bands in Hz; see src/senses/channel.ts. */
+  senses: DEFAULT_SENSE_SETTINGS as SenseSettings,
+  learner: {
+    /** predict and contrast only: channels to predict or align with (no default; required there). */
+    target: [] as readonly string[],
+    /** predict only: 0 predicts the target at the same step, 1 at the next step. */
+    offset: 0 as 0 | 1,
+    /** supervised only: latents predicted directly; empty means the probe targets. */
+    supervisedTargets: [] as readonly LatentName[],
+    encoder: {
+      /** Units per hidden layer; the last layer is the representation the probes read. */
+      hidden: [128, 64] as readonly number[],
+      activation: 'relu' as ActivationName,
+    },
+    /** Learning rule: exact gradients, or a fixed random feedback path (Lillicrap 2016; Nøkland 2016). */
+    rule: 'backprop' as RuleName,
+    train: {
+      optimizer: 'adam' as OptimizerName,
+      /** Step size; 1e-3 is the usual Adam setting (Kingma & Ba 2015). */
+      learningRate: 0.001,
+      /** Samples per update. */
+      batch: 256,
+      /** Passes over the training split at most. */
+      epochs: 10,
+      /** Epochs without a lower validation loss before training stops early. */
+      patience: 3,
+      /** contrast only: InfoNCE temperature; 0.1 is common practice (Chen et al. 2020 use 0.1–0.5). */
+      temperature: 0.1,
+      /** Non-backprop rules: steps between measurements of the update/gradient angle. */
+      alignEvery: 50,
+    },
+    /** Write the encoder's test features and the latents as .npy files beside the cell's scores. */
+    saveFeatures: false,
+  },
+  probe: {
+    /** Latents read out linearly from the frozen features. */
+    targets: ['wall_ahead', 'material_ahead', 'nearest_emitter', 'nearest_distance_m', 'heading'] as readonly LatentName[],
+  },
+  /** Corruptions scored at test time; none by default (clean scores only). */
+  noise: [] as readonly never[],
+  /** Severities scored when a noise entry names none: clean plus the five documented levels. */
+  severities: [0, 1, 2, 3, 4, 5] as readonly number[],
+  /** Output folder when a config names none, relative to the working directory. */
+  outRoot: 'runs',
+} as const;

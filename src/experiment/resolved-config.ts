@@ -1,0 +1,82 @@
+import type { LatentName } from '../collect/dataset.js';
+import type { BackendName, LearnerSpec } from '../learn/spec.js';
+import type { NoiseSpec } from '../noise/spec.js';
+import type { ChannelName, SenseSettings } from '../senses/channel.js';
+import type { CollectSettings, ProbeSettings } from './defaults.js';
+import type { FilledConfig } from './schema.js';
+
+/** One combination of a sweep's settings, in the camelCase types the modules take. */
+export interface ResolvedSettings {
+  /** Absolute path of the world file. */
+  readonly worldPath: string;
+  readonly collect: CollectSettings;
+  readonly senses: SenseSettings;
+  readonly learners: readonly LearnerSpec[];
+  readonly probe: ProbeSettings;
+  readonly noise: readonly NoiseSpec[];
+}
+
+/** Settings in module spelling for a filled, checked config whose world path is already absolute. */
+export function resolveSettings(config: FilledConfig, worldPath: string): ResolvedSettings {
+  const probeTargets = config.probe.targets as readonly LatentName[];
+  return {
+    worldPath,
+    collect: {
+      policy: config.collect.policy,
+      steps: config.collect.steps,
+      episodeSteps: config.collect.episode_steps,
+      split: { ...config.collect.split },
+    },
+    senses: {
+      sight: { ...config.senses.sight },
+      sound: { bands: config.senses.sound.bands, minHz: config.senses.sound.min_hz, maxHz: config.senses.sound.max_hz },
+    },
+    learners: config.learners.map((learner) => learnerSpec(learner, probeTargets)),
+    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
+    noise: config.noise.map((entry) => ({
+      channel: entry.channel,
+      kind: entry.kind,
+      severities: [...entry.severities],
+      ...(entry.parameters == null ? {} : { parameters: [...entry.parameters] }),
+    })),
+  };
+}
+
+function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: readonly LatentName[]): LearnerSpec {
+  return {
+    name: learner.name,
+    objective: learner.objective,
+    input: learner.input as ChannelName[],
+    target: (learner.target ?? []) as ChannelName[],
+    offset: learner.offset,
+    supervisedTargets: learner.objective === 'supervised' ? learner.supervised_targets ?? probeTargets : [],
+    encoder: { hidden: [...learner.encoder.hidden], activation: learner.encoder.activation },
+    rule: learner.rule,
+    train: {
+      optimizer: learner.train.optimizer,
+      learningRate: learner.train.learning_rate,
+      batch: learner.train.batch,
+      epochs: learner.train.epochs,
+      patience: learner.train.patience,
+      temperature: learner.train.temperature,
+      alignEvery: learner.train.align_every,
+    },
+    saveFeatures: learner.save_features,
+  };
+}
+
+/** A sweep as loaded from one config file. */
+export interface Sweep {
+  readonly name: string;
+  /** Absolute path of the config file. */
+  readonly configPath: string;
+  /** Absolute output folder. */
+  readonly out: string;
+  readonly seeds: readonly number[];
+  readonly backend: BackendName;
+  readonly varyKeys: readonly string[];
+  /** One entry per combination of vary values (one entry when nothing varies). */
+  readonly combinations: readonly { readonly vary: Readonly<Record<string, string>>; readonly settings: ResolvedSettings }[];
+  /** The config with every default filled in, as written to config.resolved.yaml. */
+  readonly filled: FilledConfig;
+}

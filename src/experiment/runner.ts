@@ -1,0 +1,72 @@
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import type { RunEvent, RunListener } from './events.js';
+import { cellLabel, planCells, type PlannedCell } from './plan.js';
+import { runOnPool } from './pool.js';
+import type { Sweep } from './resolved-config.js';
+import { resolvedConfigYaml } from './resolved-yaml.js';
+import { collectResults } from './results.js';
+import { isFinished, readCellRecord, removePartialCells, storeCell, writeFileAtomic } from './store.js';
+
+/** How to run a sweep. */
+export interface RunOptions {
+  readonly jobs: number;
+  /** URL of the module exporting `cellWork` (PIPELINE_MODULE in production). */
+  readonly workModule: string;
+  readonly listeners: readonly RunListener[];
+  /** Aborting stops the sweep: running cells are abandoned unwritten, finished ones stay. */
+  readonly signal?: AbortSignal;
+  /** Builds the report from the stored results and returns the path of its summary. */
+  readonly report?: (out: string) => Promise<string>;
+}
+
+/** How a sweep ended. */
+export interface SweepOutcome {
+  readonly done: number;
+  readonly failed: number;
+  readonly interrupted: boolean;
+}
+
+/**
+ * Runs every unfinished cell of a sweep and stores each as it finishes, then rebuilds
+ * results.csv in plan order and the report. Finished cells (done or failed) are skipped,
+ * so rerunning after an interruption completes the sweep.
+ */
+export async function runSweep(sweep: Sweep, options: RunOptions): Promise<SweepOutcome> {
+  const started = performance.now();
+  const emit = (event: RunEvent) => options.listeners.forEach((listener) => listener(event));
+  const cells = prepareOutput(sweep);
+  const pending = cells.filter((cell) => !isFinished(sweep.out, cell.id));
+  emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
+  await runOnPool(pending, options, {
+    onStart: (cell, worker) => emit({ type: 'cell-start', cell: cellLabel(cell), worker }),
+    onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
+    onFinish: (cell, worker, result) => {
+      if (options.signal?.aborted === true) return;
+      storeCell(sweep.out, cell, result, sweep.varyKeys);
+      emit(result.status === 'done'
+        ? { type: 'cell-done', cell: cellLabel(cell), worker, seconds: result.totalSeconds, scores: result.outcome.rows }
+        : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason });
+    },
+  });
+  const interrupted = options.signal?.aborted === true;
+  const outcome = countCells(sweep.out, cells, interrupted);
+  writeFileAtomic(join(sweep.out, 'results.csv'), collectResults(sweep.out, cells, sweep.varyKeys));
+  const summary = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : join(sweep.out, 'results.csv');
+  emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
+  return outcome;
+}
+
+/** Creates the output folder, writes config.resolved.yaml, clears leftovers of killed runs; returns the plan. */
+export function prepareOutput(sweep: Sweep): PlannedCell[] {
+  const cells = planCells(sweep);
+  mkdirSync(join(sweep.out, 'cells'), { recursive: true });
+  writeFileAtomic(join(sweep.out, 'config.resolved.yaml'), resolvedConfigYaml(sweep));
+  removePartialCells(sweep.out);
+  return cells;
+}
+
+function countCells(out: string, cells: readonly PlannedCell[], interrupted: boolean): SweepOutcome {
+  const statuses = cells.filter((cell) => isFinished(out, cell.id)).map((cell) => readCellRecord(out, cell.id).status);
+  return { done: statuses.filter((s) => s === 'done').length, failed: statuses.filter((s) => s === 'failed').length, interrupted };
+}

@@ -1,0 +1,96 @@
+import { z } from 'zod';
+import { LATENT_NAMES } from '../collect/dataset.js';
+import { ACTIVATIONS, BACKENDS, OBJECTIVES, OPTIMIZERS, RULES } from '../learn/spec.js';
+import { NOISE_KINDS } from '../noise/spec.js';
+import { CHANNELS } from '../senses/channel.js';
+import { DEFAULTS, POLICIES } from './defaults.js';
+
+// Keys are the snake_case spelling of the camelCase settings in defaults.ts; every
+// default comes from DEFAULTS so the two never drift apart.
+
+const d = DEFAULTS;
+const int = (min: number, max: number) => z.number().int().min(min).max(max);
+const fraction = z.number().gt(0).lt(1);
+const channelList = z.array(z.enum(CHANNELS));
+
+const encoder = z.strictObject({
+  hidden: z.array(int(1, 4096)).min(1).max(8).default([...d.learner.encoder.hidden]),
+  activation: z.enum(ACTIVATIONS).default(d.learner.encoder.activation),
+}).describe('Hidden layer widths and their activation.');
+
+const train = z.strictObject({
+  optimizer: z.enum(OPTIMIZERS).default(d.learner.train.optimizer),
+  learning_rate: z.number().gt(0).max(10).default(d.learner.train.learningRate),
+  batch: int(1, 65_536).default(d.learner.train.batch),
+  epochs: int(1, 10_000).default(d.learner.train.epochs),
+  patience: int(1, 10_000).default(d.learner.train.patience),
+  temperature: z.number().gt(0).max(100).default(d.learner.train.temperature),
+  align_every: int(1, 1_000_000).default(d.learner.train.alignEvery),
+});
+
+const learner = z.strictObject({
+  name: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'letters, digits, ".", "_" or "-"'),
+  objective: z.enum(OBJECTIVES),
+  input: channelList.min(1),
+  target: channelList.optional().describe('predict and contrast only: channels to predict or align with.'),
+  offset: z.union([z.literal(0), z.literal(1)]).default(d.learner.offset),
+  supervised_targets: z.array(z.enum(LATENT_NAMES)).optional().describe('supervised only; defaults to the probe targets.'),
+  encoder: encoder.prefault({}),
+  rule: z.enum(RULES).default(d.learner.rule),
+  train: train.prefault({}),
+  save_features: z.boolean().default(d.learner.saveFeatures),
+});
+
+const noise = z.strictObject({
+  channel: z.enum(CHANNELS),
+  kind: z.enum(NOISE_KINDS),
+  severities: z.array(int(0, 5)).min(1).default([...d.severities]),
+  parameters: z.array(z.number().min(-200).max(200)).min(1).optional()
+    .describe('Explicit corruption parameters, one per severity, instead of the documented table.'),
+});
+
+/** The one config schema: what `crosswise run` accepts and `crosswise schema` exports. */
+export const configSchema = z.strictObject({
+  name: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'letters, digits, ".", "_" or "-"'),
+  world: z.string().min(1).describe('World file, relative to this config file.'),
+  seeds: z.array(int(0, 2 ** 31 - 1)).min(1).default([...d.seeds]),
+  backend: z.enum(BACKENDS).default(d.backend),
+  collect: z.strictObject({
+    policy: z.enum(POLICIES).default(d.collect.policy),
+    steps: int(100, 10_000_000).default(d.collect.steps),
+    episode_steps: int(2, 1_000_000).default(d.collect.episodeSteps),
+    split: z.strictObject({
+      train: fraction.default(d.collect.split.train),
+      validation: fraction.default(d.collect.split.validation),
+      test: fraction.default(d.collect.split.test),
+    }).prefault({}),
+  }).prefault({}),
+  senses: z.strictObject({
+    sight: z.strictObject({
+      width: int(1, 31).default(d.senses.sight.width),
+      depth: int(1, 32).default(d.senses.sight.depth),
+    }).prefault({}),
+    sound: z.strictObject({
+      bands: int(1, 128).default(d.senses.sound.bands),
+      min_hz: z.number().min(20).max(20_000).default(d.senses.sound.minHz),
+      max_hz: z.number().min(20).max(24_000).default(d.senses.sound.maxHz),
+    }).prefault({}),
+  }).prefault({}),
+  learners: z.array(learner).min(1),
+  probe: z.strictObject({
+    targets: z.array(z.enum(LATENT_NAMES)).min(1).default([...d.probe.targets]),
+    baseline: z.string().optional().describe('A learner name; defaults to the first learner.'),
+  }).prefault({}),
+  noise: z.array(noise).default([]),
+  vary: z.record(z.string(), z.array(z.unknown()).min(1)).default({})
+    .describe('Dotted setting paths (with * over list items) mapped to the values to sweep.'),
+  out: z.string().min(1).optional().describe('Output folder, relative to this config file; defaults to runs/<name>.'),
+});
+
+/** A config after schema validation, still in file spelling (snake_case), every default filled. */
+export type FilledConfig = z.output<typeof configSchema>;
+
+/** The config schema as JSON Schema (draft 2020-12), for editors. */
+export function configJsonSchema(): Record<string, unknown> {
+  return z.toJSONSchema(configSchema, { io: 'input' }) as Record<string, unknown>;
+}

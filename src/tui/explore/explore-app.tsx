@@ -1,0 +1,27 @@
+import { useApp, useInput, type Key } from 'ink';
+import { useEffect, useMemo, useReducer } from 'react';
+import { ExploreScreen } from '../components/explore-screen.js';
+import { reduceExplore, type ExploreKey, type ExploreState } from './explore-state.js';
+import { exploreView } from './explore-view.js';
+
+/** Ink's key report as the reducer's key name. */
+export function keyName(input: string, key: Key): ExploreKey {
+  if (key.upArrow) return 'up';
+  if (key.downArrow) return 'down';
+  if (key.leftArrow) return 'left';
+  if (key.rightArrow) return 'right';
+  if (key.escape) return 'q';
+  return input;
+}
+
+/** The explore root: owns the state and the keys; everything below only displays. */
+export function ExploreApp({ initial }: { readonly initial: ExploreState }) {
+  const [state, dispatch] = useReducer(reduceExplore, initial);
+  const { exit } = useApp();
+  useInput((input, key) => dispatch(keyName(input, key)));
+  useEffect(() => {
+    if (state.quit) exit();
+  }, [state.quit, exit]);
+  const view = useMemo(() => exploreView(state), [state]);
+  return <ExploreScreen view={view} />;
+}

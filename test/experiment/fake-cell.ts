@@ -1,0 +1,39 @@
+// A test double for the runner's contract: a cell whose scores follow from its settings
+// alone (so any schedule must store the same numbers), that takes a little time per
+// epoch, and that fails like a diverging learner when its name says so.
+import { createHash } from 'node:crypto';
+import type { CellWork } from '../../src/experiment/cell-work.js';
+
+const EPOCH_MS = Number(process.env.FAKE_EPOCH_MS ?? '20');
+
+/** A number in [0, 1) determined by the text. */
+function unit(text: string): number {
+  return createHash('sha256').update(text).digest().readUInt32BE(0) / 2 ** 32;
+}
+
+export const cellWork: CellWork = async (cell, onEpoch) => {
+  const log = [];
+  for (let epoch = 1; epoch <= cell.learner.train.epochs; epoch++) {
+    await new Promise((resolve) => setTimeout(resolve, EPOCH_MS));
+    if (cell.learner.name.includes('diverge')) {
+      const error = new Error(`loss became NaN at epoch ${epoch}`);
+      error.name = 'LearnerDivergedError';
+      throw error;
+    }
+    const entry = { epoch, trainLoss: 1 / epoch, validationLoss: 1.1 / epoch, seconds: EPOCH_MS / 1000, alignmentDeg: [] };
+    log.push(entry);
+    onEpoch(entry);
+  }
+  const rows = cell.probe.targets.flatMap((target) =>
+    cell.noise.flatMap((noise) => noise.severities.map((severity) => ({
+      learner: cell.learner.name,
+      seed: cell.seed,
+      target,
+      channel: noise.channel,
+      kind: noise.kind,
+      severity,
+      metric: 'accuracy',
+      value: unit(`${cell.id}/${target}/${noise.channel}/${noise.kind}/${severity}`),
+    }))));
+  return { rows, log, seconds: { collect: 0, train: 0, probe: 0 }, versions: { fake: '1' }, arrays: {} };
+};

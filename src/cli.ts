@@ -1,5 +1,6 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
 import { exploreCommand } from './commands/explore.js';
+import { benchCommand } from './commands/bench.js';
 import { cellCommand } from './commands/cell.js';
 import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
@@ -36,6 +37,7 @@ const COMMANDS: Record<string, Command> = {
   report: reportCommand,
   check: checkCommand,
   sense: senseCommand,
+  bench: benchCommand,
 };
 
 /** Runs one command line and returns the process exit code. */

@@ -6,14 +6,7 @@ import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '.
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
-
-/** One benchmark figure. */
-export interface BenchRow {
-  readonly name: string;
-  readonly value: number;
-  readonly unit: string;
-  readonly detail: string;
-}
+import type { BenchResult } from './result.js';
 
 const DEMO_WORLD = fileURLToPath(new URL('../../worlds/greenhouse.yaml', import.meta.url));
 
@@ -84,10 +77,10 @@ const CASES: readonly Case[] = [
 ];
 
 /** Training throughput per objective at default sizes on greenhouse data, and the 160→128→128→48 reference on cpu and wasm. */
-export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchRow[]> {
+export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchResult[]> {
   const rounds = opts.quick ? 1 : 3;
   const epochs = opts.quick ? 2 : 3;
-  const rows: BenchRow[] = [];
+  const rows: BenchResult[] = [];
   await initBackend(opts.backend);
   const defaults = demoWorkload(opts.quick ? 2700 : 10300);
   for (const c of CASES) {

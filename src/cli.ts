@@ -1,14 +1,15 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
 import { exploreCommand } from './commands/explore.js';
+import { benchCommand } from './commands/bench.js';
 import { cellCommand } from './commands/cell.js';
 import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
 import { runCommand } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
+import { renderDashboard } from './tui/dashboard/render-dashboard.js';
 import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
-import { dashboardListener } from './tui/dashboard/dashboard-listener.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -28,7 +29,7 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   explore: exploreCommand,
-  run: (args) => runCommand(args, { dashboard: dashboardListener }),
+  run: (args) => runCommand(args, { dashboard: renderDashboard }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,
@@ -36,6 +37,7 @@ const COMMANDS: Record<string, Command> = {
   report: reportCommand,
   check: checkCommand,
   sense: senseCommand,
+  bench: benchCommand,
 };
 
 /** Runs one command line and returns the process exit code. */

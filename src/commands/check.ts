@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { isMap, parseDocument } from 'yaml';
+import { checkConfigFile } from '../experiment/config.js';
 import { checkWorldFile } from '../world/parse.js';
 
 /** A validator for one kind of file, chosen by what the file contains. */
@@ -15,6 +16,7 @@ export interface FileChecker {
 /** The checkers `crosswise check` tries in order; the first that accepts a file checks it. */
 export const CHECKERS: FileChecker[] = [
   { kind: 'world', accepts: (keys) => keys.has('map'), check: checkWorldFile },
+  { kind: 'config', accepts: (keys) => keys.has('learners'), check: checkConfigFile },
 ];
 
 function topLevelKeys(text: string): Set<string> | null {
@@ -36,7 +38,7 @@ export function checkFile(path: string): { kind: string | null; problems: string
   const checker = keys == null ? CHECKERS[0] : CHECKERS.find((c) => c.accepts(keys));
   if (checker == null) {
     const known = CHECKERS.map((c) => c.kind).join(' or ');
-    return { kind: null, problems: [`${path}:1:1: not a ${known} file (a world file has a 'map' key)`] };
+    return { kind: null, problems: [`${path}:1:1: not a ${known} file (a world file has a 'map' key, a config a 'learners' key)`] };
   }
   return { kind: checker.kind, problems: checker.check(path) };
 }

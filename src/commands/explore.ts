@@ -2,7 +2,7 @@ import { readdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { renderExplore } from '../tui/explore/render-explore.js';
-import { checkWorldFile, loadWorld } from '../world/index.js';
+import { checkWorldFile, loadWorld } from '../world/parse.js';
 
 const DEMO_DIR = fileURLToPath(new URL('../../worlds/', import.meta.url));
 const DEFAULT_WORLD = 'greenhouse.yaml';

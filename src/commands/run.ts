@@ -1,20 +1,28 @@
 import { availableParallelism } from 'node:os';
 import { PIPELINE_MODULE } from '../experiment/cell-work.js';
 import { loadSweepFrom, parseCommand, positiveInteger, UsageError, withInputErrors } from '../experiment/command-line.js';
-import type { RunListener } from '../experiment/events.js';
+import type { RunEvent, RunListener } from '../experiment/events.js';
 import { plainLogger } from '../experiment/plain-log.js';
+import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
-import type { Sweep } from '../experiment/resolved-config.js';
 import { BACKENDS, type BackendName } from '../learn/spec.js';
 
-/** What the caller may plug into `run`: the terminal dashboard, the report, or other cell work. */
+/** What a terminal dashboard needs from the run. */
+export interface DashboardHooks {
+  readonly name: string;
+  readonly total: number;
+  /** Registers an event listener; returns its removal. */
+  readonly subscribe: (listener: RunListener) => () => void;
+  /** Stops the sweep (the user pressed q or Ctrl-C). */
+  readonly onStop: () => void;
+}
+
+/** What the caller may plug into `run`: the terminal dashboard, or other cell work. */
 export interface RunCommandParts {
   /** Module exporting `cellWork`; the collect–train–probe pipeline unless given. */
   readonly workModule?: string;
-  /** A listener that draws the dashboard when stdout is a terminal and --plain is not given. */
-  readonly dashboard?: (sweep: Sweep) => RunListener;
-  /** Builds the report from an output folder and returns the path of its summary. */
-  readonly report?: (out: string) => Promise<string>;
+  /** Mounts the dashboard when stdout is a terminal and --plain is not given; resolves when it has closed. */
+  readonly dashboard?: (hooks: DashboardHooks) => { waitUntilExit(): Promise<void> };
 }
 
 const OPTIONS = { out: { type: 'string' }, jobs: { type: 'string' }, plain: { type: 'boolean' }, backend: { type: 'string' } } as const;
@@ -27,20 +35,25 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
     const backend = backendOption(values.backend);
     const loaded = loadSweepFrom(config, values.out);
     const sweep = backend == null ? loaded : { ...loaded, backend };
-    const plain = values.plain === true || !process.stdout.isTTY || parts.dashboard == null;
-    const listener = plain ? plainLogger((line) => console.log(line)) : (parts.dashboard as (s: Sweep) => RunListener)(sweep);
     const controller = new AbortController();
     const stop = () => controller.abort();
+    const listeners = new Set<RunListener>();
+    const useDashboard = values.plain !== true && process.stdout.isTTY && parts.dashboard != null;
+    const dashboard = useDashboard
+      ? parts.dashboard?.({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
+      : undefined;
+    if (dashboard == null) listeners.add(plainLogger((line) => console.log(line)));
     process.once('SIGINT', stop);
     process.once('SIGTERM', stop);
     try {
       const outcome = await runSweep(sweep, {
         jobs,
         workModule: parts.workModule ?? PIPELINE_MODULE,
-        listeners: [listener],
+        listeners: [(event: RunEvent) => listeners.forEach((listener) => listener(event))],
         signal: controller.signal,
-        ...(parts.report == null ? {} : { report: parts.report }),
+        report: buildSummary,
       });
+      await dashboard?.waitUntilExit();
       if (outcome.interrupted) {
         console.log(`stopped; finished cells are kept. resume with: crosswise run ${config}${values.out == null ? '' : ` --out ${values.out}`}`);
         return 130;
@@ -51,6 +64,15 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
       process.off('SIGTERM', stop);
     }
   });
+}
+
+/** Builds summary.md, comparisons.csv and the plots; returns where the summary is. */
+async function buildSummary(out: string): Promise<string> {
+  // Imported on demand: the plotting library takes a moment to load.
+  const { buildReport } = await import('../report/build-report.js');
+  const files = await buildReport(out).catch((error: unknown) => error as Error);
+  if (files instanceof Error) return `the report could not be built: ${files.message}`;
+  return `summary: ${files.summaryPath}${files.warnings.length > 0 ? ` (${files.warnings.length} warnings: ${files.warnings[0]})` : ''}`;
 }
 
 function backendOption(text: string | undefined): BackendName | undefined {

@@ -54,6 +54,17 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   };
 }
 
+/** Every problem of a config file as `path:line:col: key: reason`; empty when it is valid. */
+export function checkConfigFile(path: string): string[] {
+  try {
+    loadSweep(path);
+    return [];
+  } catch (error) {
+    if (error instanceof ConfigError) return [...error.lines];
+    throw error;
+  }
+}
+
 function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {
   if (options.out != null) return resolve(options.out);
   if (filled.out != null) return resolve(configDir, filled.out);

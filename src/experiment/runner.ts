@@ -16,7 +16,7 @@ export interface RunOptions {
   readonly listeners: readonly RunListener[];
   /** Aborting stops the sweep: running cells are abandoned unwritten, finished ones stay. */
   readonly signal?: AbortSignal;
-  /** Builds the report from the stored results and returns the path of its summary. */
+  /** Builds the report from the stored results and returns a line saying where its summary is. */
   readonly report?: (out: string) => Promise<string>;
 }
 
@@ -52,7 +52,7 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   const interrupted = options.signal?.aborted === true;
   const outcome = countCells(sweep.out, cells, interrupted);
   writeFileAtomic(join(sweep.out, 'results.csv'), collectResults(sweep.out, cells, sweep.varyKeys));
-  const summary = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : join(sweep.out, 'results.csv');
+  const summary = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${join(sweep.out, 'results.csv')}`;
   emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
   return outcome;
 }

@@ -4,7 +4,10 @@ import { dirname, join } from 'node:path';
 import type { EpochLog } from '../learn/spec.js';
 import type { CellOutcome } from './cell-work.js';
 import type { PlannedCell } from './plan.js';
-import { csvLine, formatResults, resultRows } from './results.js';
+import { csvLine } from '../report/csv.js';
+import { encodeNpy } from '../report/npy.js';
+import { formatResultsCsv } from '../report/results-table.js';
+import { resultRows } from './results.js';
 
 /** What happened to a cell, as stored in its cell.json. */
 export interface CellRecord {
@@ -67,7 +70,8 @@ export function storeCell(out: string, cell: PlannedCell, result: CellResult, va
     'train.csv': trainCsv(outcome?.log ?? (result.status === 'failed' ? result.log : [])),
   };
   if (outcome != null) {
-    files['scores.csv'] = formatResults(resultRows(cell, outcome.rows), varyKeys);
+    files['scores.csv'] = formatResultsCsv(resultRows(cell, outcome.rows), varyKeys);
+    for (const [name, array] of Object.entries(outcome.arrays)) files[`${name}.npy`] = encodeNpy(array.data, array.shape);
   }
   commitFolder(cellDir(out, cell.id), files);
   return record;

@@ -2,7 +2,9 @@ import { NOISE_CHANNELS } from '../../noise/corrupt.js';
 import { MAX_SEVERITY } from '../../noise/severity.js';
 import { NOISE_KINDS, type NoiseKind } from '../../noise/spec.js';
 import { CHANNELS, type ChannelName } from '../../senses/channel.js';
-import { emitterIsOn, step, type Action, type Pose, type Transition, type World } from '../../world/index.js';
+import { emitterIsOn } from '../../world/emitter.js';
+import { step } from '../../world/movement.js';
+import { type Action, type Pose, type Transition, type World } from '../../world/types.js';
 
 /** The corruption applied to one channel on screen. */
 export interface ChannelNoise {

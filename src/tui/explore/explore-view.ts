@@ -1,8 +1,12 @@
 import { latentsAt } from '../../collect/latents.js';
 import { severityParameter } from '../../noise/severity.js';
-import { bandCentresHz, CHANNELS, DEFAULT_SENSE_SETTINGS, sceneFor, TOUCH_NAMES } from '../../senses/index.js';
+import { bandCentresHz } from '../../senses/mel.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS } from '../../senses/channel.js';
+import { sceneFor } from '../../senses/scene.js';
+import { TOUCH_NAMES } from '../../senses/touch.js';
 import { visibleCell } from '../../senses/sight.js';
-import { ACTIONS, emitterIsOn, HEADINGS, type Heading, type World } from '../../world/index.js';
+import { ACTIONS, HEADINGS, type Heading, type World } from '../../world/types.js';
+import { emitterIsOn } from '../../world/emitter.js';
 import type { LabelledBar } from '../components/bar-list.js';
 import type { MapCell } from '../components/map-panel.js';
 import type { SightBlock } from '../components/sight-panel.js';

@@ -2,8 +2,10 @@ import { corruptChannel } from '../../noise/corrupt.js';
 import { channelReference, type ChannelReference } from '../../noise/reference.js';
 import { severityParameter } from '../../noise/severity.js';
 import { createRng } from '../../random.js';
-import { CHANNELS, DEFAULT_SENSE_SETTINGS, senseAll, type ChannelName } from '../../senses/index.js';
-import { HEADINGS, step, type World } from '../../world/index.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../../senses/channel.js';
+import { senseAll } from '../../senses/sense-all.js';
+import { HEADINGS, type World } from '../../world/types.js';
+import { step } from '../../world/movement.js';
 import type { ExploreState } from './explore-state.js';
 
 type Channels = Record<ChannelName, Float32Array>;

@@ -1,6 +1,6 @@
 import { render } from 'ink';
 import { ExploreApp } from './explore-app.js';
-import type { World } from '../../world/index.js';
+import type { World } from '../../world/types.js';
 import { initialExploreState } from './explore-state.js';
 
 /** Mounts the explore screen on the terminal; resolves `waitUntilExit` when the user quits. */

@@ -1,0 +1,74 @@
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { collect } from '../collect/collector.js';
+import { splitByEpisode } from '../collect/split.js';
+import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
+import { initBackend, trainLearner, type FeatureExtractor } from '../learn/index.js';
+import { evaluateEncoder } from '../probe/evaluate.js';
+import { loadWorld } from '../world/parse.js';
+import type { CellOutcome, CellWork, ShapedArray } from './cell-work.js';
+import type { ScoreRow } from './events.js';
+
+const TFJS_VERSION = (JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {
+  dependencies: Record<string, string>;
+}).dependencies['@tensorflow/tfjs-core'];
+
+/**
+ * The production cell: collect the seed's experience, split it by episode, train the
+ * learner, then probe its frozen features under every noise setting. Every random draw
+ * derives from the cell seed, so all learners of a seed see the same data and noise.
+ */
+export const cellWork: CellWork = async (cell, onEpoch) => {
+  const clock = stopwatch();
+  const worldText = readFileSync(cell.world.path);
+  if (createHash('sha256').update(worldText).digest('hex') !== cell.world.sha256) {
+    throw new Error(`world file ${cell.world.path} changed since the sweep was planned; plan again`);
+  }
+  const world = loadWorld(cell.world.path);
+  const data = collect(world, { policy: cell.collect.policy, steps: cell.collect.steps, episodeSteps: cell.collect.episodeSteps }, cell.senses, cell.seed);
+  const split = splitByEpisode(data, cell.collect.split, cell.seed);
+  const collectSeconds = clock();
+  await initBackend(cell.backend);
+  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch });
+  const trainSeconds = clock();
+  try {
+    const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
+    const rows: ScoreRow[] = evaluation.rows.map((row) => ({ learner: cell.learner.name, seed: cell.seed, ...row }));
+    const arrays: Record<string, ShapedArray> = {
+      test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },
+      ...(cell.learner.saveFeatures ? everyStep(encoder, data) : {}),
+    };
+    const outcome: CellOutcome = {
+      rows,
+      log,
+      seconds: { collect: collectSeconds, train: trainSeconds, probe: clock() },
+      versions: { tfjs: TFJS_VERSION },
+      arrays,
+    };
+    return outcome;
+  } finally {
+    encoder.dispose();
+  }
+};
+
+/** Features of every collected step [steps, featureSize] and the latents [steps, LATENT_NAMES.length] in LATENT_NAMES order. */
+function everyStep(encoder: FeatureExtractor, data: Dataset): Record<string, ShapedArray> {
+  const inputs = Object.fromEntries(encoder.input.map((channel) => [channel, data.channels[channel]]));
+  const latents = new Float32Array(data.steps * LATENT_NAMES.length);
+  LATENT_NAMES.forEach((name, j) => data.latents[name].forEach((value, t) => { latents[t * LATENT_NAMES.length + j] = value; }));
+  return {
+    features: { shape: [data.steps, encoder.featureSize], data: encoder.features(inputs, data.steps) },
+    latents: { shape: [data.steps, LATENT_NAMES.length], data: latents },
+  };
+}
+
+/** Seconds since the previous call (or since creation). */
+function stopwatch(): () => number {
+  let last = performance.now();
+  return () => {
+    const now = performance.now();
+    const seconds = (now - last) / 1000;
+    last = now;
+    return seconds;
+  };
+}

@@ -1,0 +1,50 @@
+import { execFile } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { promisify } from 'node:util';
+import { describe, expect, it } from 'vitest';
+import { decodeNpy } from '../../src/report/npy.js';
+
+const ROOT = fileURLToPath(new URL('../../', import.meta.url));
+const crosswise = (...args: string[]) => promisify(execFile)(process.execPath, [join(ROOT, 'bin/crosswise.js'), ...args], { cwd: ROOT });
+
+// The real collect–train–probe pipeline on a tiny sweep: two learners, one seed.
+const CONFIG = `name: tiny
+world: ${join(ROOT, 'worlds/greenhouse.yaml')}
+seeds: [7]
+collect: { steps: 800, episode_steps: 50 }
+learners:
+  - { name: sound-from-sight, objective: predict, input: [sight], target: [sound], encoder: { hidden: [8] }, train: { epochs: 2, batch: 64 }, save_features: true }
+  - { name: sight-autoencoder, objective: reconstruct, input: [sight], encoder: { hidden: [8] }, train: { epochs: 2, batch: 64 } }
+probe: { targets: [wall_ahead, nearest_distance_m], baseline: sight-autoencoder }
+noise:
+  - { channel: sight, kind: gaussian, severities: [0, 3] }
+`;
+
+describe('the production cell pipeline', () => {
+  it('runs a sweep end to end, and one cell alone in another process stores the same scores', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'crosswise-pipeline-'));
+    writeFileSync(join(dir, 'config.yaml'), CONFIG);
+    const [sweep, alone] = await Promise.all([
+      crosswise('run', join(dir, 'config.yaml'), '--out', join(dir, 'sweep'), '--jobs', '2', '--plain'),
+      crosswise('cell', join(dir, 'config.yaml'), '--index', '0', '--out', join(dir, 'alone')),
+    ]);
+    expect(sweep.stdout).toContain('sweep done: 2 done, 0 failed');
+    expect(alone.stdout).toMatch(/done sound-from-sight seed 7/);
+    const results = readFileSync(join(dir, 'sweep', 'results.csv'), 'utf8').trim().split('\n');
+    // 2 learners × (wall_ahead: accuracy + chance, nearest_distance_m: r2, cka) × 2 severities, plus the header.
+    expect(results.length).toBe(1 + 2 * 4 * 2);
+    expect(existsSync(join(dir, 'sweep', 'summary.md'))).toBe(true);
+    const id = results[1].split(',')[0];
+    const scores = (out: string) => readFileSync(join(dir, out, 'cells', id, 'scores.csv'), 'utf8');
+    expect(scores('alone')).toBe(scores('sweep'));
+    const features = decodeNpy(readFileSync(join(dir, 'sweep', 'cells', id, 'features.npy')));
+    expect(features.shape).toEqual([800, 8]);
+    const latents = decodeNpy(readFileSync(join(dir, 'sweep', 'cells', id, 'latents.npy')));
+    expect(latents.shape).toEqual([800, 12]);
+    const record = JSON.parse(readFileSync(join(dir, 'sweep', 'cells', id, 'cell.json'), 'utf8')) as { versions: Record<string, string> };
+    expect(record.versions.tfjs).toBe('4.22.0');
+  });
+});

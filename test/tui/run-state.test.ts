@@ -79,3 +79,10 @@ describe('score summary', () => {
     expect(summariseScores([0.5])).toEqual({ mean: 0.5, halfWidth: null });
   });
 });
+
+describe('progress timing', () => {
+  it('shows 0s elapsed when the clock reading is older than the sweep start (first frame)', () => {
+    const s = reduceRun(initialRunState('x', 1, 0), SWEEP[0], 2000);
+    expect(progressText(s, 1500, false).timing).toBe('elapsed 0s · eta -- · 2 workers');
+  });
+});

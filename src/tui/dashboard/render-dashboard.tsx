@@ -1,6 +1,7 @@
 import { render } from 'ink';
 import { summarise } from '../../stats/summarise.js';
 import { Dashboard } from './dashboard.js';
+import { createEventHub } from './event-hub.js';
 import type { Summarise } from './run-view.js';
 import type { Subscribe } from './use-run-state.js';
 
@@ -29,12 +30,22 @@ export const summariseScores: Summarise = (values) => {
 
 /**
  * Mounts the run dashboard on the terminal. It closes by itself once it receives
- * `sweep-done`; Ctrl-C does not kill the process but calls `onStop`.
+ * `sweep-done`; Ctrl-C does not kill the process but calls `onStop`. It listens from
+ * the moment it is called: events that arrive before the screen has mounted (the
+ * runner emits `sweep-start` straight away) are kept and replayed.
  */
 export function renderDashboard(options: DashboardOptions): DashboardHandle {
-  const instance = render(<Dashboard {...options} summarise={summariseScores} now={Date.now} />, { exitOnCtrlC: false });
+  const hub = createEventHub();
+  const unsubscribe = options.subscribe(hub.emit);
+  const instance = render(<Dashboard {...options} subscribe={hub.subscribe} summarise={summariseScores} now={Date.now} />, { exitOnCtrlC: false });
   return {
-    waitUntilExit: async () => { await instance.waitUntilExit(); },
-    unmount: () => instance.unmount(),
+    waitUntilExit: async () => {
+      await instance.waitUntilExit();
+      unsubscribe();
+    },
+    unmount: () => {
+      instance.unmount();
+      unsubscribe();
+    },
   };
 }

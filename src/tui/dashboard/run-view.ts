@@ -61,7 +61,7 @@ export function progressText(state: RunState, nowMs: number, stopping: boolean):
     + `${state.workers.length} running · ${queuedCells(state)} queued`;
   const workers = `${state.jobs} worker${state.jobs === 1 ? '' : 's'}`;
   const timing = state.finished == null
-    ? `elapsed ${formatDuration((nowMs - state.startedMs) / 1000)} · eta ${formatDuration(etaSeconds(state, nowMs))} · ${workers}`
+    ? `elapsed ${formatDuration(Math.max(0, nowMs - state.startedMs) / 1000)} · eta ${formatDuration(etaSeconds(state, nowMs))} · ${workers}`
     : `took ${formatDuration(state.finished.seconds)} · ${workers}`;
   return { title: `crosswise run · ${state.name}`, counts, timing, notes: notes(state, stopping) };
 }

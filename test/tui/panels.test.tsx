@@ -6,6 +6,7 @@ import { EXPLORE_KEYS } from '../../src/tui/explore/explore-state.js';
 import { MapPanel } from '../../src/tui/components/map-panel.js';
 import { SightPanel } from '../../src/tui/components/sight-panel.js';
 import { SoundPanel } from '../../src/tui/components/sound-panel.js';
+import { ResultsTable } from '../../src/tui/components/results-table.js';
 
 const lines = (node: React.ReactElement) => {
   const app = render(node);
@@ -76,5 +77,13 @@ describe('HelpLine', () => {
     const help = lines(<HelpLine keys={EXPLORE_KEYS} />);
     expect(help).toEqual(['↑↓←→ wasd move  . stay  t tick  n k +- noise  g world  c colour  l truth  q quit']);
     expect(help[0].length).toBeLessThanOrEqual(80);
+  });
+});
+
+describe('ResultsTable', () => {
+  it('cuts a long learner name with an ellipsis and keeps a space before the first score', () => {
+    const table = { caption: 'wall_ahead (accuracy)', columns: ['sev 0'], rows: [{ label: 'touch-from-sight-and-motor', cells: ['0.99±0.01'] }] };
+    const { lastFrame } = render(<ResultsTable table={table} />);
+    expect(lastFrame()!.split('\n')[2]).toBe('touch-from-sight-a… 0.99±0.01');
   });
 });

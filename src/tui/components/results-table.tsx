@@ -16,7 +16,7 @@ export function ResultsTable({ table }: { readonly table: TableText }) {
       </Box>
       {table.rows.map((row) => (
         <Box key={row.label}>
-          <Box width={LABEL_WIDTH}><Text wrap="truncate-end">{row.label}</Text></Box>
+          <Box width={LABEL_WIDTH} paddingRight={1}><Text wrap="truncate-end">{row.label}</Text></Box>
           {row.cells.map((cell, i) => <Box key={table.columns[i]} width={CELL_WIDTH}><Text>{cell}</Text></Box>)}
         </Box>
       ))}

@@ -28,6 +28,7 @@ export interface ProbeChoice {
   readonly target: string;
   readonly metric: 'r2' | 'accuracy';
   readonly alpha: number;
+  /** Validation score of the final read-out (fitted on all training rows at `alpha`). */
   readonly validationScore: number;
 }
 

@@ -1,4 +1,5 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import type { LinearModel } from './ridge.js';
 
 /**
  * The coordinates every read-out works in: features standardised with the training
@@ -86,4 +87,34 @@ export function toBasis(basis: FeatureBasis, features: Float32Array, n: number):
     }
   }
   return z;
+}
+
+/**
+ * The same linear function of raw features written in another basis: with v = diag(s)·R·W
+ * the raw weights, z·W + b = x·v + b − μ·v, and z'·W' + b' equals it for W' = R'ᵀ·diag(1/s')·v,
+ * b' = b − μ·v + μ'·v (R' is orthogonal). A feature constant in `to` gets no weight.
+ */
+export function changeBasis(model: LinearModel, from: FeatureBasis, to: FeatureBasis): LinearModel {
+  const { d, k } = model;
+  if (from.d !== d || to.d !== d) throw new Error(`changeBasis: a ${d}-feature model needs ${d}-feature bases, got ${from.d} and ${to.d}`);
+  const raw = new Float64Array(d * k); // [d, k], v / s' once finished
+  const intercept = Float64Array.from(model.intercept);
+  for (let j = 0; j < d; j++) {
+    for (let m = 0; m < d; m++) {
+      const a = from.scale[j] * from.rotation[j * d + m];
+      if (a !== 0) for (let c = 0; c < k; c++) raw[j * k + c] += a * model.weights[m * k + c];
+    }
+    for (let c = 0; c < k; c++) {
+      intercept[c] += (to.mean[j] - from.mean[j]) * raw[j * k + c];
+      raw[j * k + c] = to.scale[j] > 0 ? raw[j * k + c] / to.scale[j] : 0;
+    }
+  }
+  const weights = new Float64Array(d * k);
+  for (let j = 0; j < d; j++) {
+    for (let m = 0; m < d; m++) {
+      const r = to.rotation[j * d + m];
+      for (let c = 0; c < k; c++) weights[m * k + c] += r * raw[j * k + c];
+    }
+  }
+  return { d, k, weights, intercept };
 }

@@ -6,7 +6,7 @@ import { noiseParameter } from '../noise/severity.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName } from '../senses/channel.js';
 import { featureBasis, toBasis } from './basis.js';
-import { linearCka } from './cka.js';
+import { preparedCka, prepareCka } from './cka.js';
 import { chanceLevel, fitProbe, scoreProbe, takeRows, testLabels, type SplitFeatures, type TestLabels } from './probe.js';
 import { probeTarget } from './targets.js';
 
@@ -28,6 +28,7 @@ export interface ProbeChoice {
   readonly target: string;
   readonly metric: 'r2' | 'accuracy';
   readonly alpha: number;
+  /** Validation score of the final read-out (fitted on all training rows at `alpha`). */
   readonly validationScore: number;
 }
 
@@ -89,9 +90,10 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
   const labels = targets.map((target) => testLabels(fitProbe(target, data, train, validation), data, split.test));
   const chance = targets.map((target) => (target.kind === 'categorical' ? chanceLevel(target, data, split.train, split.test) : NaN));
   const nTest = split.test.length;
+  const cleanCka = prepareCka(test.features, nTest, d);
   const measure = (features: Float32Array, z: Float64Array): Condition => ({
     scores: labels.map((l) => scoreProbe(l, features, z, basis)),
-    cka: linearCka(test.features, features, nTest, d, d),
+    cka: preparedCka(cleanCka, prepareCka(features, nTest, d)),
   });
   const clean = measure(test.features, test.z);
 

@@ -5,7 +5,7 @@ import type { LinearModel } from './ridge.js';
  * remaining decrease of the mean cross-entropy, in nats) below 1e-6, far finer than
  * anything that moves an accuracy; or an iteration cap (common practice).
  */
-const TOLERANCE = 1e-6;
+export const TOLERANCE = 1e-6;
 const MAX_ITERATIONS = 200;
 
 /**
@@ -18,6 +18,12 @@ const MAX_ITERATIONS = 200;
  * ZᵀZ/n is diagonal; so the step W ← W − G/(½·eigen_j + α) never overshoots whatever the
  * features' correlations. Nesterov momentum with the gradient restart of O'Donoghue &
  * Candès (2015) speeds it up. Deterministic: it starts from zero or from `start`.
+ *
+ * Two classes are solved in their two-class form, which has the same minimiser: only
+ * u = w₁ − w₀ enters the loss and ‖w₀‖² + ‖w₁‖² is smallest at w₁ = −w₀ = u/2, so the
+ * problem is binary logistic regression on u with penalty (α/4)‖u‖², whose Hessian is
+ * bounded by ¼·ZᵀZ/n (Böhning & Lindsay 1988, Ann. Inst. Statist. Math. 40:641). One
+ * logit instead of two halves the work, and the tighter bound doubles the step.
  */
 export function fitLogistic(
   z: Float64Array, // [n, d], centred on these rows
@@ -27,70 +33,120 @@ export function fitLogistic(
   classCount: number,
   alpha: number,
   start?: LinearModel,
+  tolerance = TOLERANCE,
 ): LinearModel {
   const d = eigen.length;
-  const K = classCount;
   if (n < 1 || z.length !== n * d || classes.length !== n) throw new Error(`fitLogistic: expected z ${n}×${d} and ${n} labels`);
   if (!(alpha > 0)) throw new Error(`logistic penalty α must be > 0, got ${alpha}`);
-  const size = (d + 1) * K; // parameters: rows 0..d−1 weights, row d intercept
-  const curvature = new Float64Array(d + 1);
-  for (let j = 0; j < d; j++) curvature[j] = 0.5 * eigen[j] + alpha;
-  curvature[d] = 0.5;
-  let x = new Float64Array(size);
-  if (start !== undefined) {
-    x.set(start.weights);
-    x.set(start.intercept, d * K);
-  }
-  const y = Float64Array.from(x);
-  let theta = 1;
+  const problem: Problem = classCount === 2
+    ? { z, classes, n, d, eigen, logits: 1, penalty: alpha / 2, bound: 0.25, tolerance }
+    : { z, classes, n, d, eigen, logits: classCount, penalty: alpha, bound: 0.5, tolerance };
+  const theta = minimise(problem, start === undefined ? new Float64Array(problem.logits * (d + 1)) : fromModel(start, problem.logits));
+  return toModel(theta, d, classCount);
+}
+
+/** The penalised cross-entropy to minimise: `logits` = 1 is the two-class (sigmoid) form. */
+interface Problem {
+  readonly z: Float64Array; // [n, d]
+  readonly classes: Int32Array; // [n]
+  readonly n: number;
+  readonly d: number;
+  readonly eigen: Float64Array; // [d], diag of ZᵀZ/n
+  readonly logits: number;
+  /** λ in (λ/2)‖W‖². */
+  readonly penalty: number;
+  /** Bound on the curvature of the loss in one logit (½ softmax, ¼ sigmoid). */
+  readonly bound: number;
+  /** Stop when ½gᵀM⁻¹g falls below this (nats). */
+  readonly tolerance: number;
+}
+
+/** Preconditioned accelerated gradient descent from θ₀; θ is [logits, d + 1], the intercept last in each row. */
+function minimise(problem: Problem, theta0: Float64Array): Float64Array {
+  const { d, penalty, bound } = problem;
+  const stride = d + 1;
+  const size = theta0.length;
+  const curvature = new Float64Array(stride);
+  for (let j = 0; j < d; j++) curvature[j] = bound * problem.eigen[j] + penalty;
+  curvature[d] = bound;
+  let x = Float64Array.from(theta0);
+  let next = new Float64Array(size);
+  const y = Float64Array.from(theta0);
   const g = new Float64Array(size);
+  const scratch = new Float64Array(problem.logits);
+  let theta = 1;
   for (let iteration = 0; iteration < MAX_ITERATIONS; iteration++) {
-    softmaxGradient(z, classes, n, d, K, alpha, y, g);
-    const next = new Float64Array(size);
+    gradient(problem, y, g, scratch);
     let decrement = 0;
     let ascent = 0;
     for (let p = 0; p < size; p++) {
-      const step = g[p] / curvature[Math.floor(p / K)];
+      const step = g[p] / curvature[p % stride];
       next[p] = y[p] - step;
       decrement += g[p] * step;
       ascent += g[p] * (next[p] - x[p]);
     }
-    if (0.5 * decrement < TOLERANCE) {
-      x = next;
-      break;
-    }
+    [x, next] = [next, x];
+    if (0.5 * decrement < problem.tolerance) break;
     const restart = ascent > 0;
     const thetaNext = restart ? 1 : (1 + Math.sqrt(1 + 4 * theta * theta)) / 2;
     const momentum = restart ? 0 : (theta - 1) / thetaNext;
-    for (let p = 0; p < size; p++) y[p] = next[p] + momentum * (next[p] - x[p]);
+    for (let p = 0; p < size; p++) y[p] = x[p] + momentum * (x[p] - next[p]);
     theta = thetaNext;
-    x = next;
   }
-  return { d, k: K, weights: x.slice(0, d * K), intercept: x.slice(d * K) };
+  return x;
+}
+/**
+ * Gradient of the penalised mean cross-entropy at θ, written into g. Class-major rows
+ * keep the inner loops over the d features long; `scratch` holds one row's logits.
+ */
+function gradient(problem: Problem, theta: Float64Array, g: Float64Array, scratch: Float64Array): void {
+  const { z, classes, n, d, logits: L, penalty } = problem;
+  const stride = d + 1;
+  g.fill(0);
+  for (let i = 0; i < n; i++) {
+    const row = i * d;
+    for (let c = 0; c < L; c++) scratch[c] = theta[c * stride + d] + dot(z, row, theta, c * stride, d);
+    // p − onehot(y): the gradient of cross-entropy with respect to the logits
+    if (L === 1) scratch[0] = 1 / (1 + Math.exp(-scratch[0])) - classes[i];
+    else {
+      softmaxInPlace(scratch);
+      scratch[classes[i]] -= 1;
+    }
+    for (let c = 0; c < L; c++) {
+      addScaled(g, c * stride, scratch[c] / n, z, row, d);
+      g[c * stride + d] += scratch[c] / n;
+    }
+  }
+  for (let c = 0; c < L; c++) for (let j = 0; j < d; j++) g[c * stride + j] += penalty * theta[c * stride + j];
 }
 
-/** Gradient of the penalised mean cross-entropy at params, written into g. */
-function softmaxGradient(
-  z: Float64Array, classes: Int32Array, n: number, d: number, K: number, alpha: number,
-  params: Float64Array, g: Float64Array,
-): void {
-  g.fill(0);
-  const residual = new Float64Array(K);
-  for (let i = 0; i < n; i++) {
-    for (let c = 0; c < K; c++) residual[c] = params[d * K + c];
-    for (let j = 0; j < d; j++) {
-      const a = z[i * d + j];
-      for (let c = 0; c < K; c++) residual[c] += a * params[j * K + c];
-    }
-    softmaxInPlace(residual);
-    residual[classes[i]] -= 1; // p − onehot(y): the gradient of cross-entropy with respect to the logits
-    for (let j = 0; j < d; j++) {
-      const a = z[i * d + j] / n;
-      for (let c = 0; c < K; c++) g[j * K + c] += a * residual[c];
-    }
-    for (let c = 0; c < K; c++) g[d * K + c] += residual[c] / n;
+// The two kernels below carry 90% of the work; four independent lanes let V8 overlap
+// the multiply-adds, about twice as fast as a plain loop (measured, Node 20).
+
+/** Σ_j a[ai + j]·b[bi + j] over m entries. */
+function dot(a: Float64Array, ai: number, b: Float64Array, bi: number, m: number): number {
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let j = 0;
+  for (; j + 3 < m; j += 4) {
+    s0 += a[ai + j] * b[bi + j];
+    s1 += a[ai + j + 1] * b[bi + j + 1];
+    s2 += a[ai + j + 2] * b[bi + j + 2];
+    s3 += a[ai + j + 3] * b[bi + j + 3];
   }
-  for (let p = 0; p < d * K; p++) g[p] += alpha * params[p];
+  for (; j < m; j++) s0 += a[ai + j] * b[bi + j];
+  return s0 + s1 + s2 + s3;
+}
+
+/** y[yi + j] += r·x[xi + j] over m entries. */
+function addScaled(y: Float64Array, yi: number, r: number, x: Float64Array, xi: number, m: number): void {
+  let j = 0;
+  for (; j + 3 < m; j += 4) {
+    y[yi + j] += r * x[xi + j];
+    y[yi + j + 1] += r * x[xi + j + 1];
+    y[yi + j + 2] += r * x[xi + j + 2];
+    y[yi + j + 3] += r * x[xi + j + 3];
+  }
+  for (; j < m; j++) y[yi + j] += r * x[xi + j];
 }
 
 /** Replaces logits by their softmax, shifting by the maximum so exp never overflows. */
@@ -103,6 +159,31 @@ function softmaxInPlace(v: Float64Array): void {
     sum += v[c];
   }
   for (let c = 0; c < v.length; c++) v[c] /= sum;
+}
+
+/** θ [logits, d + 1] of a model [d, k]; the two-class form keeps the difference class 1 − class 0. */
+function fromModel(model: LinearModel, logits: number): Float64Array {
+  const { d, k, weights, intercept } = model;
+  const stride = d + 1;
+  const theta = new Float64Array(logits * stride);
+  for (let c = 0; c < logits; c++) {
+    for (let j = 0; j < d; j++) theta[c * stride + j] = logits === 1 ? weights[j * k + 1] - weights[j * k] : weights[j * k + c];
+    theta[c * stride + d] = logits === 1 ? intercept[1] - intercept[0] : intercept[c];
+  }
+  return theta;
+}
+
+/** The model [d, classCount] of θ; the two-class form becomes the symmetric pair −u/2, u/2. */
+function toModel(theta: Float64Array, d: number, classCount: number): LinearModel {
+  const stride = d + 1;
+  const weights = new Float64Array(d * classCount);
+  const intercept = new Float64Array(classCount);
+  for (let c = 0; c < classCount; c++) {
+    const [row, sign] = classCount === 2 ? [0, c === 0 ? -0.5 : 0.5] : [c, 1];
+    for (let j = 0; j < d; j++) weights[j * classCount + c] = sign * theta[row * stride + j];
+    intercept[c] = sign * theta[row * stride + d];
+  }
+  return { d, k: classCount, weights, intercept };
 }
 
 /** The class with the largest score in each row (the first on ties). */

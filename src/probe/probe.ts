@@ -1,7 +1,8 @@
 import type { Dataset } from '../collect/dataset.js';
-import { featureBasis, toBasis, type FeatureBasis } from './basis.js';
-import { READOUTS, type LabelledRows, type Readout } from './readout.js';
-import type { DefinedLabels, ProbeTarget } from './targets.js';
+import { changeBasis, featureBasis, toBasis, type FeatureBasis } from './basis.js';
+import { READOUTS, readoutAt, type LabelledRows, type Readout, type ReadoutKind } from './readout.js';
+import type { LinearModel } from './ridge.js';
+import type { DefinedLabels, ProbeTarget, TargetLabels } from './targets.js';
 
 /** Features of one split in the shared training basis: raw [n, d] and projected z [n, d]. */
 export interface SplitFeatures {
@@ -41,7 +42,40 @@ export function fitProbe(target: ProbeTarget, data: Dataset, train: SplitFeature
     basis === split.basis ? takeRows(split.z, d, keep) : toBasis(basis, takeRows(split.features, d, keep), keep.length);
   const trainRows: LabelledRows = { z: project(train, trainLabels.keep), n: trainLabels.keep.length, labels: trainLabels.labels };
   const validationRows: LabelledRows = { z: project(validation, validationLabels.keep), n: validationLabels.keep.length, labels: validationLabels.labels };
-  return { target, basis, readout: READOUTS[target.kind].fit(trainRows, validationRows, basis.eigen) };
+  const kind = READOUTS[target.kind];
+  if (trainRows.n <= kind.selectionRows) {
+    const choice = kind.fit(trainRows, validationRows, basis.eigen);
+    return { target, basis, readout: refit(kind, trainRows, validationRows, basis.eigen, choice.alpha, choice.model) };
+  }
+  // Choose α on an even subsample, in that subsample's own basis (the solver's curvature
+  // bound needs ZᵀZ/n diagonal on the rows it fits), then refit on all rows from there.
+  const picked = evenSubsample(trainRows.n, kind.selectionRows);
+  const subFeatures = takeRows(train.features, d, Int32Array.from(picked, (p) => trainLabels.keep[p]));
+  const subBasis = featureBasis(subFeatures, picked.length, d);
+  const choice = kind.fit(
+    { z: toBasis(subBasis, subFeatures, picked.length), n: picked.length, labels: subsetLabels(trainLabels.labels, picked) },
+    { ...validationRows, z: toBasis(subBasis, takeRows(validation.features, d, validationLabels.keep), validationRows.n) },
+    subBasis.eigen,
+  );
+  const start = changeBasis(choice.model, subBasis, basis);
+  return { target, basis, readout: refit(kind, trainRows, validationRows, basis.eigen, choice.alpha, start) };
+}
+
+/** The final read-out: fitted on all training rows at the chosen α, its validation score recomputed. */
+function refit(kind: ReadoutKind, train: LabelledRows, validation: LabelledRows, eigen: Float64Array, alpha: number, start: LinearModel): Readout {
+  const model = kind.refit(train, alpha, eigen, start);
+  return readoutAt(alpha, model, kind.score(model, validation), kind.score);
+}
+
+/** m positions spread evenly over 0..n−1 (deterministic, covering every part of the split). */
+export function evenSubsample(n: number, m: number): Int32Array {
+  return Int32Array.from({ length: Math.min(n, m) }, (_, i) => Math.floor((i * n) / Math.min(n, m)));
+}
+
+/** The labels at the given positions. */
+function subsetLabels(labels: TargetLabels, positions: Int32Array): TargetLabels {
+  if (labels.kind === 'categorical') return { ...labels, classes: Int32Array.from(positions, (p) => labels.classes[p]) };
+  return { ...labels, values: takeRows(labels.values, labels.outputs, positions) };
 }
 
 /** The test labels of a fitted probe, for scoring it on clean and corrupted features alike. */

@@ -1,7 +1,7 @@
 import { determinant, Matrix, QrDecomposition } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { createRng, normal } from '../../src/random.js';
-import { linearCka } from '../../src/probe/cka.js';
+import { linearCka, preparedCka, prepareCka } from '../../src/probe/cka.js';
 
 const n = 60;
 const d = 6;
@@ -59,5 +59,19 @@ describe('linearCka (Kornblith et al. 2019, ICML)', () => {
 
   it('rejects arrays that do not match the stated shapes', () => {
     expect(() => linearCka(flat(X), flat(X), n, d + 1, d)).toThrow(`linearCka: expected X ${n}×${d + 1} and Y ${n}×${d}`);
+  });
+});
+
+describe('preparedCka', () => {
+  it('equals linearCka when one prepared side is compared with several others, to 1e-12', () => {
+    const reference = prepareCka(flat(X), n, d);
+    for (const seed of [6, 7]) {
+      const Y = X.mmul(gaussianMatrix(d, 3, seed)).add(gaussianMatrix(n, 3, seed + 10));
+      expect(preparedCka(reference, prepareCka(flat(Y), n, 3))).toBeCloseTo(linearCka(flat(X), flat(Y), n, d, 3), 12);
+    }
+  });
+
+  it('rejects representations of different row counts', () => {
+    expect(() => preparedCka(prepareCka(flat(X), n, d), prepareCka(new Float32Array(2 * d), 2, d))).toThrow(`linearCka: the representations have ${n} and 2 rows`);
   });
 });

@@ -24,6 +24,22 @@ describe('multinomial logistic read-out', () => {
     expect(objective(oursTheta, alpha)).toBeLessThan(objective(newtonSolution(alpha), alpha) + 1e-4);
   });
 
+  // Two classes are solved in their two-class (sigmoid) form; the optimum must be that of the two-logit softmax objective.
+  it('solves two classes (versicolor vs the rest) at a stationary point of the softmax objective: finite-difference gradient < 1e-3', () => {
+    const alpha = 1e-2;
+    const binary = Int32Array.from(y, (c) => (c === 1 ? 1 : 0));
+    const model = fitLogistic(z, binary, 150, basis.eigen, 2, alpha);
+    const theta = [...model.weights, ...model.intercept]; // W [4, 2] row-major, then b [2]
+    const f = (t: number[]) => twoClassObjective(t, binary, alpha);
+    const h = 1e-5;
+    for (let q = 0; q < theta.length; q++) {
+      const up = theta.map((v, p) => (p === q ? v + h : v));
+      const down = theta.map((v, p) => (p === q ? v - h : v));
+      expect(Math.abs((f(up) - f(down)) / (2 * h))).toBeLessThan(1e-3);
+    }
+    expect(model.weights[0]).toBeCloseTo(-model.weights[1], 12); // the symmetric minimiser w₀ = −w₁
+  });
+
   it('is deterministic: two fits give identical weights', () => {
     const a = fitLogistic(z, y, 150, basis.eigen, 3, 1e-2);
     const b = fitLogistic(z, y, 150, basis.eigen, 3, 1e-2);
@@ -86,4 +102,15 @@ function newtonSolution(alpha: number): number[] {
     theta = theta.map((v, q) => v - delta.get(q, 0));
   }
   return theta;
+}
+
+/** Penalised mean softmax cross-entropy of two classes at θ = [W (4×2, row-major), b (2)], written out naively. */
+function twoClassObjective(theta: readonly number[], labels: Int32Array, alpha: number): number {
+  let loss = 0;
+  for (let i = 0; i < 150; i++) {
+    const logits = [0, 1].map((c) => theta[8 + c] + [0, 1, 2, 3].reduce((s, j) => s + z[i * 4 + j] * theta[j * 2 + c], 0));
+    const max = Math.max(...logits);
+    loss += (max + Math.log(Math.exp(logits[0] - max) + Math.exp(logits[1] - max)) - logits[labels[i]]) / 150;
+  }
+  return loss + (alpha / 2) * theta.slice(0, 8).reduce((s, w) => s + w * w, 0);
 }

@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { summarise, type Summary } from '../stats/summarise.js';
-import { linearCkaPrepared, prepareCka } from './cka.js';
+import { preparedCka, prepareCka } from '../probe/cka.js';
 import { comboKey, unique, type Combination } from './groups.js';
 import type { CellRecord, StoredRun } from './load.js';
 import { readNpy, type NpyArray } from './npy.js';
@@ -36,12 +36,12 @@ export async function learnerCka(run: StoredRun, combo: Combination, warnings: s
     if ([...features.values()].some((f) => f.shape[0] !== rows)) {
       warnings.push(`seed ${seed}: learners stored different numbers of test rows; CKA between learners uses the first ${rows}`);
     }
-    const prepared = new Map([...features].map(([learner, f]) => [learner, prepareCka(f.data.subarray(0, rows * f.shape[1]), f.shape[1])]));
+    const prepared = new Map([...features].map(([learner, f]) => [learner, prepareCka(f.data.subarray(0, rows * f.shape[1]), rows, f.shape[1])]));
     learners.forEach((a, i) => learners.forEach((b, j) => {
       const pa = prepared.get(a);
       const pb = prepared.get(b);
       if (j < i || pa == null || pb == null) return;
-      const value = linearCkaPrepared(pa, pb);
+      const value = preparedCka(pa, pb);
       values[i][j].push(value);
       if (j !== i) values[j][i].push(value);
     }));

@@ -57,6 +57,8 @@ function startWorker(workModule: string, workers: Worker[]): Worker {
   const tsx = import.meta.resolve('tsx/esm/api');
   const code = `import(${JSON.stringify(tsx)}).then((api) => { api.register(); return import(${JSON.stringify(WORKER_ENTRY)}); });`;
   const thread = new Worker(code, { eval: true, workerData: { workModule } });
+  // A thread that dies between cells is replaced when its next cell fails; never crash the sweep over it.
+  thread.on('error', () => undefined);
   workers.push(thread);
   return thread;
 }

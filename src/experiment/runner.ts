@@ -14,8 +14,10 @@ export interface RunOptions {
   /** URL of the module exporting `cellWork` (PIPELINE_MODULE in production). */
   readonly workModule: string;
   readonly listeners: readonly RunListener[];
-  /** Aborting stops the sweep: running cells are abandoned unwritten, finished ones stay. */
+  /** Aborting stops the sweep gently: no cell starts any more, running cells finish and are stored. */
   readonly signal?: AbortSignal;
+  /** Aborting stops the sweep at once: running cells are abandoned unwritten; finished ones stay. */
+  readonly abandon?: AbortSignal;
   /** Builds the report from the stored results and returns a line saying where its summary is. */
   readonly report?: (out: string) => Promise<string>;
 }
@@ -42,14 +44,14 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
     onStart: (cell, worker) => emit({ type: 'cell-start', cell: cellLabel(cell), worker }),
     onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
     onFinish: (cell, worker, result) => {
-      if (options.signal?.aborted === true) return;
+      if (options.abandon?.aborted === true) return;
       storeCell(sweep.out, cell, result, sweep.varyKeys);
       emit(result.status === 'done'
         ? { type: 'cell-done', cell: cellLabel(cell), worker, seconds: result.totalSeconds, scores: result.outcome.rows }
         : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason });
     },
   });
-  const interrupted = options.signal?.aborted === true;
+  const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
   const outcome = countCells(sweep.out, cells, interrupted);
   writeFileAtomic(join(sweep.out, 'results.csv'), collectResults(sweep.out, cells, sweep.varyKeys));
   const summary = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${join(sweep.out, 'results.csv')}`;

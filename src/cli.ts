@@ -1,9 +1,10 @@
 /** Argument parsing and dispatch for the `crosswise` command. */
 import { exploreCommand } from './commands/explore.js';
+import { benchCommand } from './commands/bench.js';
 import { cellCommand } from './commands/cell.js';
 import { clusterCommand } from './commands/cluster.js';
 import { planCommand } from './commands/plan.js';
-import { runCommand, type DashboardHooks } from './commands/run.js';
+import { runCommand } from './commands/run.js';
 import { schemaCommand } from './commands/schema.js';
 import { reportCommand } from './commands/report.js';
 import { renderDashboard } from './tui/dashboard/render-dashboard.js';
@@ -28,7 +29,7 @@ type Command = (args: readonly string[]) => Promise<number>;
 
 const COMMANDS: Record<string, Command> = {
   explore: exploreCommand,
-  run: (args) => runCommand(args, { dashboard }),
+  run: (args) => runCommand(args, { dashboard: renderDashboard }),
   plan: planCommand,
   cell: (args) => cellCommand(args),
   cluster: clusterCommand,
@@ -36,12 +37,8 @@ const COMMANDS: Record<string, Command> = {
   report: reportCommand,
   check: checkCommand,
   sense: senseCommand,
+  bench: benchCommand,
 };
-
-/** The live run dashboard. */
-function dashboard(hooks: DashboardHooks) {
-  return renderDashboard(hooks);
-}
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {

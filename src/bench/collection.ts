@@ -5,14 +5,7 @@ import type { PolicyName } from '../collect/policies.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
 import type { World } from '../world/types.js';
-
-/** One benchmark figure. */
-export interface BenchResult {
-  readonly name: string;
-  readonly value: number;
-  readonly unit: string;
-  readonly detail: string;
-}
+import type { BenchResult } from './result.js';
 
 const WORLDS_DIR = fileURLToPath(new URL('../../worlds/', import.meta.url));
 

@@ -1,18 +1,12 @@
 import { fileURLToPath } from 'node:url';
-import { collect, splitByEpisode } from '../collect/index.js';
+import { collect } from '../collect/collector.js';
+import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
 import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
-import { loadWorld } from '../world/index.js';
-
-/** One benchmark figure. */
-export interface BenchRow {
-  readonly name: string;
-  readonly value: number;
-  readonly unit: string;
-  readonly detail: string;
-}
+import { loadWorld } from '../world/parse.js';
+import type { BenchResult } from './result.js';
 
 const DEMO_WORLD = fileURLToPath(new URL('../../worlds/greenhouse.yaml', import.meta.url));
 
@@ -83,10 +77,10 @@ const CASES: readonly Case[] = [
 ];
 
 /** Training throughput per objective at default sizes on greenhouse data, and the 160→128→128→48 reference on cpu and wasm. */
-export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchRow[]> {
+export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchResult[]> {
   const rounds = opts.quick ? 1 : 3;
   const epochs = opts.quick ? 2 : 3;
-  const rows: BenchRow[] = [];
+  const rows: BenchResult[] = [];
   await initBackend(opts.backend);
   const defaults = demoWorkload(opts.quick ? 2700 : 10300);
   for (const c of CASES) {

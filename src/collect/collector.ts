@@ -36,6 +36,11 @@ function randomPose(world: World, free: Int32Array, rng: Rng): Pose {
   return { x: cell % world.width, y: Math.floor(cell / world.width), heading: HEADINGS[randomInt(rng, 4)] };
 }
 
+/** Copies a short row into a dataset buffer; a plain loop beats TypedArray.set at these sizes. */
+function copyRow(row: Float32Array, out: Float32Array, at: number): void {
+  for (let i = 0; i < row.length; i++) out[at + i] = row[i];
+}
+
 /** Class names of the categorical latents, in index order. */
 export function latentClassNames(world: World): Dataset['classNames'] {
   const materials = world.materials.map((m) => m.name);
@@ -91,7 +96,7 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
       pose = transition.pose;
     }
     senseInto(scene, pose, transition, action, t, scratch, 0);
-    for (let c = 0; c < outputs.length; c++) outputs[c].set(rows[c], t * sizes[c]);
+    for (let c = 0; c < outputs.length; c++) copyRow(rows[c], outputs[c], t * sizes[c]);
     latentRow(scene, pose, transition, latent);
     for (let j = 0; j < latentColumns.length; j++) latentColumns[j][t] = latent[j];
     episode[t] = Math.floor(t / episodeSteps);

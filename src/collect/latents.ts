@@ -1,10 +1,10 @@
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { HEADING_INDEX } from '../senses/heading-index.js';
 import { sceneFor, type SensoryScene } from '../senses/scene.js';
-import { visibleCell } from '../senses/sight.js';
+import { viewFrom } from '../senses/sight.js';
 import { headingFrame, type HeadingFrame } from '../senses/sight-rays.js';
 import { cellAhead } from '../world/movement.js';
-import type { Pose, Transition } from '../world/types.js';
+import type { Pose, Transition, World } from '../world/types.js';
 import { LATENT_NAMES, type LatentName } from './dataset.js';
 
 /** Position of each latent in a latent row (LATENT_NAMES order). */
@@ -24,7 +24,7 @@ function emitterInView(scene: SensoryScene, pose: Pose, frame: HeadingFrame): bo
     const ahead = dx * frame.fx + dy * frame.fy;
     const column = dx * frame.rx + dy * frame.ry + Math.floor(width / 2);
     if (ahead < 1 || ahead > depth || column < 0 || column >= width) continue;
-    if (visibleCell(scene, pose, (ahead - 1) * width + column) >= 0) return true;
+    if (viewFrom(scene, pose)[(ahead - 1) * width + column] >= 0) return true;
   }
   return false;
 }
@@ -71,7 +71,7 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
 
 /** Every latent at one pose as a record (categorical values are class indices, see Dataset). */
 export function latentsAt(
-  world: SensoryScene['world'], pose: Pose, transition: Transition, settings: SenseSettings = DEFAULT_SENSE_SETTINGS,
+  world: World, pose: Pose, transition: Transition, settings: SenseSettings = DEFAULT_SENSE_SETTINGS,
 ): Record<LatentName, number> {
   const row = new Float64Array(LATENT_NAMES.length);
   latentRow(sceneFor(world, settings), pose, transition, row);

@@ -1,8 +1,8 @@
 import { readdirSync } from 'node:fs';
-import { relative, resolve } from 'node:path';
+import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { renderExplore } from '../tui/explore/render-explore.js';
-import { checkWorldFile, loadWorld } from '../world/index.js';
+import { checkWorldFile, loadWorld } from '../world/parse.js';
 
 const DEMO_DIR = fileURLToPath(new URL('../../worlds/', import.meta.url));
 const DEFAULT_WORLD = 'greenhouse.yaml';
@@ -52,7 +52,7 @@ export async function exploreCommand(args: readonly string[]): Promise<number> {
   }
   const first = resolve(parsed.world);
   const others = demoWorldPaths().filter((p) => p !== first && checkWorldFile(p).length === 0);
-  const worlds = [first, ...others].map((path) => ({ path: relative(process.cwd(), path) || path, world: loadWorld(path) }));
+  const worlds = [first, ...others].map((path) => loadWorld(path));
   const colour = process.env.NO_COLOR == null || process.env.NO_COLOR === '';
   await renderExplore({ worlds, seed: parsed.seed, colour }).waitUntilExit();
   return 0;

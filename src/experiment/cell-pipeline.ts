@@ -1,10 +1,11 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { collect, splitByEpisode } from '../collect/index.js';
+import { collect } from '../collect/collector.js';
+import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
 import { initBackend, trainLearner, type FeatureExtractor } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
-import { loadWorld } from '../world/index.js';
+import { loadWorld } from '../world/parse.js';
 import type { CellOutcome, CellWork, ShapedArray } from './cell-work.js';
 import type { ScoreRow } from './events.js';
 

@@ -1,7 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { csvLine } from '../report/csv.js';
-import { RESULTS_COLUMNS, type ResultMetric, type ResultRow } from '../report/results-table.js';
+import { RESULTS_COLUMNS, type ResultRow } from '../report/results-table.js';
 import type { ScoreRow } from './events.js';
 import type { PlannedCell } from './plan.js';
 
@@ -9,7 +9,6 @@ import type { PlannedCell } from './plan.js';
 export function resultRows(cell: PlannedCell, scores: readonly ScoreRow[]): ResultRow[] {
   return scores.map((score) => ({
     ...score,
-    metric: score.metric as ResultMetric,
     cell: cell.id,
     objective: cell.learner.objective,
     rule: cell.learner.rule,

@@ -25,3 +25,8 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
   const ok = await tf.setBackend(name);
   if (!ok || tf.getBackend() !== name) throw new Error(`could not start the TensorFlow.js '${name}' backend`);
 }
+
+/** Versions and backend in use, for the software record beside each result. */
+export function softwareVersions(): Record<string, string> {
+  return { 'tfjs-core': tf.version_core, 'tfjs-backend': tf.engine().backendName ?? 'none' };
+}

@@ -1,28 +1,60 @@
+import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { threadId } from 'node:worker_threads';
 import vm from 'node:vm';
 import { buildSync } from 'esbuild';
 import * as tf from '@tensorflow/tfjs-core';
 
-/**
- * Registers tfjs-core's own gradient functions, which its Node entry leaves out.
- *
- * Why a bundle built at start-up rather than the umbrella `@tensorflow/tfjs` package:
- * the umbrella is not a dependency and would pull in layers, converter and data just to
- * run one registration module; that module (`dist/register_all_gradients.js`) cannot be
- * imported by Node directly because its ESM imports have no file extensions. esbuild
- * (already installed with tsx) bundles it in ~0.1–0.4 s into one self-contained script,
- * which we run once. It always matches the installed tfjs-core (a committed bundle could
- * drift from it), and it registers into the same engine because tfjs-core keeps its
- * engine and registries on `globalThis` and recognises foreign Tensor copies by shape of
- * the object (`Symbol.hasInstance`).
- */
-export function registerStockGradients(): void {
-  const require = createRequire(import.meta.url);
+const require = createRequire(import.meta.url);
+
+/** Bundles tfjs-core's gradient registration module into one self-contained script. */
+function bundleGradients(): string {
   const entry = require.resolve('@tensorflow/tfjs-core/dist/register_all_gradients.js');
   const bundle = buildSync({
     entryPoints: [entry], bundle: true, format: 'iife', platform: 'node', write: false, logLevel: 'silent',
   });
-  vm.runInThisContext(bundle.outputFiles[0].text, { filename: 'tfjs-core-register-all-gradients.js' });
+  return bundle.outputFiles[0].text;
+}
+
+/**
+ * The bundle, cached in node_modules/.cache under the tfjs-core version (bundling costs
+ * 0.2–2 s per process or worker; reading the cache ~1 ms). Written to a temporary name
+ * and renamed, so concurrent processes never read half a file; a read-only install just
+ * bundles every time.
+ */
+function cachedBundle(): string {
+  const corePackage = require.resolve('@tensorflow/tfjs-core/package.json');
+  const { version } = JSON.parse(readFileSync(corePackage, 'utf8')) as { version: string };
+  const cacheDir = join(dirname(corePackage), '..', '..', '.cache', 'crosswise');
+  const cacheFile = join(cacheDir, `tfjs-core-${version}-register-all-gradients.js`);
+  if (existsSync(cacheFile)) return readFileSync(cacheFile, 'utf8');
+  const text = bundleGradients();
+  try {
+    mkdirSync(cacheDir, { recursive: true });
+    const temporary = `${cacheFile}.${process.pid}.${threadId}.tmp`;
+    writeFileSync(temporary, text);
+    renameSync(temporary, cacheFile);
+  } catch {
+    // No writable cache: the bundle is still used, just rebuilt next time.
+  }
+  return text;
+}
+
+/**
+ * Registers tfjs-core's own gradient functions, which its Node entry leaves out.
+ *
+ * Why a bundle rather than the umbrella `@tensorflow/tfjs` package: the umbrella is not a
+ * dependency and would pull in layers, converter and data just to run one registration
+ * module; that module (`dist/register_all_gradients.js`) cannot be imported by Node
+ * directly because its ESM imports have no file extensions. esbuild (installed with tsx)
+ * bundles it into one script, which we run once. Built from the installed tfjs-core, it
+ * cannot drift from it the way a committed copy could, and it registers into the same
+ * engine because tfjs-core keeps its engine and registries on `globalThis` and
+ * recognises tensors from another copy of itself by their shape (`Symbol.hasInstance`).
+ */
+export function registerStockGradients(): void {
+  vm.runInThisContext(cachedBundle(), { filename: 'tfjs-core-register-all-gradients.js' });
 }
 
 /** Swaps the last two axes of a rank ≥ 2 tensor. */

@@ -20,9 +20,9 @@ export function orderedChannels(channels: readonly ChannelName[]): ChannelName[]
   return CHANNELS.filter((c) => channels.includes(c));
 }
 
-/** Total width of the given channels in a dataset. */
+/** Total width of the given channels (each counted once), as gatherChannels lays them out. */
 export function channelWidth(sizes: Readonly<Record<ChannelName, number>>, channels: readonly ChannelName[]): number {
-  return channels.reduce((sum, c) => sum + sizes[c], 0);
+  return orderedChannels(channels).reduce((sum, c) => sum + sizes[c], 0);
 }
 
 /**

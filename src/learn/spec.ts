@@ -52,7 +52,11 @@ export interface EpochLog {
   readonly trainLoss: number;
   readonly validationLoss: number;
   readonly seconds: number;
-  /** Mean update/true-gradient angle in degrees per weight layer; empty for backprop. */
+  /**
+   * Mean angle in degrees between the rule's weight-gradient signal and the true gradient,
+   * per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
+   * target encoder's; recorded every `alignEvery` steps. Empty for backprop.
+   */
   readonly alignmentDeg: readonly number[];
 }
 

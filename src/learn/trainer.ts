@@ -1,14 +1,14 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
-import { createRng, randomInt, type Rng } from '../random.js';
+import { createRng, type Rng } from '../random.js';
+import { disposeSplit, gatherBatch, permutation, uploadExamples, type SplitTensors } from './batches.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
-import { TrainingStatistics, type ExampleSet } from './examples.js';
+import { TrainingStatistics } from './examples.js';
 import { createExtractor } from './extractor.js';
-import type { Matrix } from './matrix.js';
 import { createTower, disposeTower, type Tower } from './network.js';
 import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
-import { allVariables, RULE_REGISTRY, towerOutputs, trueGradients, type Batch, type Rule } from './rules.js';
+import { allVariables, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
 
 /** Options of one training run. */
@@ -22,6 +22,8 @@ export interface TrainOptions {
 export interface TrainedLearner {
   readonly encoder: FeatureExtractor;
   readonly log: EpochLog[];
+  /** The epoch whose weights the encoder holds (lowest validation loss); 0 if never trained. */
+  readonly bestEpoch: number;
 }
 
 /** Every tower with its heads, for callers that need the objective's outputs (the caller disposes). */
@@ -30,45 +32,7 @@ export interface TrainedNetwork {
   readonly objective: Objective;
   readonly stats: TrainingStatistics;
   readonly log: EpochLog[];
-}
-
-/** Examples of one split uploaded once; batches are gathered from them by row index. */
-interface SplitTensors {
-  readonly n: number;
-  readonly inputs: tf.Tensor2D[];
-  readonly extra: tf.Tensor2D | null;
-  readonly target: tf.Tensor2D | null;
-}
-
-const upload = (m: Matrix): tf.Tensor2D => tf.tensor2d(m.data, [m.rows, m.cols]);
-
-function uploadExamples(e: ExampleSet): SplitTensors {
-  return {
-    n: e.n,
-    inputs: e.inputs.map(upload),
-    extra: e.extra == null ? null : upload(e.extra),
-    target: e.target == null ? null : upload(e.target),
-  };
-}
-
-function disposeSplit(s: SplitTensors): void {
-  tf.dispose([...s.inputs, ...(s.extra == null ? [] : [s.extra]), ...(s.target == null ? [] : [s.target])]);
-}
-
-function gatherBatch(s: SplitTensors, rows: Int32Array): Batch {
-  const index = tf.tensor1d(rows, 'int32');
-  const pick = (t: tf.Tensor2D): tf.Tensor2D => tf.gather(t, index);
-  return { inputs: s.inputs.map(pick), extra: s.extra == null ? null : pick(s.extra), target: s.target == null ? null : pick(s.target) };
-}
-
-/** A Fisher–Yates permutation of 0..n−1 (Knuth 1997, Algorithm P). */
-function permutation(n: number, rng: Rng): Int32Array {
-  const order = Int32Array.from({ length: n }, (_, i) => i);
-  for (let i = n - 1; i > 0; i--) {
-    const j = randomInt(rng, i + 1);
-    [order[i], order[j]] = [order[j], order[i]];
-  }
-  return order;
+  readonly bestEpoch: number;
 }
 
 /** InfoNCE needs at least one negative, so a contrast batch needs two rows. */
@@ -146,36 +110,20 @@ function makeOptimizer(spec: LearnerSpec): tf.Optimizer {
 const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 /**
- * Trains every tower of a learner's objective with its rule.
- *
- * Early stopping watches the validation loss; when training ends (patience exhausted or
- * the last epoch) the weights of the epoch with the lowest validation loss are restored,
- * so the representation is the one the log marks as best. A non-finite loss throws
- * LearnerDivergedError after freeing every tensor of the run.
+ * Epochs with early stopping on the validation loss: training stops once `patience`
+ * epochs in a row bring no lower validation loss (patience 0 acts like 1). When training
+ * ends the weights of the epoch with the lowest validation loss are restored, and that
+ * epoch is returned.
  */
-export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedNetwork> {
-  checkSpec(spec);
-  const objective = OBJECTIVE_REGISTRY[spec.objective](spec, data);
-  const stats = new TrainingStatistics(data, split.train);
-  const initRng = createRng(options.seed, 'init', spec.name);
-  const towers = objective.towers.map((shape) => createTower(shape, spec.encoder.activation, initRng));
-  const log: EpochLog[] = [];
-  if (objective.signal == null) return { towers, objective, stats, log };
-  const signal = objective.signal;
-  const rule = RULE_REGISTRY[spec.rule];
-  const feedback = rule.createFeedback(towers, createRng(options.seed, 'init', spec.name, 'feedback'));
-  const train = uploadExamples(signal.examples(stats, split.train));
-  const validation = uploadExamples(signal.examples(stats, split.validation));
-  const optimizer = makeOptimizer(spec);
+async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
+  const { spec, towers, signal } = ctx;
   const vars = allVariables(towers);
+  const validationOrder = permutation(validation.n, createRng(options.seed, 'shuffle', spec.name, 'validation'));
   let best: tf.Tensor[] = [];
+  let bestLoss = Infinity;
+  let bestEpoch = 0;
+  let sinceBest = 0;
   try {
-    if (train.n < minBatch(spec)) throw new Error(`learner '${spec.name}': the training split has ${train.n} usable rows`);
-    if (validation.n < minBatch(spec)) throw new Error(`learner '${spec.name}': the validation split has ${validation.n} usable rows`);
-    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: createRng(options.seed, 'shuffle', spec.name), step: 0 };
-    const validationOrder = permutation(validation.n, createRng(options.seed, 'shuffle', spec.name, 'validation'));
-    let bestLoss = Infinity;
-    let sinceBest = 0;
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
       const started = performance.now();
       const { loss, angles } = trainEpoch(ctx, train, epoch);
@@ -186,6 +134,7 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
       options.onEpoch?.(entry);
       if (validationLoss < bestLoss) {
         bestLoss = validationLoss;
+        bestEpoch = epoch;
         sinceBest = 0;
         tf.dispose(best);
         best = vars.map((v) => tf.clone(v));
@@ -195,24 +144,57 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
       await yieldToEventLoop();
     }
     if (best.length > 0) vars.forEach((v, i) => v.assign(best[i]));
+    return bestEpoch;
+  } finally {
+    tf.dispose(best);
+  }
+}
+
+/**
+ * Trains every tower of a learner's objective with its rule (see runEpochs for early
+ * stopping). A non-finite loss throws LearnerDivergedError after freeing every tensor of
+ * the run; so does any other failure.
+ */
+export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedNetwork> {
+  checkSpec(spec);
+  const objective = OBJECTIVE_REGISTRY[spec.objective](spec, data);
+  const stats = new TrainingStatistics(data, split.train);
+  const signal = objective.signal;
+  const examples = signal == null ? null : [signal.examples(stats, split.train), signal.examples(stats, split.validation)];
+  for (const [i, which] of ['training', 'validation'].entries()) {
+    const n = examples?.[i].n ?? Infinity;
+    if (n < minBatch(spec)) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
+  }
+  const initRng = createRng(options.seed, 'init', spec.name);
+  const towers = objective.towers.map((shape) => createTower(shape, spec.encoder.activation, initRng));
+  const log: EpochLog[] = [];
+  if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
+  const rule = RULE_REGISTRY[spec.rule];
+  const feedback = rule.createFeedback(towers, createRng(options.seed, 'init', spec.name, 'feedback'));
+  const [train, validation] = examples.map(uploadExamples);
+  const optimizer = makeOptimizer(spec);
+  let bestEpoch = 0;
+  try {
+    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: createRng(options.seed, 'shuffle', spec.name), step: 0 };
+    bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);
     throw error;
   } finally {
-    tf.dispose([...best, ...feedback.flat()]);
+    tf.dispose(feedback.flat());
     optimizer.dispose();
     disposeSplit(train);
     disposeSplit(validation);
   }
-  return { towers, objective, stats, log };
+  return { towers, objective, stats, log, bestEpoch };
 }
 
 /** Trains a learner and keeps only its frozen encoder (input tower without head). */
 export async function trainLearner(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedLearner> {
-  const { towers, stats, log } = await trainNetwork(spec, data, split, options);
+  const { towers, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
   const [first, ...others] = towers;
   others.forEach(disposeTower);
   if (first.head != null) tf.dispose([first.head.W, first.head.b]);
   const encoder = createExtractor(spec.input, data.channelSize, { ...first, head: null }, stats.channels(spec.input));
-  return { encoder, log };
+  return { encoder, log, bestEpoch };
 }

@@ -1,4 +1,4 @@
-import { mkdir } from 'node:fs/promises';
+import { mkdir, readdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { summarise } from '../stats/summarise.js';
 import { writeFileAtomic } from './atomic.js';
@@ -41,11 +41,20 @@ export async function buildReport(outDir: string): Promise<ReportFiles> {
     }
     ckaByCombo.set(combo.index, await learnerCka(run, combo, warnings));
   }
+  await removeStalePlots(outDir, plots);
   const summaryPath = join(outDir, 'summary.md');
   const comparisonsPath = join(outDir, 'comparisons.csv');
   await writeFileAtomic(comparisonsPath, formatComparisonsCsv(comparisons, run.varyKeys));
   await writeFileAtomic(summaryPath, summaryMarkdown({ run, combinations: combos, comparisons, learnerCka: ckaByCombo, plots, warnings }));
   return { summaryPath, comparisonsPath, plots: [...plots].map((p) => join(outDir, p)), warnings };
+}
+
+/** Removes plots an earlier report wrote that this one did not, so plots/ always matches summary.md. */
+async function removeStalePlots(outDir: string, written: ReadonlySet<string>): Promise<void> {
+  for (const name of await readdir(join(outDir, 'plots'))) {
+    const ours = /^(robustness_.+|training(_c\d+)?)\.svg$/.test(name);
+    if (ours && !written.has(`plots/${name}`)) await rm(join(outDir, 'plots', name), { force: true });
+  }
 }
 
 /** The robustness plots (one per target and noise) and the training plot of one combination. */

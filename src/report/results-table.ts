@@ -8,7 +8,6 @@ export const RESULTS_COLUMNS = [
 
 /** Metrics a results row may carry: probe scores (r2, accuracy), the chance level beside accuracy, and CKA ('-' target). */
 export const RESULT_METRICS = ['r2', 'accuracy', 'chance', 'cka'] as const;
-export type ResultMetric = (typeof RESULT_METRICS)[number];
 
 /**
  * One measurement: one row of results.csv. The same shape as the runner's rows (a

@@ -6,7 +6,7 @@ import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
 import type { CellRecord } from './load.js';
 import type { ResultRow } from './results-table.js';
-import { robustnessFigures, type CurvePoint } from './robustness.js';
+import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */
 export const FEW_SEEDS = 10;
@@ -34,17 +34,39 @@ export function comparisonTable(comparisons: readonly Comparison[]): string[] {
   ]));
 }
 
-/** Normalised area, drop from clean, CE and relative CE of each learner's mean curve. */
+/**
+ * Normalised area, drop from clean, CE and relative CE of each learner's mean curve
+ * (definitions in src/probe/robustness.ts), then one line naming why any figure is n/a.
+ */
 export function robustnessTable(rows: readonly ResultRow[], baseline: string | null): string[] {
   const levels = severities(rows);
   const curve = (learner: string): CurvePoint[] =>
     learnerSummaries(rows, learner, levels).map((s, i) => ({ severity: levels[i], score: s.mean }));
   const base = baseline != null && rows.some((r) => r.learner === baseline) ? curve(baseline) : null;
-  return table(['learner', 'normalised area', 'drop from clean', 'CE', 'relative CE'],
-    unique(rows.map((r) => r.learner)).map((l) => {
-      const f = robustnessFigures(curve(l), base);
-      return [l, num(f.normalisedArea), num(f.dropFromClean), num(f.ce), num(f.relativeCe)];
-    }));
+  const reasons: string[] = [];
+  const cell = (learner: string, name: string, figure: () => Figure): string => {
+    const f = guarded(figure);
+    if (f.reason != null) reasons.push(`${learner} ${name}: ${f.reason}`);
+    return num(f.value);
+  };
+  const body = unique(rows.map((r) => r.learner)).map((l) => {
+    const mine = curve(l);
+    return [l, cell(l, 'normalised area', () => normalisedArea(mine)), cell(l, 'drop', () => dropFromClean(mine)),
+      base == null ? 'n/a' : cell(l, 'CE', () => corruptionError(mine, base)),
+      base == null ? 'n/a' : cell(l, 'relative CE', () => relativeCorruptionError(mine, base))];
+  });
+  const lines = table(['learner', 'normalised area', 'drop from clean', 'CE', 'relative CE'], body);
+  if (reasons.length > 0) lines.push('', `n/a: ${reasons.join('; ')}.`);
+  return lines;
+}
+
+/** A figure, or an undefined one carrying the error message when its inputs do not fit together. */
+function guarded(figure: () => Figure): Figure {
+  try {
+    return figure();
+  } catch (error) {
+    return { value: NaN, reason: (error as Error).message };
+  }
 }
 
 /** One plain-English sentence on which learners differ reliably from the baseline under this noise. */

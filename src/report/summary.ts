@@ -31,8 +31,8 @@ export function summaryMarkdown(input: SummaryInput): string {
   }
   const failed = run.cells.filter((c) => c.status === 'failed');
   if (failed.length > 0) {
-    lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', 'reason'],
-      failed.map((c) => [c.id, c.learner, String(c.seed), c.reason || 'no reason recorded'])), '');
+    lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', ...run.varyKeys, 'reason'],
+      failed.map((c) => [c.id, c.learner, String(c.seed), ...run.varyKeys.map((k) => c.vary[k] ?? ''), c.reason || 'no reason recorded'])), '');
   }
   if (input.warnings.length > 0) lines.push('## Warnings', '', ...input.warnings.map((w) => `- ${w}`), '');
   return lines.join('\n');
@@ -87,9 +87,9 @@ function noiseSection(input: SummaryInput, combo: Combination, index: number | n
   }
   const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
   if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
-  lines.push('Robustness of the mean curves (Hendrycks & Dietterich 2019): normalised area is the average score over the severity range (trapezoid rule); '
-    + 'drop is the clean score minus the score at the highest severity; CE is the summed error 1 − score over noisy severities relative to the baseline\'s; '
-    + 'relative CE counts only the error added to each learner\'s own clean error.', '',
+  lines.push('Robustness of the mean curves: normalised area is the area under the curve over clean score × severity range (1 = noise costs nothing); '
+    + 'drop is the clean score minus the mean score over noisy severities; CE is the summed error 1 − score over noisy severities relative to the baseline\'s, '
+    + 'and relative CE counts only the error noise adds to each learner\'s own clean error (Hendrycks & Dietterich 2019).', '',
     ...robustnessTable(rows, baseline), '');
   if (baseline == null) return lines;
   const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target

@@ -50,10 +50,5 @@ export function dbToPower(levelDb: number): number {
   return 10 ** (levelDb / 10);
 }
 
-/** Level in dB of a power relative to the reference: 10·log10(P). */
-export function powerToDb(power: number): number {
-  return 10 * Math.log10(power);
-}
-
-/** The thud heard when the agent bumps: a low band at the ears, level chosen for the demo (common practice for a soft knock). */
+/** The thud heard at both ears when the agent bumps: a low band, level chosen to stand clear of a quiet room (invented). */
 export const THUD: SoundBand = { centreHz: 80, bandwidthOctaves: 1.5, levelDb: 60 };

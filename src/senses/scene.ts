@@ -21,10 +21,14 @@ export interface SensoryScene {
   readonly cellColour: Float32Array; // [cells, 3] what the eye sees at each cell
   readonly rays: readonly SightRays[]; // one per heading
   readonly light: Float32Array; // [depth, width]
-  /** Numbers per step of each channel, in CHANNELS order (registry.ts). */
+  /** Numbers per step of each channel (registry.ts). */
   readonly sizes: Readonly<Record<ChannelName, number>>;
   /** Per-cell sound tables, built on the agent's first visit to a cell (float32: 2.3 kB per cell for 6 emitters, 16 bands). */
   readonly soundCells: (Float32Array | undefined)[];
+  /** Scratch sum of powers [2, bands] for one step, reused so sensing allocates nothing. */
+  readonly power: Float64Array;
+  /** Per (cell, heading) the map cell seen at each sight-field cell or −1 (sight.ts), built on first use. */
+  readonly viewCells: (Int32Array | undefined)[];
 }
 
 function checkSettings(settings: SenseSettings): void {
@@ -66,6 +70,8 @@ export function createScene(world: World, settings: SenseSettings = DEFAULT_SENS
     cellColour: colours(world), rays: buildSightRays(width, depth), light: illumination(width, depth),
     sizes: { sight: channelSize('sight', settings), sound: channelSize('sound', settings), touch: channelSize('touch', settings), motor: channelSize('motor', settings) },
     soundCells: new Array(world.width * world.height),
+    viewCells: new Array(world.width * world.height * 4),
+    power: new Float64Array(2 * bands),
   };
 }
 

@@ -22,14 +22,26 @@ export function visibleCell(scene: SensoryScene, pose: Pose, k: number): number 
   return ty * world.width + tx;
 }
 
+/** The map cell seen at every sight-field cell from `pose` (−1 where dark), computed once per cell and heading. */
+export function viewFrom(scene: SensoryScene, pose: Pose): Int32Array {
+  const key = (pose.y * scene.world.width + pose.x) * 4 + HEADING_INDEX[pose.heading];
+  let view = scene.viewCells[key];
+  if (view == null) {
+    view = new Int32Array(scene.light.length);
+    for (let k = 0; k < view.length; k++) view[k] = visibleCell(scene, pose, k);
+    scene.viewCells[key] = view;
+  }
+  return view;
+}
+
 /**
  * Writes the sight field [depth, width, 3] at `out[at..]`: each visible cell's colour times
  * the lamp's illumination (sight-rays.ts); hidden and off-map cells are 0 (dark).
  */
 export function senseSight(scene: SensoryScene, pose: Pose, out: Float32Array, at: number): void {
-  const cells = scene.light.length;
-  for (let k = 0; k < cells; k++) {
-    const cell = visibleCell(scene, pose, k);
+  const view = viewFrom(scene, pose);
+  for (let k = 0; k < view.length; k++) {
+    const cell = view[k];
     const o = at + 3 * k;
     if (cell < 0) {
       out[o] = 0; out[o + 1] = 0; out[o + 2] = 0;

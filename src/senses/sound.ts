@@ -5,8 +5,12 @@ import { soundTableAt, type SensoryScene } from './scene.js';
 import { headingFrame } from './sight-rays.js';
 import { FAR_EAST_WEST, FAR_NORTH_SOUTH, NEAR } from './sound-table.js';
 
-function addBands(out: Float32Array, at: number, source: Float32Array, from: number, bands: number): void {
-  for (let b = 0; b < bands; b++) out[at + b] += source[from + b];
+/** Adds one source's band powers to both ears of `power` [2, bands]. */
+function addToEars(power: Float64Array, source: Float32Array, leftFrom: number, rightFrom: number, bands: number): void {
+  for (let b = 0; b < bands; b++) {
+    power[b] += source[leftFrom + b];
+    power[bands + b] += source[rightFrom + b];
+  }
 }
 
 /**
@@ -21,11 +25,9 @@ function addBands(out: Float32Array, at: number, source: Float32Array, from: num
 export function senseSound(
   scene: SensoryScene, pose: Pose, transition: Transition, stepIndex: number, out: Float32Array, at: number,
 ): void {
-  const { world, ambientPower } = scene;
+  const { world, power } = scene;
   const bands = scene.bandsHz.length;
-  const left = at;
-  const right = at + bands;
-  out.fill(ambientPower, at, at + 2 * bands);
+  power.fill(scene.ambientPower);
   const heading = HEADING_INDEX[pose.heading];
   const { rx, ry } = headingFrame(heading);
   const far = heading % 2 === 0 ? FAR_NORTH_SOUTH : FAR_EAST_WEST;
@@ -36,17 +38,12 @@ export function senseSound(
     if (!emitterIsOn(emitter, stepIndex)) continue;
     const lateral = (emitter.x - pose.x) * rx + (emitter.y - pose.y) * ry; // > 0: source on the right
     const base = e * 3 * bands;
-    addBands(out, left, table, base + (lateral > 0 ? far : NEAR) * bands, bands);
-    addBands(out, right, table, base + (lateral < 0 ? far : NEAR) * bands, bands);
+    addToEars(power, table, base + (lateral > 0 ? far : NEAR) * bands, base + (lateral < 0 ? far : NEAR) * bands, bands);
   }
   if (transition.moved) {
     const underfoot = world.material[cell] * bands;
-    addBands(out, left, scene.footstepPower, underfoot, bands);
-    addBands(out, right, scene.footstepPower, underfoot, bands);
+    addToEars(power, scene.footstepPower, underfoot, underfoot, bands);
   }
-  if (transition.bumped) {
-    addBands(out, left, scene.thudPower, 0, bands);
-    addBands(out, right, scene.thudPower, 0, bands);
-  }
-  for (let i = at; i < at + 2 * bands; i++) out[i] = 10 * Math.log10(out[i]);
+  if (transition.bumped) addToEars(power, scene.thudPower, 0, 0, bands);
+  for (let i = 0; i < 2 * bands; i++) out[at + i] = 10 * Math.log10(power[i]);
 }

@@ -12,7 +12,7 @@ export interface Summary {
   readonly ciHigh: number;
 }
 
-/** Mean of the finite values (NaN when there are none). */
+/** Arithmetic mean (NaN for no values). */
 export function mean(values: readonly number[]): number {
   let sum = 0;
   for (const v of values) sum += v;

@@ -1,5 +1,5 @@
 import { closest } from 'fastest-levenshtein';
-import { isMap, isScalar, isSeq, type Node as YamlNode, type YAMLMap } from 'yaml';
+import { isAlias, isMap, isScalar, isSeq, type Node as YamlNode, type YAMLMap } from 'yaml';
 import type { Problems } from './problems.js';
 
 /** The value nodes of a YAML mapping by key, after unknown and missing keys are reported. */
@@ -21,19 +21,27 @@ export function readFields(
     return null;
   }
   const values = new Map<string, YamlNode>();
+  const present = new Set<string>();
   for (const pair of (node as YAMLMap<YamlNode, YamlNode>).items) {
     const keyNode = pair.key;
     const key = isScalar(keyNode) ? String(keyNode.value) : '';
-    if (!allowed.includes(key)) {
+    if (allowed.includes(key)) present.add(key);
+    if (key === '<<') {
+      problems.report(keyNode, `merge keys ('<<') are not read in world files; write the keys of ${label} out`);
+    } else if (!allowed.includes(key)) {
       problems.report(keyNode, `unknown key '${key}' in ${label}; did you mean '${closest(key, allowed)}'?`);
+    } else if (isAlias(pair.value)) {
+      problems.report(pair.value, `'${key}' in ${label} is a YAML alias; world files do not read aliases, so write the value out`);
     } else if (values.has(key)) {
       problems.report(keyNode, `key '${key}' appears twice in ${label}`);
-    } else if (pair.value != null) {
+    } else if (pair.value == null || (isScalar(pair.value) && pair.value.value == null)) {
+      problems.report(keyNode, `'${key}' in ${label} has no value`);
+    } else {
       values.set(key, pair.value);
     }
   }
   for (const key of required) {
-    if (!values.has(key)) problems.report(node, `missing key '${key}' in ${label}`);
+    if (!present.has(key)) problems.report(node, `missing key '${key}' in ${label}`);
   }
   return { node, label, values };
 }

@@ -63,11 +63,14 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
 
   it('equal feedback alignment run with B = W (Lillicrap et al. 2016: FA only swaps Wᵀ for B)', async () => {
     await initBackend(backend);
-    const { tower, batch } = setup();
+    const { tower: unused, batch } = setup();
+    tf.dispose(towerVariables(unused));
+    const tower = createTower({ inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'sigmoid', createRng(4, 'test'));
     const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const feedback = [tower.encoder[1].W, tower.head!.W] as tf.Tensor2D[]; // [B_2, B_head] = [W_2, W_head]
     const [bp, fa] = tf.tidy(() => [
       trueGradients([tower], batch, loss).grads,
-      RULE_REGISTRY['feedback-alignment'].gradients([tower], [[tower.head!.W as tf.Tensor2D]], batch, loss).grads,
+      RULE_REGISTRY['feedback-alignment'].gradients([tower], [feedback], batch, loss).grads,
     ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync()))));
     expect(relativeError(fa, bp)).toBeLessThan(1e-6);
     tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);

@@ -3,7 +3,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { initBackend, LearnerDivergedError, trainLearner } from '../../src/learn/index.js';
 import { TrainingStatistics } from '../../src/learn/examples.js';
 import { heNormal } from '../../src/learn/init.js';
+import { meanSquaredError } from '../../src/learn/losses.js';
+import { disposeTower, forward } from '../../src/learn/network.js';
 import { OBJECTIVE_REGISTRY } from '../../src/learn/objectives.js';
+import { trainNetwork } from '../../src/learn/trainer.js';
 import { OBJECTIVES, RULES, type EpochLog } from '../../src/learn/spec.js';
 import { createRng } from '../../src/random.js';
 import { episodeSplit, learnerSpec, syntheticDataset } from './synthetic.js';
@@ -26,9 +29,11 @@ describe.each(OBJECTIVES.filter((o) => o !== 'untrained'))('objective %s', (obje
     // Hand-made data with a known structure (see synthetic.ts); the loss must fall by a
     // clear margin over 6 epochs (common practice: a working signal drops it by > 10 %).
     const spec = learnerSpec({ objective, rule, input: ['sight'], target: ['sound'], train: { epochs: 6 } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 1 });
     encoder.dispose();
     expect(log).toHaveLength(6);
+    const lowest = Math.min(...log.map((l) => l.validationLoss));
+    expect(log[bestEpoch - 1].validationLoss).toBe(lowest); // the restored weights are the best epoch's
     expect(log[5].trainLoss).toBeLessThan(0.9 * log[0].trainLoss);
     expect(log[5].alignmentDeg).toHaveLength(rule === 'backprop' ? 0 : (objective === 'contrast' ? 6 : 3));
   });
@@ -47,8 +52,9 @@ describe('predict at offset 1', () => {
 describe('untrained', () => {
   it('keeps the initial weights: features equal a hand-computed pass through He-normal draws from the seed', async () => {
     const spec = learnerSpec({ objective: 'untrained', encoder: { hidden: [5], activation: 'relu' } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 4 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 4 });
     expect(log).toHaveLength(0);
+    expect(bestEpoch).toBe(0);
     const { sight, n } = testInputs();
     const features = encoder.features({ sight }, n);
     encoder.dispose();
@@ -156,9 +162,10 @@ describe('early stopping', () => {
     // With a learning rate of 1e-20 no float32 weight can change, so the validation loss
     // repeats exactly: epoch 1 is best and epochs 2 and 3 exhaust a patience of 2.
     const spec = learnerSpec({ train: { optimizer: 'sgd', learningRate: 1e-20, epochs: 10, patience: 2 } });
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
+    const { encoder, log, bestEpoch } = await trainLearner(spec, data, split, { seed: 1 });
     encoder.dispose();
     expect(log.map((l) => l.epoch)).toEqual([1, 2, 3]);
+    expect(bestEpoch).toBe(1);
     expect(log[2].validationLoss).toBe(log[0].validationLoss);
   });
 });
@@ -175,5 +182,23 @@ describe('forecast examples', () => {
     rows.forEach((t, i) => {
       expect(Array.from(examples.extra!.data.subarray(i * 5, i * 5 + 5))).toEqual(Array.from(data.channels.motor.subarray((t + 1) * 5, (t + 2) * 5)));
     });
+  });
+});
+
+describe('restoring the best weights', () => {
+  it('leaves the network at the validation loss logged for the best epoch', async () => {
+    // A large step size makes the validation loss wander, so the best epoch is not the last.
+    const spec = learnerSpec({ train: { learningRate: 0.2, epochs: 8 } });
+    const net = await trainNetwork(spec, data, split, { seed: 2 });
+    expect(net.bestEpoch).toBeLessThan(net.log.length);
+    const examples = net.objective.signal!.examples(net.stats, split.validation);
+    const loss = tf.tidy(() => {
+      const x = tf.tensor2d(examples.inputs[0].data, [examples.n, examples.inputs[0].cols]);
+      const y = tf.tensor2d(examples.target!.data, [examples.n, examples.target!.cols]);
+      return meanSquaredError(forward(net.towers[0], x, null), y).dataSync()[0];
+    });
+    net.towers.forEach(disposeTower);
+    // Logged as a batch-size-weighted mean of float32 batch losses: equal to ~1e-6.
+    expect(loss).toBeCloseTo(net.log[net.bestEpoch - 1].validationLoss, 5);
   });
 });

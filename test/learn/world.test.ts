@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { collect, splitByEpisode } from '../../src/collect/index.js';
+import { collect } from '../../src/collect/collector.js';
+import { splitByEpisode } from '../../src/collect/split.js';
 import { initBackend, trainLearner } from '../../src/learn/index.js';
 import { OBJECTIVES } from '../../src/learn/spec.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
-import { loadWorld } from '../../src/world/index.js';
+import { loadWorld } from '../../src/world/parse.js';
 import { learnerSpec } from './synthetic.js';
 
 beforeAll(() => initBackend('wasm'));

@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { collect, splitByEpisode } from '../../src/collect/index.js';
+import { collect } from '../../src/collect/collector.js';
+import { splitByEpisode } from '../../src/collect/split.js';
 import { initBackend, trainLearner, type LearnerSpec } from '../../src/learn/index.js';
 import { evaluateEncoder, type EvaluationResult } from '../../src/probe/evaluate.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
-import { loadWorld } from '../../src/world/index.js';
+import { loadWorld } from '../../src/world/parse.js';
 
 // The end-to-end claims of the probe design on a shipped demo world, at small sizes:
 // a learner trained on the latents (an upper bound) must carry more of them than frozen

@@ -109,6 +109,16 @@ describe('plots (from the fixture test data)', () => {
     expect(svg.split('<g class="mark-area role-mark').length - 1).toBe(3);
   });
 
+  it('removes its own plots from an earlier report that this one no longer draws, and nothing else', async () => {
+    await writeFile(join(dir, 'plots', 'robustness_gone_sight_gaussian.svg'), '<svg/>');
+    await writeFile(join(dir, 'plots', 'my-notes.svg'), '<svg/>');
+    await buildReport(dir);
+    const names = await readdir(join(dir, 'plots'));
+    expect(names).not.toContain('robustness_gone_sight_gaussian.svg');
+    expect(names).toContain('my-notes.svg');
+    await rm(join(dir, 'plots', 'my-notes.svg'));
+  });
+
   it('writes the training curves and nothing half-written', async () => {
     expect((await readdir(join(dir, 'plots'))).sort()).toEqual([
       'robustness_wall_ahead_sight_gaussian.svg', 'robustness_x_sight_gaussian.svg', 'training.svg',

@@ -47,8 +47,8 @@ describe('Dashboard', () => {
       'elapsed 0s · eta 23s · 2 workers',
       'last failure: autoencoder seed 2 [c3]: loss became NaN',
       '',
-      'worker 1  sound-from-sight seed 2 [c2]    epoch 3   loss 0.1000  █▄▁',
-      'worker 2  autoencoder seed 3 [c4]         starting',
+      'worker 1  sound-from-sight seed 2 [c2]        epoch 3   loss 0.1000  █▄▁',
+      'worker 2  autoencoder seed 3 [c4]             starting',
       '',
       'wall_ahead (accuracy) · sight gaussian noise · mean ± 95% CI · 1 seed',
       'learner             sev 0     sev 3',
@@ -115,5 +115,25 @@ describe('Dashboard', () => {
     expect(events.listeners.size).toBe(1);
     app.unmount();
     expect(events.listeners.size).toBe(0);
+  });
+});
+
+describe('Dashboard at the end of a sweep', () => {
+  it('says how the sweep ended and clears the worker lines', async () => {
+    const events = source();
+    const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={6} name="demo" summarise={meanWithFixedHalfWidth} now={() => 5000} />);
+    await mounted(events);
+    for (const e of SWEEP) events.emit(e);
+    events.emit({ type: 'sweep-done', done: 2, failed: 1, seconds: 75, summary: '2 done, 1 failed', interrupted: true });
+    const frame = await waitFor(() => app.lastFrame() ?? '', 'stopped:');
+    expect(frame.split('\n').slice(0, 6)).toEqual([
+      'crosswise run · demo',
+      'cells 2/6 done · 1 failed · 0 running · 3 queued',
+      'took 1m15s · 2 workers',
+      'stopped: 2 done, 1 failed',
+      '',
+      'no cell running',
+    ]);
+    app.unmount();
   });
 });

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { exploreCommand, parseExploreArgs } from '../../src/commands/explore.js';
-import { checkWorldFile } from '../../src/world/index.js';
+import { checkWorldFile } from '../../src/world/parse.js';
 
 afterEach(() => { vi.restoreAllMocks(); });
 

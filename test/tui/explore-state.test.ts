@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { initialExploreState, reduceExplore, stepsToNextSwitch, type ExploreState } from '../../src/tui/explore/explore-state.js';
 import { BELL_AHEAD, bellRoom, plainRoom } from './worlds.js';
 
-const start = (): ExploreState => initialExploreState([{ path: 'a', world: bellRoom(BELL_AHEAD) }, { path: 'b', world: plainRoom() }], 7, true);
+const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD), plainRoom()], 7, true);
 const press = (state: ExploreState, ...keys: string[]) => keys.reduce(reduceExplore, state);
 
 describe('explore reducer: moving', () => {

@@ -6,7 +6,7 @@ import { exploreView } from '../../src/tui/explore/explore-view.js';
 import { noisySenses } from '../../src/tui/explore/noisy-senses.js';
 import { BELL_AHEAD, bellRoom } from './worlds.js';
 
-const start = (): ExploreState => initialExploreState([{ path: 'a', world: bellRoom(BELL_AHEAD) }], 7, true);
+const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD)], 7, true);
 const press = (state: ExploreState, ...keys: string[]) => keys.reduce(reduceExplore, state);
 
 /** 16 band centres equally spaced in mel from 100 Hz to 8 kHz, mel = 2595·log10(1 + f/700) (O'Shaughnessy 1987). */
@@ -95,10 +95,10 @@ describe('explore view: noise', () => {
 
   it('names the kind, severity and parameter of each channel', () => {
     expect(exploreView(press(start(), '+', '+', '+', 'n', 'k', 'k', 'k', '+')).noise).toEqual([
-      { text: 'sight  gaussian 3 σ 1', selected: false },
-      { text: 'sound  masking 1 SNR 20 dB', selected: true },
-      { text: 'touch  gaussian 0 clean', selected: false },
-      { text: 'motor  gaussian 0 clean', selected: false },
+      { text: 'sight gaussian 3 σ 1', selected: false },
+      { text: 'sound masking 1 SNR 20dB', selected: true },
+      { text: 'touch gaussian 0 clean', selected: false },
+      { text: 'motor gaussian 0 clean', selected: false },
     ]);
   });
 });

@@ -1,5 +1,5 @@
-import { parseWorld } from '../../src/world/index.js';
-import type { World } from '../../src/world/index.js';
+import { parseWorld } from '../../src/world/parse.js';
+import type { World } from '../../src/world/types.js';
 
 /**
  * A hand-made world for the explorer's tests: 1 m cells, a 20 dB floor, one grey wall

@@ -126,6 +126,16 @@ describe('world file errors: each names path:line:col and a reason', () => {
     expect(p).toBe("w.yaml:7:27: emitter 'clock' (glyph 'C') does not appear in the map");
   });
 
+  it('reports a YAML alias, which world files do not read, at the alias', () => {
+    const text = variant(5, '  - { name: boards, glyph: ".", colour: *c }').replace('colour: [0.4, 0.3, 0.2]', 'colour: &c [0.4, 0.3, 0.2]');
+    const [p] = problemsOf(text);
+    expect(p).toBe("w.yaml:5:41: 'colour' in material 2 is a YAML alias; world files do not read aliases, so write the value out");
+  });
+
+  it('reports a key with no value', () => {
+    expect(problemsOf(variant(2, 'cell_size_m:'))).toEqual(["w.yaml:2:1: 'cell_size_m' in the world has no value"]);
+  });
+
   it('reports YAML syntax errors with their position', () => {
     const [p] = problemsOf(variant(2, 'cell_size_m: [0.5'));
     expect(p).toMatch(/^w\.yaml:\d+:\d+: YAML syntax: /);

@@ -8,11 +8,11 @@ export function WorkerList({ workers }: { readonly workers: readonly WorkerText[
     <Box flexDirection="column">
       {workers.map((w) => (
         <Box key={w.worker}>
-          <Box width={10}><Text>{w.worker}</Text></Box>
-          <Box width={32}><Text wrap="truncate-end">{w.cell}</Text></Box>
-          <Box width={10}><Text>{w.epoch}</Text></Box>
-          <Box width={13}><Text>{w.loss}</Text></Box>
-          <Text>{w.trend}</Text>
+          <Box width={10} flexShrink={0}><Text>{w.worker}</Text></Box>
+          <Box width={35} flexShrink={0} marginRight={1}><Text wrap="truncate-end">{w.cell}</Text></Box>
+          <Box width={10} flexShrink={0}><Text>{w.epoch}</Text></Box>
+          <Box width={13} flexShrink={0}><Text>{w.loss}</Text></Box>
+          <Text wrap="truncate-end">{w.trend}</Text>
         </Box>
       ))}
     </Box>

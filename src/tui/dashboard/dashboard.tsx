@@ -52,8 +52,7 @@ export function Dashboard(props: DashboardProps) {
       <WorkerList workers={workerTexts(state)} />
       <Text> </Text>
       <ResultsTable table={tableText(state, view, noise, props.summarise)} />
-      <Text> </Text>
-      <HelpLine keys={KEYS} />
+      {state.finished == null ? <Box marginTop={1}><HelpLine keys={KEYS} /></Box> : null}
     </Box>
   );
 }

@@ -35,7 +35,7 @@ export interface TableText {
   readonly rows: readonly { readonly label: string; readonly cells: readonly string[] }[];
 }
 
-const SPARK_WIDTH = 16;
+const SPARK_WIDTH = 10;
 
 /** Cells still waiting for a worker. */
 export function queuedCells(state: RunState): number {
@@ -58,9 +58,10 @@ export function progressText(state: RunState, nowMs: number, stopping: boolean):
   const earlier = state.skipped > 0 ? ` (${state.skipped} stored earlier)` : '';
   const counts = `cells ${state.done + state.skipped}/${state.total} done${earlier} · ${state.failed} failed · `
     + `${state.workers.length} running · ${queuedCells(state)} queued`;
-  const elapsed = state.finished == null ? (nowMs - state.startedMs) / 1000 : state.finished.seconds;
-  const eta = state.finished == null ? formatDuration(etaSeconds(state, nowMs)) : '0s';
-  const timing = `elapsed ${formatDuration(elapsed)} · eta ${eta} · ${state.jobs} worker${state.jobs === 1 ? '' : 's'}`;
+  const workers = `${state.jobs} worker${state.jobs === 1 ? '' : 's'}`;
+  const timing = state.finished == null
+    ? `elapsed ${formatDuration((nowMs - state.startedMs) / 1000)} · eta ${formatDuration(etaSeconds(state, nowMs))} · ${workers}`
+    : `took ${formatDuration(state.finished.seconds)} · ${workers}`;
   return { title: `crosswise run · ${state.name}`, counts, timing, note: noteText(state, stopping) };
 }
 

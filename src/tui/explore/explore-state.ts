@@ -2,13 +2,9 @@ import { NOISE_CHANNELS } from '../../noise/corrupt.js';
 import { MAX_SEVERITY } from '../../noise/severity.js';
 import { NOISE_KINDS, type NoiseKind } from '../../noise/spec.js';
 import { CHANNELS, type ChannelName } from '../../senses/channel.js';
-import { emitterIsOn, step, type Action, type Pose, type Transition, type World } from '../../world/index.js';
-
-/** A world the explorer can switch to, with the file it came from. */
-export interface ExploreWorld {
-  readonly path: string;
-  readonly world: World;
-}
+import { emitterIsOn } from '../../world/emitter.js';
+import { step } from '../../world/movement.js';
+import { type Action, type Pose, type Transition, type World } from '../../world/types.js';
 
 /** The corruption applied to one channel on screen. */
 export interface ChannelNoise {
@@ -19,7 +15,7 @@ export interface ChannelNoise {
 
 /** Everything the explore screen shows is derived from this. */
 export interface ExploreState {
-  readonly worlds: readonly ExploreWorld[];
+  readonly worlds: readonly World[];
   readonly worldIndex: number;
   readonly seed: number;
   readonly pose: Pose;
@@ -49,12 +45,12 @@ export function startPose(world: World): Pose {
 }
 
 function entered(state: Omit<ExploreState, 'pose' | 'stepIndex' | 'action' | 'transition'>, worldIndex: number): ExploreState {
-  const pose = startPose(state.worlds[worldIndex].world);
+  const pose = startPose(state.worlds[worldIndex]);
   return { ...state, worldIndex, pose, stepIndex: 0, action: 'stay', transition: { pose, moved: false, bumped: false } };
 }
 
 /** The first state: the first world at its start pose, clock at 0, every channel clean. */
-export function initialExploreState(worlds: readonly ExploreWorld[], seed: number, colour: boolean): ExploreState {
+export function initialExploreState(worlds: readonly World[], seed: number, colour: boolean): ExploreState {
   if (worlds.length === 0) throw new Error('explore needs at least one world');
   const noise = Object.fromEntries(CHANNELS.map((c) => [c, CLEAN])) as Record<ChannelName, ChannelNoise>;
   return entered({ worlds, seed, noise, noiseChannel: 'sight', colour, help: false, latents: false, quit: false, worldIndex: 0 }, 0);
@@ -68,12 +64,18 @@ const MOVES: Readonly<Record<string, Action>> = {
   ' ': 'stay', '.': 'stay',
 };
 
+/** The keys as the help line lists them; `reduceExplore` is their meaning. */
+export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
+  ['↑↓←→/wasd', 'move'], ['.', 'stay'], ['t', 'clock'], ['n k + -', 'noise'],
+  ['g', 'world'], ['c', 'colour'], ['l', 'truth'], ['?', 'help'], ['q', 'quit'],
+];
+
 /** The state after one key; keys it does not know leave the state unchanged. */
 export function reduceExplore(state: ExploreState, key: ExploreKey): ExploreState {
   const action = MOVES[key];
   if (action != null) return acted(state, action, 1);
   switch (key) {
-    case 't': return acted(state, 'stay', stepsToNextSwitch(state.worlds[state.worldIndex].world, state.stepIndex));
+    case 't': return acted(state, 'stay', stepsToNextSwitch(state.worlds[state.worldIndex], state.stepIndex));
     case 'n': return { ...state, noiseChannel: CHANNELS[(CHANNELS.indexOf(state.noiseChannel) + 1) % CHANNELS.length] };
     case 'k': return withNoise(state, { kind: nextKind(state.noiseChannel, state.noise[state.noiseChannel].kind) });
     case '+': case '=': return withNoise(state, { severity: Math.min(MAX_SEVERITY, state.noise[state.noiseChannel].severity + 1) });
@@ -88,7 +90,7 @@ export function reduceExplore(state: ExploreState, key: ExploreKey): ExploreStat
 }
 
 function acted(state: ExploreState, action: Action, clockSteps: number): ExploreState {
-  const transition = step(state.worlds[state.worldIndex].world, state.pose, action);
+  const transition = step(state.worlds[state.worldIndex], state.pose, action);
   return { ...state, pose: transition.pose, action, transition, stepIndex: state.stepIndex + clockSteps };
 }
 

@@ -1,8 +1,12 @@
 import { latentsAt } from '../../collect/latents.js';
 import { severityParameter } from '../../noise/severity.js';
-import { bandCentresHz, CHANNELS, DEFAULT_SENSE_SETTINGS, sceneFor, TOUCH_NAMES } from '../../senses/index.js';
+import { bandCentresHz } from '../../senses/mel.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS } from '../../senses/channel.js';
+import { sceneFor } from '../../senses/scene.js';
+import { TOUCH_NAMES } from '../../senses/touch.js';
 import { visibleCell } from '../../senses/sight.js';
-import { ACTIONS, emitterIsOn, HEADINGS, type Heading, type World } from '../../world/index.js';
+import { ACTIONS, HEADINGS, type Heading, type World } from '../../world/types.js';
+import { emitterIsOn } from '../../world/emitter.js';
 import type { LabelledBar } from '../components/bar-list.js';
 import type { MapCell } from '../components/map-panel.js';
 import type { SightBlock } from '../components/sight-panel.js';
@@ -32,7 +36,7 @@ const DB_SPAN = 60;
 
 /** The explore screen's content for a state. */
 export function exploreView(state: ExploreState): ExploreView {
-  const { world } = state.worlds[state.worldIndex];
+  const world = state.worlds[state.worldIndex];
   const senses = noisySenses(state);
   const { pose, transition } = state;
   const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : 'stayed';
@@ -46,7 +50,7 @@ export function exploreView(state: ExploreState): ExploreView {
     sound: soundProps(senses.sound, world),
     touch: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), senses.touch[i])),
     motor: ACTIONS.map((action, i) => bar(action, senses.motor[i])),
-    noise: CHANNELS.map((c) => ({ text: `${c.padEnd(6)} ${noiseText(state.noise[c])}`, selected: c === state.noiseChannel })),
+    noise: CHANNELS.map((c) => ({ text: `${c.padEnd(5)} ${noiseText(state.noise[c])}`, selected: c === state.noiseChannel })),
     truth: state.latents ? truthLines(state, world) : null,
     help: state.help,
   };
@@ -59,13 +63,15 @@ function bar(label: string, value: number): LabelledBar {
 function touchLabel(name: string): string {
   const footfall = /^footfall_(\d+)$/.exec(name);
   if (footfall != null) return `footfall ${Number(footfall[1]) + 1}`;
-  return name === 'bump_force' ? 'bump' : name.replace('_', ' ');
+  const whisker = /^whisker_(\w)/.exec(name);
+  if (whisker != null) return `whisker ${whisker[1].toUpperCase()}`;
+  return name === 'bump_force' ? 'bump' : name;
 }
 
 function noiseText(noise: ChannelNoise): string {
   if (noise.severity === 0) return `${noise.kind} 0 clean`;
   const p = severityParameter(noise.kind, noise.severity);
-  const detail = { gaussian: `σ ${p}`, dropout: `p ${p}`, blackout: `p ${p}`, masking: `SNR ${p} dB` }[noise.kind];
+  const detail = { gaussian: `σ ${p}`, dropout: `p ${p}`, blackout: `p ${p}`, masking: `SNR ${p}dB` }[noise.kind];
   return `${noise.kind} ${noise.severity} ${detail}`;
 }
 

@@ -2,8 +2,10 @@ import { corruptChannel } from '../../noise/corrupt.js';
 import { channelReference, type ChannelReference } from '../../noise/reference.js';
 import { severityParameter } from '../../noise/severity.js';
 import { createRng } from '../../random.js';
-import { CHANNELS, DEFAULT_SENSE_SETTINGS, senseAll, type ChannelName } from '../../senses/index.js';
-import { HEADINGS, step, type World } from '../../world/index.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../../senses/channel.js';
+import { senseAll } from '../../senses/sense-all.js';
+import { HEADINGS, type World } from '../../world/types.js';
+import { step } from '../../world/movement.js';
 import type { ExploreState } from './explore-state.js';
 
 type Channels = Record<ChannelName, Float32Array>;
@@ -43,7 +45,7 @@ export function referenceFor(world: World): Record<ChannelName, ChannelReference
  * Draws come from the seed, world, clock and channel, so a redraw shows the same noise.
  */
 export function noisySenses(state: ExploreState): Channels {
-  const { world } = state.worlds[state.worldIndex];
+  const world = state.worlds[state.worldIndex];
   const clean = senseAll(world, state.pose, state.transition, state.action, state.stepIndex, DEFAULT_SENSE_SETTINGS);
   const out = { ...clean };
   for (const channel of CHANNELS) {

@@ -36,21 +36,28 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
     const loaded = loadSweepFrom(config, values.out);
     const sweep = backend == null ? loaded : { ...loaded, backend };
     const controller = new AbortController();
-    const stop = () => controller.abort();
+    const abandon = new AbortController();
+    // The first Ctrl-C lets running cells finish; a second one abandons them (nothing half-written either way).
+    const stop = () => {
+      if (controller.signal.aborted) abandon.abort();
+      else if (dashboard == null) console.log('stopping: running cells finish first (Ctrl-C again to abandon them)');
+      controller.abort();
+    };
     const listeners = new Set<RunListener>();
     const useDashboard = values.plain !== true && process.stdout.isTTY && parts.dashboard != null;
     const dashboard = useDashboard
       ? parts.dashboard?.({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
       : undefined;
     if (dashboard == null) listeners.add(plainLogger((line) => console.log(line)));
-    process.once('SIGINT', stop);
-    process.once('SIGTERM', stop);
+    process.on('SIGINT', stop);
+    process.on('SIGTERM', stop);
     try {
       const outcome = await runSweep(sweep, {
         jobs,
         workModule: parts.workModule ?? PIPELINE_MODULE,
         listeners: [(event: RunEvent) => listeners.forEach((listener) => listener(event))],
         signal: controller.signal,
+        abandon: abandon.signal,
         report: buildSummary,
       });
       await dashboard?.waitUntilExit();

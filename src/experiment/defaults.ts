@@ -1,9 +1,8 @@
 import type { LatentName } from '../collect/dataset.js';
+import type { PolicyName } from '../collect/policies.js';
 import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
-export const POLICIES = ['wander', 'uniform', 'seek'] as const;
-export type PolicyName = (typeof POLICIES)[number];
 
 /** How the agent gathers experience for one seed. */
 export interface CollectSettings {

@@ -16,30 +16,32 @@ export interface PoolOptions {
   readonly jobs: number;
   /** URL of the module exporting `cellWork`. */
   readonly workModule: string;
-  /** Stops the pool: running cells are abandoned and nothing more starts. */
+  /** Stops the pool gently: nothing more starts, running cells finish. */
   readonly signal?: AbortSignal;
+  /** Stops the pool at once: running cells are abandoned (their threads terminated). */
+  readonly abandon?: AbortSignal;
 }
 
 const WORKER_ENTRY = new URL('./worker.ts', import.meta.url).href;
 
 /**
  * Runs cells in index order on up to `jobs` worker threads, one cell per thread at a time;
- * resolves when every cell has finished or the signal aborted the pool.
+ * resolves when every started cell has finished (or was abandoned) and nothing is left to start.
  */
 export async function runOnPool(cells: readonly PlannedCell[], options: PoolOptions, callbacks: PoolCallbacks): Promise<void> {
   const queue = [...cells];
   const threads = Math.max(1, Math.min(options.jobs, queue.length));
   const workers: Worker[] = [];
-  const stopped = new Promise<void>((resolve) => {
-    if (options.signal?.aborted === true) resolve();
-    options.signal?.addEventListener('abort', () => resolve(), { once: true });
+  const abandoned = new Promise<void>((resolve) => {
+    if (options.abandon?.aborted === true) resolve();
+    options.abandon?.addEventListener('abort', () => resolve(), { once: true });
   });
   const slot = async (worker: number): Promise<void> => {
     let thread: Worker | undefined;
-    for (let cell = queue.shift(); cell != null && options.signal?.aborted !== true; cell = queue.shift()) {
+    for (let cell = queue.shift(); cell != null && options.signal?.aborted !== true && options.abandon?.aborted !== true; cell = queue.shift()) {
       thread ??= startWorker(options.workModule, workers);
       callbacks.onStart(cell, worker);
-      const result = await Promise.race([runCell(thread, cell, worker, callbacks), stopped.then(() => undefined)]);
+      const result = await Promise.race([runCell(thread, cell, worker, callbacks), abandoned.then(() => undefined)]);
       if (result == null) return;
       if (result.crashed) thread = undefined;
       callbacks.onFinish(cell, worker, result.result);
@@ -57,6 +59,8 @@ function startWorker(workModule: string, workers: Worker[]): Worker {
   const tsx = import.meta.resolve('tsx/esm/api');
   const code = `import(${JSON.stringify(tsx)}).then((api) => { api.register(); return import(${JSON.stringify(WORKER_ENTRY)}); });`;
   const thread = new Worker(code, { eval: true, workerData: { workModule } });
+  // A thread that dies between cells is replaced when its next cell fails; never crash the sweep over it.
+  thread.on('error', () => undefined);
   workers.push(thread);
   return thread;
 }

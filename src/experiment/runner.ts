@@ -14,8 +14,10 @@ export interface RunOptions {
   /** URL of the module exporting `cellWork` (PIPELINE_MODULE in production). */
   readonly workModule: string;
   readonly listeners: readonly RunListener[];
-  /** Aborting stops the sweep: running cells are abandoned unwritten, finished ones stay. */
+  /** Aborting stops the sweep gently: no cell starts any more, running cells finish and are stored. */
   readonly signal?: AbortSignal;
+  /** Aborting stops the sweep at once: running cells are abandoned unwritten; finished ones stay. */
+  readonly abandon?: AbortSignal;
   /** Builds the report from the stored results and returns a line saying where its summary is. */
   readonly report?: (out: string) => Promise<string>;
 }
@@ -38,21 +40,26 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   const cells = prepareOutput(sweep);
   const pending = cells.filter((cell) => !isFinished(sweep.out, cell.id));
   emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
+  const phases = { collect: 0, train: 0, probe: 0 };
   await runOnPool(pending, options, {
     onStart: (cell, worker) => emit({ type: 'cell-start', cell: cellLabel(cell), worker }),
     onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
     onFinish: (cell, worker, result) => {
-      if (options.signal?.aborted === true) return;
+      if (options.abandon?.aborted === true) return;
       storeCell(sweep.out, cell, result, sweep.varyKeys);
+      if (result.status === 'done') for (const phase of ['collect', 'train', 'probe'] as const) phases[phase] += result.outcome.seconds[phase];
       emit(result.status === 'done'
         ? { type: 'cell-done', cell: cellLabel(cell), worker, seconds: result.totalSeconds, scores: result.outcome.rows }
         : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason });
     },
   });
-  const interrupted = options.signal?.aborted === true;
+  const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
   const outcome = countCells(sweep.out, cells, interrupted);
   writeFileAtomic(join(sweep.out, 'results.csv'), collectResults(sweep.out, cells, sweep.varyKeys));
-  const summary = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${join(sweep.out, 'results.csv')}`;
+  const reportStarted = performance.now();
+  const where = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${join(sweep.out, 'results.csv')}`;
+  const reportSeconds = (performance.now() - reportStarted) / 1000;
+  const summary = `${where}; time in cells run now: collect ${phases.collect.toFixed(1)} s, train ${phases.train.toFixed(1)} s, probe ${phases.probe.toFixed(1)} s (summed over workers); report ${reportSeconds.toFixed(1)} s`;
   emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
   return outcome;
 }

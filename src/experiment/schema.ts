@@ -3,7 +3,8 @@ import { LATENT_NAMES } from '../collect/dataset.js';
 import { ACTIVATIONS, BACKENDS, OBJECTIVES, OPTIMIZERS, RULES } from '../learn/spec.js';
 import { NOISE_KINDS } from '../noise/spec.js';
 import { CHANNELS } from '../senses/channel.js';
-import { DEFAULTS, POLICIES } from './defaults.js';
+import { POLICY_NAMES } from '../collect/policies.js';
+import { DEFAULTS } from './defaults.js';
 
 // Keys are the snake_case spelling of the camelCase settings in defaults.ts; every
 // default comes from DEFAULTS so the two never drift apart.
@@ -56,7 +57,7 @@ export const configSchema = z.strictObject({
   seeds: z.array(int(0, 2 ** 31 - 1)).min(1).default([...d.seeds]),
   backend: z.enum(BACKENDS).default(d.backend),
   collect: z.strictObject({
-    policy: z.enum(POLICIES).default(d.collect.policy),
+    policy: z.enum(POLICY_NAMES).default(d.collect.policy),
     steps: int(100, 10_000_000).default(d.collect.steps),
     episode_steps: int(2, 1_000_000).default(d.collect.episodeSteps),
     split: z.strictObject({

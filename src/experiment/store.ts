@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { hostname } from 'node:os';
 import { dirname, join } from 'node:path';
 import type { EpochLog } from '../learn/spec.js';
 import type { CellOutcome } from './cell-work.js';
@@ -78,7 +79,7 @@ export function storeCell(out: string, cell: PlannedCell, result: CellResult, va
 }
 
 function commitFolder(target: string, files: Readonly<Record<string, string | Uint8Array>>): void {
-  const temporary = join(dirname(target), `.partial-${randomUUID()}`);
+  const temporary = join(dirname(target), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
   mkdirSync(temporary, { recursive: true });
   for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
   try {
@@ -90,12 +91,28 @@ function commitFolder(target: string, files: Readonly<Record<string, string | Ui
   }
 }
 
-/** Removes temporary folders a killed run left behind. */
+// Temporary cell folders are named .partial-<host>-<pid>-<uuid>, so a cleanup only
+// touches those of dead processes on this machine, never those of a running task.
+const PARTIAL = '.partial-';
+
+/** Removes temporary folders that killed processes on this machine left behind. */
 export function removePartialCells(out: string): void {
   const cells = join(out, 'cells');
   if (!existsSync(cells)) return;
+  const mine = `${PARTIAL}${hostname()}-`;
   for (const entry of readdirSync(cells)) {
-    if (entry.startsWith('.partial-')) rmSync(join(cells, entry), { recursive: true, force: true });
+    if (!entry.startsWith(mine)) continue;
+    const pid = Number(entry.slice(mine.length).split('-')[0]);
+    if (!isAlive(pid)) rmSync(join(cells, entry), { recursive: true, force: true });
+  }
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0); // signal 0 only checks that the process exists
+    return true;
+  } catch (error) {
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
   }
 }
 

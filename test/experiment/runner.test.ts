@@ -102,7 +102,7 @@ describe('crosswise run (with a test double for the cell work)', () => {
     expect(readFileSync(join(killed, 'out', 'results.csv'), 'utf8')).toBe(readFileSync(join(one, 'out', 'results.csv'), 'utf8'));
   });
 
-  it('stops on Ctrl-C without half-written cells and says how to resume', async () => {
+  it('stops on Ctrl-C, letting running cells finish, and says how to resume', async () => {
     const dir = configFolder(CONFIG);
     const config = join(dir, 'config.yaml');
     let child: { kill: (signal: NodeJS.Signals) => void } | undefined;
@@ -115,6 +115,9 @@ describe('crosswise run (with a test double for the cell work)', () => {
     const names = cellFolders(join(dir, 'out'));
     expect(names.every((name) => existsSync(join(dir, 'out', 'cells', name, 'cell.json')))).toBe(true);
     expect(names.length).toBeLessThan(8);
+    // The first Ctrl-C lets the cells already running finish: each stored cell was announced done.
+    expect(stopped.stdout).toContain('stopping: running cells finish first (Ctrl-C again to abandon them)');
+    expect(stopped.stdout.split('\n').filter((line) => line.includes('] done ')).length).toBe(names.length);
   });
 });
 

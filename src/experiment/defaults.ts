@@ -3,7 +3,6 @@ import type { PolicyName } from '../collect/policies.js';
 import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
-
 /** How the agent gathers experience for one seed. */
 export interface CollectSettings {
   readonly policy: PolicyName;

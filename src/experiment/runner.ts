@@ -6,7 +6,8 @@ import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
 import { collectResults } from './results.js';
-import { isFinished, readCellRecord, removePartialCells, storeCell, writeFileAtomic } from './store.js';
+import { writeFileAtomic } from '../report/atomic.js';
+import { isFinished, readCellRecord, removePartialCells, storeCell } from './store.js';
 
 /** How to run a sweep. */
 export interface RunOptions {

@@ -116,14 +116,6 @@ function isAlive(pid: number): boolean {
   }
 }
 
-/** Writes a whole file under a temporary name, then renames it into place. */
-export function writeFileAtomic(path: string, content: string): void {
-  mkdirSync(dirname(path), { recursive: true });
-  const temporary = `${path}.partial-${randomUUID()}`;
-  writeFileSync(temporary, content);
-  renameSync(temporary, path);
-}
-
 /** train.csv: one line per epoch, with one alignment column per weight layer when recorded. */
 export function trainCsv(log: readonly EpochLog[]): string {
   const layers = Math.max(0, ...log.map((entry) => entry.alignmentDeg.length));

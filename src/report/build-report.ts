@@ -36,7 +36,7 @@ export async function buildReport(outDir: string): Promise<ReportFiles> {
   for (const combo of combos) {
     const index = run.varyKeys.length > 0 ? combo.index : null;
     for (const [path, svg] of await comboPlots(run, combo, index, learners)) {
-      await writeFileAtomic(join(outDir, path), svg);
+      writeFileAtomic(join(outDir, path), svg);
       plots.add(path);
     }
     ckaByCombo.set(combo.index, await learnerCka(run, combo, warnings));
@@ -44,8 +44,8 @@ export async function buildReport(outDir: string): Promise<ReportFiles> {
   await removeStalePlots(outDir, plots);
   const summaryPath = join(outDir, 'summary.md');
   const comparisonsPath = join(outDir, 'comparisons.csv');
-  await writeFileAtomic(comparisonsPath, formatComparisonsCsv(comparisons, run.varyKeys));
-  await writeFileAtomic(summaryPath, summaryMarkdown({ run, combinations: combos, comparisons, learnerCka: ckaByCombo, plots, warnings }));
+  writeFileAtomic(comparisonsPath, formatComparisonsCsv(comparisons, run.varyKeys));
+  writeFileAtomic(summaryPath, summaryMarkdown({ run, combinations: combos, comparisons, learnerCka: ckaByCombo, plots, warnings }));
   return { summaryPath, comparisonsPath, plots: [...plots].map((p) => join(outDir, p)), warnings };
 }
 

@@ -1,5 +1,4 @@
 import { readFile } from 'node:fs/promises';
-import { writeFileAtomic } from './atomic.js';
 
 /** A float32 array with its shape, as stored in a .npy file. */
 export interface NpyArray {
@@ -61,11 +60,6 @@ export function decodeNpy(bytes: Uint8Array, fileName = 'array.npy'): NpyArray {
   const data = new Float32Array(count);
   for (let i = 0; i < count; i++) data[i] = dv.getFloat32(dataStart + i * 4, true);
   return { data, shape };
-}
-
-/** Writes a float32 array to a .npy file atomically (temporary name, then rename). */
-export async function writeNpy(path: string, data: Float32Array, shape: readonly number[]): Promise<void> {
-  await writeFileAtomic(path, encodeNpy(data, shape));
 }
 
 /** Reads a float32 .npy file. */

@@ -2,7 +2,8 @@ import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { decodeNpy, encodeNpy, readNpy, writeNpy } from '../../src/report/npy.js';
+import { writeFileAtomic } from '../../src/report/atomic.js';
+import { decodeNpy, encodeNpy, readNpy } from '../../src/report/npy.js';
 
 const ascii = (bytes: Uint8Array): string => String.fromCharCode(...bytes);
 const hex = (bytes: Uint8Array): string => Buffer.from(bytes).toString('hex');
@@ -50,14 +51,14 @@ describe('decodeNpy', () => {
   });
 });
 
-describe('writeNpy / readNpy', () => {
+describe('writeFileAtomic + readNpy', () => {
   let dir = '';
   afterEach(async () => { if (dir !== '') await rm(dir, { recursive: true, force: true }); });
 
   it('writes a file that reads back identically and leaves no temporary file', async () => {
     dir = await mkdtemp(join(tmpdir(), 'npy-'));
     const path = join(dir, 'features.npy');
-    await writeNpy(path, new Float32Array([1, 2, 3, 4]), [2, 2]);
+    writeFileAtomic(path, encodeNpy(new Float32Array([1, 2, 3, 4]), [2, 2]));
     expect((await readNpy(path)).shape).toEqual([2, 2]);
     expect((await readFile(path)).length).toBe(128 + 16);
     expect(await readdir(dir)).toEqual(['features.npy']);

@@ -1,5 +1,5 @@
-import { execFile } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { execFile, spawn } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -46,5 +46,28 @@ describe('the production cell pipeline', () => {
     expect(latents.shape).toEqual([800, 12]);
     const record = JSON.parse(readFileSync(join(dir, 'sweep', 'cells', id, 'cell.json'), 'utf8')) as { versions: Record<string, string> };
     expect(record.versions.tfjs).toBe('4.22.0');
+  });
+
+  it('resumes a SIGKILLed sweep with --jobs 1 to the same results.csv as an uninterrupted --jobs 2 run', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'crosswise-resume-'));
+    writeFileSync(join(dir, 'config.yaml'), CONFIG);
+    const config = join(dir, 'config.yaml');
+    const whole = crosswise('run', config, '--out', join(dir, 'whole'), '--jobs', '2', '--plain');
+    const killed = await new Promise<string>((resolve) => {
+      const child = spawn(process.execPath, [join(ROOT, 'bin/crosswise.js'), 'run', config, '--out', join(dir, 'killed'), '--jobs', '1', '--plain'], { cwd: ROOT });
+      let stdout = '';
+      child.stdout.on('data', (chunk: Buffer) => {
+        stdout += chunk.toString();
+        if (stdout.includes('] done ')) child.kill('SIGKILL');
+      });
+      child.on('close', () => resolve(stdout));
+    });
+    expect(killed).not.toContain('sweep done');
+    const stored = readdirSync(join(dir, 'killed', 'cells')).filter((name) => !name.startsWith('.'));
+    expect(stored).toHaveLength(1);
+    const resumed = await crosswise('run', config, '--out', join(dir, 'killed'), '--jobs', '1', '--plain');
+    expect(resumed.stdout).toContain('2 cells, 1 already finished');
+    await whole;
+    expect(readFileSync(join(dir, 'killed', 'results.csv'), 'utf8')).toBe(readFileSync(join(dir, 'whole', 'results.csv'), 'utf8'));
   });
 });

@@ -2,12 +2,14 @@ import { parseArgs } from 'node:util';
 import { benchCollection } from '../bench/collection.js';
 import type { BenchResult } from '../bench/result.js';
 import { benchSweep } from '../bench/sweep.js';
+import { benchTorchReference } from '../bench/torch-reference.js';
 import { benchTraining } from '../bench/training.js';
 import { BACKENDS, type BackendName } from '../learn/spec.js';
 
 const OPTIONS = { json: { type: 'boolean' }, quick: { type: 'boolean' }, backend: { type: 'string' } } as const;
 
 function formatValue(value: number): string {
+  if (Number.isNaN(value)) return '–';
   return value >= 100 ? Math.round(value).toLocaleString('en-US') : value.toFixed(2);
 }
 
@@ -29,6 +31,7 @@ export async function benchCommand(args: readonly string[]): Promise<number> {
   const sections: [string, () => Promise<BenchResult[]>][] = [
     ['collection', () => benchCollection({ quick })],
     ['training', () => benchTraining({ quick, backend })],
+    ['PyTorch reference', () => benchTorchReference({ quick })],
   ];
   // The sweep figure runs the whole quickstart; --quick leaves it out to stay under a minute.
   if (!quick) sections.push(['sweep', benchSweep]);

@@ -21,12 +21,18 @@ const meanWithFixedHalfWidth: Summarise = (v) => ({ mean: v.reduce((a, b) => a +
 const tick = () => new Promise((resolve) => setTimeout(resolve, 20));
 
 /** Waits until the dashboard has subscribed (its key handler is attached in the same commit). */
+// Polling is bounded by time, not by a count of ticks: on a busy machine ink's throttled
+// redraw can take seconds to arrive.
+const PATIENCE_MS = 30_000;
+
 async function mounted(events: { listeners: Set<unknown> }): Promise<void> {
-  for (let i = 0; i < 500 && events.listeners.size === 0; i++) await tick();
+  const deadline = Date.now() + PATIENCE_MS;
+  while (events.listeners.size === 0 && Date.now() < deadline) await tick();
 }
 
 async function waitFor(read: () => string, pattern: string): Promise<string> {
-  for (let i = 0; i < 200; i++) {
+  const deadline = Date.now() + PATIENCE_MS;
+  while (Date.now() < deadline) {
     if (read().includes(pattern)) return read();
     await tick();
   }

@@ -8,9 +8,13 @@ export type Rng = () => number;
  *
  * Sub-streams are derived by name, not by offsets into one sequence, so adding a draw
  * in one place never shifts the draws of another. The names in use are:
- * `collect` (start cells and policies), `split` (episode shuffle),
- * `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a
- * seed), `init/<learner>` and `shuffle/<learner>` (training), `bootstrap` (statistics).
+ * - `collect` (start cells and policies), `split` (episode shuffle);
+ * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed);
+ * - `init/<learner>` (weights), `init/<learner>/feedback` (fixed feedback matrices),
+ *   `shuffle/<learner>` (batch order), `shuffle/<learner>/validation` (validation order);
+ * - `bootstrap/<table>/<learner>/<severity>` under seed 0 (report IQM intervals);
+ * - `explore/<world>/<step>/<channel>/<kind>/<severity>` (noise shown by `crosswise explore`);
+ * - `bench` under seed 0 (synthetic data for `crosswise bench`).
  */
 export function createRng(seed: number, ...stream: readonly (string | number)[]): Rng {
   if (!Number.isInteger(seed)) throw new Error(`seed must be an integer, got ${seed}`);

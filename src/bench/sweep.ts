@@ -1,19 +1,14 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { readCellRecord, type CellRecord } from '../experiment/store.js';
 import type { BenchResult } from './result.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 const QUICKSTART = join(ROOT, 'configs', 'quickstart.yaml');
 const CLI = join(ROOT, 'bin', 'crosswise.js');
-
-interface CellTimings {
-  readonly collect: number;
-  readonly train: number;
-  readonly probe: number;
-}
 
 function runCli(args: readonly string[]): number {
   const t0 = performance.now();
@@ -22,9 +17,8 @@ function runCli(args: readonly string[]): number {
   return (performance.now() - t0) / 1000;
 }
 
-function cellTimings(out: string): CellTimings[] {
-  const cells = join(out, 'cells');
-  return readdirSync(cells).map((id) => JSON.parse(readFileSync(join(cells, id, 'cell.json'), 'utf8')).seconds as CellTimings);
+function cellTimings(out: string): CellRecord['seconds'][] {
+  return readdirSync(join(out, 'cells')).map((id) => readCellRecord(out, id).seconds);
 }
 
 const sum = (values: readonly number[]) => values.reduce((a, b) => a + b, 0);

@@ -3,7 +3,7 @@ import { loadSweepFrom, parseCommand, UsageError, withInputErrors } from '../exp
 import type { EpochLog } from '../learn/spec.js';
 import { cellLabel } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
-import { prepareOutput } from '../experiment/runner.js';
+import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
 import { isFinished, storeCell, type CellResult } from '../experiment/store.js';
 
 /** `crosswise cell <config> --index I [--out DIR]`: runs exactly one cell (one task of a cluster job array). */
@@ -25,9 +25,7 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
     const record = storeCell(sweep.out, cell, result, sweep.varyKeys);
-    print(result.status === 'done'
-      ? { type: 'cell-done', cell: cellLabel(cell), worker: 1, seconds: result.totalSeconds, scores: result.outcome.rows }
-      : { type: 'cell-failed', cell: cellLabel(cell), worker: 1, reason: result.reason });
+    print(cellEndEvent(cell, 1, result));
     return record.status === 'done' ? 0 : 3;
   });
 }

@@ -55,6 +55,19 @@ function parsePose(world: World, at: string): Pose | string {
   return { x, y, heading: heading as Heading };
 }
 
+/** The `crosswise sense --json` object; sight values nest as [depth][width][rgb]. */
+interface SenseReport {
+  readonly world: string;
+  readonly pose: Pose;
+  readonly action: Action;
+  readonly step: number;
+  readonly sight: { readonly shape: readonly number[]; readonly values: number[][][] };
+  readonly sound: { readonly bands_hz: number[]; readonly left_db: number[]; readonly right_db: number[] };
+  readonly touch: { readonly names: readonly string[]; readonly values: number[] };
+  readonly motor: { readonly names: readonly string[]; readonly values: number[] };
+  readonly latents: Readonly<Record<string, unknown>>;
+}
+
 const round = (v: number, digits: number) => Number(v.toFixed(digits));
 
 function nest(values: Float32Array, shape: readonly number[]): unknown {
@@ -64,7 +77,7 @@ function nest(values: Float32Array, shape: readonly number[]): unknown {
 }
 
 /** Every channel and latent at one pose as the JSON object of `crosswise sense --json`. */
-export function senseReport(world: World, pose: Pose, action: Action, stepIndex: number): Record<string, unknown> | string {
+export function senseReport(world: World, pose: Pose, action: Action, stepIndex: number): SenseReport | string {
   const transition = arrivalTransition(world, pose, action);
   if (typeof transition === 'string') return transition;
   const settings = DEFAULT_SENSE_SETTINGS;
@@ -79,7 +92,7 @@ export function senseReport(world: World, pose: Pose, action: Action, stepIndex:
   }));
   return {
     world: world.name, pose, action, step: stepIndex,
-    sight: { shape: channelShape('sight', settings), values: nest(senses.sight, channelShape('sight', settings)) },
+    sight: { shape: channelShape('sight', settings), values: nest(senses.sight, channelShape('sight', settings)) as number[][][] },
     sound: {
       bands_hz: [...bandCentresHz(settings)].map((f) => round(f, 1)),
       left_db: [...senses.sound.subarray(0, bands)].map((v) => round(v, 4)),
@@ -91,13 +104,7 @@ export function senseReport(world: World, pose: Pose, action: Action, stepIndex:
   };
 }
 
-function table(report: Record<string, unknown>): string {
-  const r = report as {
-    world: string; pose: Pose; action: string; step: number; sight: { values: number[][][] };
-    sound: { bands_hz: number[]; left_db: number[]; right_db: number[] };
-    touch: { names: string[]; values: number[] }; motor: { names: string[]; values: number[] };
-    latents: Record<string, unknown>;
-  };
+function table(r: SenseReport): string {
   const cell = (v: number[]) => v.map((c) => c.toFixed(2)).join(' ');
   const pad = (s: string | number, n: number) => String(s).padStart(n);
   return [

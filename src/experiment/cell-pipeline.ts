@@ -3,15 +3,11 @@ import { readFileSync } from 'node:fs';
 import { collect } from '../collect/collector.js';
 import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
-import { initBackend, trainLearner, type FeatureExtractor } from '../learn/index.js';
+import { initBackend, softwareVersions, trainLearner, type FeatureExtractor } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
 import { loadWorld } from '../world/parse.js';
 import type { CellOutcome, CellWork, ShapedArray } from './cell-work.js';
 import type { ScoreRow } from './events.js';
-
-const TFJS_VERSION = (JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {
-  dependencies: Record<string, string>;
-}).dependencies['@tensorflow/tfjs-core'];
 
 /**
  * The production cell: collect the seed's experience, split it by episode, train the
@@ -42,7 +38,7 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
       rows,
       log,
       seconds: { collect: collectSeconds, train: trainSeconds, probe: clock() },
-      versions: { tfjs: TFJS_VERSION },
+      versions: { tfjs: softwareVersions()['tfjs-core'] },
       arrays,
     };
     return outcome;

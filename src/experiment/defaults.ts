@@ -68,7 +68,7 @@ export const DEFAULTS = {
       /** Non-backprop rules: steps between measurements of the update/gradient angle. */
       alignEvery: 50,
     },
-    /** Write the encoder's test features and the latents as .npy files beside the cell's scores. */
+    /** Also write the features and the latents of every collected step (features.npy, latents.npy) beside the cell's scores. */
     saveFeatures: false,
   },
   probe: {

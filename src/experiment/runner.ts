@@ -7,7 +7,7 @@ import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
 import { collectResults } from './results.js';
 import { writeFileAtomic } from '../report/atomic.js';
-import { isFinished, readCellRecord, removePartialCells, storeCell } from './store.js';
+import { isFinished, readCellRecord, removePartialCells, storeCell, type CellResult } from './store.js';
 
 /** How to run a sweep. */
 export interface RunOptions {
@@ -49,9 +49,7 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
       if (options.abandon?.aborted === true) return;
       storeCell(sweep.out, cell, result, sweep.varyKeys);
       if (result.status === 'done') for (const phase of ['collect', 'train', 'probe'] as const) phases[phase] += result.outcome.seconds[phase];
-      emit(result.status === 'done'
-        ? { type: 'cell-done', cell: cellLabel(cell), worker, seconds: result.totalSeconds, scores: result.outcome.rows }
-        : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason });
+      emit(cellEndEvent(cell, worker, result));
     },
   });
   const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
@@ -63,6 +61,13 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   const summary = `${where}; time in cells run now: collect ${phases.collect.toFixed(1)} s, train ${phases.train.toFixed(1)} s, probe ${phases.probe.toFixed(1)} s (summed over workers); report ${reportSeconds.toFixed(1)} s`;
   emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
   return outcome;
+}
+
+/** The `cell-done` or `cell-failed` event that reports a cell's result. */
+export function cellEndEvent(cell: PlannedCell, worker: number, result: CellResult): RunEvent {
+  return result.status === 'done'
+    ? { type: 'cell-done', cell: cellLabel(cell), worker, seconds: result.totalSeconds, scores: result.outcome.rows }
+    : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason };
 }
 
 /** Creates the output folder, writes config.resolved.yaml, clears leftovers of killed runs; returns the plan. */

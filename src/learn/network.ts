@@ -32,7 +32,8 @@ interface Activation {
   readonly derivative: (pre: tf.Tensor2D, post: tf.Tensor2D) => tf.Tensor2D;
 }
 
-export const ACTIVATIONS: Record<ActivationName, Activation> = {
+/** Every activation by its config name (the names are ACTIVATIONS in spec.ts). */
+export const ACTIVATION_REGISTRY: Record<ActivationName, Activation> = {
   relu: { f: (a) => tf.relu(a), derivative: (pre) => tf.step(pre) },
   tanh: { f: (a) => tf.tanh(a), derivative: (_pre, h) => tf.sub(1, tf.square(h)) },
   sigmoid: { f: (a) => tf.sigmoid(a), derivative: (_pre, h) => tf.mul(h, tf.sub(1, h)) },
@@ -75,7 +76,7 @@ function affine(x: tf.Tensor2D, layer: Dense): tf.Tensor2D {
 
 /** Representation (last hidden layer) for inputs x: [batch, in] → [batch, hidden_k]. */
 export function encode(tower: Tower, x: tf.Tensor2D): tf.Tensor2D {
-  return tower.encoder.reduce((h, layer) => ACTIVATIONS[tower.activation].f(affine(h, layer)), x);
+  return tower.encoder.reduce((h, layer) => ACTIVATION_REGISTRY[tower.activation].f(affine(h, layer)), x);
 }
 
 /** Full forward pass with every intermediate kept. */
@@ -86,7 +87,7 @@ export function forwardCached(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D |
   for (const layer of tower.encoder) {
     const a = affine(post[post.length - 1], layer);
     pre.push(a);
-    post.push(ACTIVATIONS[tower.activation].f(a));
+    post.push(ACTIVATION_REGISTRY[tower.activation].f(a));
   }
   const representation = post[post.length - 1];
   const headInput = extra == null ? representation : tf.concat([representation, extra], 1);

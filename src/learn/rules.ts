@@ -2,7 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
 import { matMulPlain } from './gradients.js';
 import { glorotUniform } from './init.js';
-import { ACTIVATIONS, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
+import { ACTIVATION_REGISTRY, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
 import type { RuleName } from './spec.js';
 
 /** One mini-batch as tensors: an input per tower, the action for tower 0's head, the target. */
@@ -57,7 +57,7 @@ function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
 
 /** δ_l = g ⊙ f′(a_l) for hidden layer l (1-based), given the signal g arriving at its output. */
 function hiddenDelta(tower: Tower, cache: ForwardCache, l: number, g: tf.Tensor2D): tf.Tensor2D {
-  return tf.mul(g, ACTIVATIONS[tower.activation].derivative(cache.pre[l - 1], cache.post[l]));
+  return tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l - 1], cache.post[l]));
 }
 
 /**

@@ -1,18 +1,23 @@
 import type { ChannelName } from '../senses/channel.js';
 import type { LatentName } from '../collect/dataset.js';
 
+/** What a learner's encoder is trained to do (the config's `objective`). */
 export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'supervised', 'untrained'] as const;
 export type ObjectiveName = (typeof OBJECTIVES)[number];
 
+/** How weight updates are computed (the config's `rule`). */
 export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'] as const;
 export type RuleName = (typeof RULES)[number];
 
+/** Hidden-layer nonlinearities (the config's `encoder.activation`). */
 export const ACTIVATIONS = ['relu', 'tanh', 'sigmoid'] as const;
 export type ActivationName = (typeof ACTIVATIONS)[number];
 
+/** Optimisers applied to the rule's updates (the config's `train.optimizer`). */
 export const OPTIMIZERS = ['adam', 'sgd'] as const;
 export type OptimizerName = (typeof OPTIMIZERS)[number];
 
+/** TensorFlow.js backends that run on the CPU (the config's `backend`). */
 export const BACKENDS = ['wasm', 'cpu'] as const;
 export type BackendName = (typeof BACKENDS)[number];
 

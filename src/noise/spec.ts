@@ -1,5 +1,6 @@
 import type { ChannelName } from '../senses/channel.js';
 
+/** Ways a test channel can be corrupted (a noise entry's `kind`). */
 export const NOISE_KINDS = ['gaussian', 'dropout', 'blackout', 'masking'] as const;
 export type NoiseKind = (typeof NOISE_KINDS)[number];
 

@@ -1,3 +1,5 @@
+import { addScaled } from './vector.js';
+
 /**
  * Linear centered kernel alignment between two representations of the same n rows
  * (Kornblith et al. 2019, ICML, eq. for linear CKA):
@@ -78,16 +80,4 @@ function selfProductNorm(a: Float64Array, n: number, d: number): number {
     for (let k = j + 1; k < d; k++) sum += 2 * product[j * d + k] ** 2;
   }
   return sum;
-}
-
-/** y[yi + k] += r·x[xi + k] over m entries, four lanes at a time (about twice a plain loop's speed). */
-function addScaled(y: Float64Array, yi: number, r: number, x: Float64Array, xi: number, m: number): void {
-  let k = 0;
-  for (; k + 3 < m; k += 4) {
-    y[yi + k] += r * x[xi + k];
-    y[yi + k + 1] += r * x[xi + k + 1];
-    y[yi + k + 2] += r * x[xi + k + 2];
-    y[yi + k + 3] += r * x[xi + k + 3];
-  }
-  for (; k < m; k++) y[yi + k] += r * x[xi + k];
 }

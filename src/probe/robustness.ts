@@ -83,25 +83,6 @@ export function relativeCorruptionError(learner: readonly CurvePoint[], baseline
   return { value: numerator / denominator };
 }
 
-/** The four derived figures of one learner's curve (score by severity, 0 = clean). */
-export interface RobustnessFigures {
-  readonly normalisedArea: Figure;
-  readonly dropFromClean: Figure;
-  readonly corruptionError: Figure;
-  readonly relativeCorruptionError: Figure;
-}
-
-/** All four figures of a learner; the two corruption errors need the baseline learner's curve on the same severities. */
-export function robustnessFigures(learner: readonly CurvePoint[], baseline: readonly CurvePoint[] | null): RobustnessFigures {
-  const noBaseline = undefinedFigure('no baseline learner to compare with');
-  return {
-    normalisedArea: normalisedArea(learner),
-    dropFromClean: dropFromClean(learner),
-    corruptionError: baseline === null ? noBaseline : corruptionError(learner, baseline),
-    relativeCorruptionError: baseline === null ? noBaseline : relativeCorruptionError(learner, baseline),
-  };
-}
-
 /** Scores of learner and baseline at each severity above 0; both curves must measure the same severities. */
 function pairSeverities(learner: readonly CurvePoint[], baseline: readonly CurvePoint[]): [number, number][] {
   const l = sorted(learner).filter((p) => p.severity > 0);

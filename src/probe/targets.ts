@@ -18,8 +18,9 @@ export interface ProbeTarget {
   readonly metric: 'r2' | 'accuracy';
   /**
    * Labels for the given dataset rows. A step where the latent is NaN (or, for a class,
-   * negative) has no value, e.g. the nearest emitter of a world without emitters; it is
-   * left out of fitting, validation and scoring for this target only.
+   * negative) has no value and is left out of fitting, validation and scoring for this
+   * target only (the collector defines every latent at every step, since a world file
+   * needs at least one emitter; datasets built elsewhere may not).
    */
   labels(data: Dataset, rows: ArrayLike<number>): DefinedLabels;
 }

@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { summarise } from '../stats/summarise.js';
 import { writeFileAtomic } from './atomic.js';
 import { compareWithBaseline, formatComparisonsCsv } from './comparisons.js';
-import { combinations, noises, scoreMetric, severities, unique, type Combination } from './groups.js';
+import { combinations, scoreGroups, severities, unique, type Combination } from './groups.js';
 import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';
 import { loadRun, type StoredRun } from './load.js';
 import { bandPlotSvg, robustnessPlotPath, trainingPlotPath, type BandPoint } from './plots.js';
@@ -60,19 +60,13 @@ async function removeStalePlots(outDir: string, written: ReadonlySet<string>): P
 /** The robustness plots (one per target and noise) and the training plot of one combination. */
 async function comboPlots(run: StoredRun, combo: Combination, index: number | null, learners: readonly string[]): Promise<[string, string][]> {
   const out: [string, string][] = [];
-  for (const target of unique(combo.rows.map((r) => r.target))) {
-    const metric = scoreMetric(combo.rows, target);
-    if (metric == null) continue;
-    const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
-    for (const { channel, kind } of noises(scored)) {
-      const rows = scored.filter((r) => r.channel === channel && r.kind === kind);
-      const levels = severities(rows);
-      const points = unique(rows.map((r) => r.learner)).flatMap((learner) =>
-        learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
-      const title = `${target} under ${channel} ${kind} noise`;
-      out.push([robustnessPlotPath(target, channel, kind, index),
-        await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
-    }
+  for (const { target, metric, channel, kind, rows } of scoreGroups(combo.rows)) {
+    const levels = severities(rows);
+    const points = unique(rows.map((r) => r.learner)).flatMap((learner) =>
+      learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
+    const title = `${target} under ${channel} ${kind} noise`;
+    out.push([robustnessPlotPath(target, channel, kind, index),
+      await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
   }
   const training = trainingPoints(run, combo);
   if (training.length > 0) {

@@ -1,6 +1,6 @@
 import { holm } from '../stats/holm.js';
 import { pairedComparison, type PairedComparison } from '../stats/paired.js';
-import { bySeed, combinations, noises, scoreMetric, severities, unique } from './groups.js';
+import { bySeed, combinations, scoreGroups, severities, unique } from './groups.js';
 import { csvLine } from './csv.js';
 import type { ResultRow } from './results-table.js';
 
@@ -27,22 +27,16 @@ export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readon
   const raw: Omit<Comparison, 'pHolm'>[] = [];
   for (const combo of combinations(rows, varyKeys)) {
     const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => l !== baseline);
-    for (const target of unique(combo.rows.map((r) => r.target))) {
-      const metric = scoreMetric(combo.rows, target);
-      if (metric == null) continue;
-      const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
-      for (const { channel, kind } of noises(scored)) {
-        const noisy = scored.filter((r) => r.channel === channel && r.kind === kind);
-        for (const learner of learners) {
-          for (const severity of severities(noisy)) {
-            const at = noisy.filter((r) => r.severity === severity);
-            const base = bySeed(at, (r) => r.learner === baseline);
-            const mine = bySeed(at, (r) => r.learner === learner);
-            const seeds = [...mine.keys()].filter((s) => base.has(s)).sort((a, b) => a - b);
-            if (seeds.length === 0) continue;
-            const test = pairedComparison(seeds.map((s) => mine.get(s)!), seeds.map((s) => base.get(s)!));
-            raw.push({ ...test, combination: combo.index, vary: combo.values, learner, baseline, target, channel, kind, severity, metric });
-          }
+    for (const { target, metric, channel, kind, rows: noisy } of scoreGroups(combo.rows)) {
+      for (const learner of learners) {
+        for (const severity of severities(noisy)) {
+          const at = noisy.filter((r) => r.severity === severity);
+          const base = bySeed(at, (r) => r.learner === baseline);
+          const mine = bySeed(at, (r) => r.learner === learner);
+          const seeds = [...mine.keys()].filter((s) => base.has(s)).sort((a, b) => a - b);
+          if (seeds.length === 0) continue;
+          const test = pairedComparison(seeds.map((s) => mine.get(s)!), seeds.map((s) => base.get(s)!));
+          raw.push({ ...test, combination: combo.index, vary: combo.values, learner, baseline, target, channel, kind, severity, metric });
         }
       }
     }

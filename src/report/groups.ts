@@ -63,3 +63,24 @@ export function scoreMetric(rows: readonly ResultRow[], target: string): 'r2' | 
 export function severities(rows: readonly ResultRow[]): number[] {
   return unique(rows.map((r) => r.severity)).sort((a, b) => a - b);
 }
+
+/** One target's probe-score rows under one noise: what a score table, a robustness plot and a set of comparisons describe. */
+export interface ScoreGroup extends Noise {
+  readonly target: string;
+  readonly metric: 'r2' | 'accuracy';
+  readonly rows: readonly ResultRow[];
+}
+
+/** The score rows split by target, then by noise, in order of first appearance; targets without a probe score (CKA) are left out. */
+export function scoreGroups(rows: readonly ResultRow[]): ScoreGroup[] {
+  const groups: ScoreGroup[] = [];
+  for (const target of unique(rows.map((r) => r.target))) {
+    const metric = scoreMetric(rows, target);
+    if (metric == null) continue;
+    const scored = rows.filter((r) => r.target === target && r.metric === metric);
+    for (const { channel, kind } of noises(scored)) {
+      groups.push({ target, metric, channel, kind, rows: scored.filter((r) => r.channel === channel && r.kind === kind) });
+    }
+  }
+  return groups;
+}

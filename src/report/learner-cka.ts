@@ -2,7 +2,7 @@ import { join } from 'node:path';
 import { summarise, type Summary } from '../stats/summarise.js';
 import { preparedCka, prepareCka } from '../probe/cka.js';
 import { comboKey, unique, type Combination } from './groups.js';
-import type { CellRecord, StoredRun } from './load.js';
+import type { StoredCell, StoredRun } from './load.js';
 import { readNpy, type NpyArray } from './npy.js';
 
 /** CKA between every pair of learners on clean test features, summarised over seeds. */
@@ -13,7 +13,7 @@ export interface LearnerCka {
 }
 
 /** The cells of a combination: those whose id appears in its result rows, and unfinished or failed ones whose cell.json vary values match. */
-export function cellsOf(run: StoredRun, combo: Combination): CellRecord[] {
+export function cellsOf(run: StoredRun, combo: Combination): StoredCell[] {
   const ids = new Set(combo.rows.map((r) => r.cell));
   const key = comboKey(combo.values, run.varyKeys);
   return run.cells.filter((c) => ids.has(c.id) || (c.status !== 'done' && comboKey(c.vary, run.varyKeys) === key));
@@ -50,7 +50,7 @@ export async function learnerCka(run: StoredRun, combo: Combination, warnings: s
 }
 
 /** The 2-D test features of one seed's cells, by learner; unreadable files become warnings. */
-async function seedFeatures(run: StoredRun, cells: readonly CellRecord[], warnings: string[]): Promise<Map<string, NpyArray>> {
+async function seedFeatures(run: StoredRun, cells: readonly StoredCell[], warnings: string[]): Promise<Map<string, NpyArray>> {
   const features = new Map<string, NpyArray>();
   for (const c of cells) {
     const path = join(run.outDir, 'cells', c.id, 'test_features.npy');

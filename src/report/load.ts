@@ -5,8 +5,8 @@ import { parse as parseYaml } from 'yaml';
 import { parseCsv } from './csv.js';
 import { parseResultsCsv, type ResultRow, type ResultsTable } from './results-table.js';
 
-/** What a cell folder says about its cell (cells/<id>/cell.json). */
-export interface CellRecord {
+/** What the report reads from a cell folder (cells/<id>/cell.json and train.csv); the writer's form is CellRecord in experiment/store.ts. */
+export interface StoredCell {
   readonly id: string;
   readonly learner: string;
   readonly seed: number;
@@ -27,7 +27,7 @@ export interface StoredRun {
   readonly baseline: string | null;
   readonly varyKeys: readonly string[];
   readonly rows: readonly ResultRow[];
-  readonly cells: readonly CellRecord[];
+  readonly cells: readonly StoredCell[];
   readonly warnings: readonly string[];
 }
 
@@ -83,10 +83,10 @@ async function readConfig(path: string, warnings: string[]): Promise<{ name: str
   return { name: typeof name === 'string' ? name : 'crosswise run', baseline: typeof baseline === 'string' ? baseline : null };
 }
 
-async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]> {
+async function readCells(dir: string, warnings: string[]): Promise<StoredCell[]> {
   if (!existsSync(dir)) return [];
   const ids = (await readdir(dir, { withFileTypes: true })).filter((e) => e.isDirectory()).map((e) => e.name).sort();
-  const cells: CellRecord[] = [];
+  const cells: StoredCell[] = [];
   for (const id of ids) {
     const jsonPath = join(dir, id, 'cell.json');
     if (!existsSync(jsonPath)) continue; // an unfinished cell: nothing was committed
@@ -99,7 +99,7 @@ async function readCells(dir: string, warnings: string[]): Promise<CellRecord[]>
   return cells;
 }
 
-async function readCell(dir: string, id: string, warnings: string[]): Promise<CellRecord> {
+async function readCell(dir: string, id: string, warnings: string[]): Promise<StoredCell> {
   const jsonPath = join(dir, 'cell.json');
   let json: Record<string, unknown>;
   try {

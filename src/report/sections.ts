@@ -4,7 +4,7 @@ import { summarise, type Summary } from '../stats/summarise.js';
 import { isReliable, type Comparison } from './comparisons.js';
 import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
-import type { CellRecord } from './load.js';
+import type { StoredCell } from './load.js';
 import type { ResultRow } from './results-table.js';
 import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
@@ -109,7 +109,7 @@ export function iqmTable(rows: readonly ResultRow[], streamName: string): string
 }
 
 /** Final-epoch angle between each rule's update and the true gradient, per learner and layer, over seeds. */
-export function alignmentTable(cells: readonly CellRecord[]): string[] {
+export function alignmentTable(cells: readonly StoredCell[]): string[] {
   const measured = cells.filter((c) => c.status === 'done' && Object.keys(c.finalAlignmentDeg).length > 0);
   const layers = unique(measured.flatMap((c) => Object.keys(c.finalAlignmentDeg)));
   if (layers.length === 0) return [];

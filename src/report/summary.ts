@@ -1,5 +1,5 @@
 import { holmFamilySize, type Comparison } from './comparisons.js';
-import { noises, scoreMetric, unique, type Combination, type Noise } from './groups.js';
+import { noises, scoreGroups, unique, type Combination, type ScoreGroup } from './groups.js';
 import { cellsOf, type LearnerCka } from './learner-cka.js';
 import type { StoredRun } from './load.js';
 import { meanCi, table } from './markdown.js';
@@ -56,12 +56,7 @@ function preamble({ run, comparisons }: SummaryInput): string[] {
 
 function combinationBlock(input: SummaryInput, combo: Combination, index: number | null): string[] {
   const lines: string[] = [];
-  for (const target of unique(combo.rows.map((r) => r.target)).filter((t) => t !== '-')) {
-    const metric = scoreMetric(combo.rows, target);
-    if (metric == null) continue;
-    const scored = combo.rows.filter((r) => r.target === target && r.metric === metric);
-    for (const noise of noises(scored)) lines.push(...noiseSection(input, combo, index, target, metric, noise));
-  }
+  for (const group of scoreGroups(combo.rows)) lines.push(...noiseSection(input, combo, index, group));
   lines.push(...ckaBlocks(input, combo));
   const training = trainingPlotPath(index);
   if (input.plots.has(training)) lines.push('### Training', '', `![validation loss per epoch](${training})`, '');
@@ -75,27 +70,27 @@ function combinationBlock(input: SummaryInput, combo: Combination, index: number
 }
 
 /** Scores, robustness figures and paired comparisons of one target under one noise. */
-function noiseSection(input: SummaryInput, combo: Combination, index: number | null, target: string, metric: 'r2' | 'accuracy', noise: Noise): string[] {
+function noiseSection(input: SummaryInput, combo: Combination, index: number | null, group: ScoreGroup): string[] {
   const { baseline } = input.run;
-  const inNoise = combo.rows.filter((r) => r.target === target && r.channel === noise.channel && r.kind === noise.kind);
-  const rows = inNoise.filter((r) => r.metric === metric);
-  const lines = [`### ${target}: ${noise.channel} ${noise.kind} noise (${METRIC_NAMES[metric]})`, '',
-    ...scoreTable(rows, inNoise.filter((r) => r.metric === 'chance')), ''];
+  const { target, metric, rows } = group;
+  const chance = combo.rows.filter((r) => r.target === target && r.channel === group.channel && r.kind === group.kind && r.metric === 'chance');
+  const lines = [`### ${target}: ${group.channel} ${group.kind} noise (${METRIC_NAMES[metric]})`, '',
+    ...scoreTable(rows, chance), ''];
   if (unique(rows.map((r) => r.seed)).length >= FEW_SEEDS) {
     lines.push('Interquartile mean over seeds with its 95% percentile-bootstrap CI (Agarwal et al. 2021):', '',
-      ...iqmTable(rows, `${combo.index}/${target}/${noise.channel}/${noise.kind}`), '');
+      ...iqmTable(rows, `${combo.index}/${target}/${group.channel}/${group.kind}`), '');
   }
-  const plot = robustnessPlotPath(target, noise.channel, noise.kind, index);
-  if (input.plots.has(plot)) lines.push(`![${target} under ${noise.channel} ${noise.kind} noise](${plot})`, '');
+  const plot = robustnessPlotPath(target, group.channel, group.kind, index);
+  if (input.plots.has(plot)) lines.push(`![${target} under ${group.channel} ${group.kind} noise](${plot})`, '');
   lines.push('Robustness of the mean curves: normalised area is the area under the curve over clean score × severity range (1 = noise costs nothing); '
     + 'drop is the clean score minus the mean score over noisy severities; CE is the summed error 1 − score over noisy severities relative to the baseline\'s, '
     + 'and relative CE counts only the error noise adds to each learner\'s own clean error (Hendrycks & Dietterich 2019).', '',
     ...robustnessTable(rows, baseline), '');
   if (baseline == null) return lines;
   const mine = input.comparisons.filter((c) => c.combination === combo.index && c.target === target
-    && c.channel === noise.channel && c.kind === noise.kind);
+    && c.channel === group.channel && c.kind === group.kind);
   lines.push(`Paired differences against \`${baseline}\` (learner − baseline):`, '', ...comparisonTable(mine), '',
-    verdict(target, noise, baseline, mine), '');
+    verdict(target, group, baseline, mine), '');
   return lines;
 }
 

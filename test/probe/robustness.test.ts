@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, robustnessFigures, type CurvePoint } from '../../src/probe/robustness.js';
+import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint } from '../../src/probe/robustness.js';
 
 const curve = (...scores: number[]): CurvePoint[] => scores.map((score, severity) => ({ severity, score }));
 
@@ -61,23 +61,5 @@ describe('dropFromClean', () => {
 
   it('is NaN with a reason without a clean point', () => {
     expect(dropFromClean([{ severity: 1, score: 0.5 }]).reason).toBe('the curve has no severity 0 (clean) point');
-  });
-});
-
-describe('robustnessFigures', () => {
-  it('bundles the four figures of the hand-computed example (Hendrycks & Dietterich 2019, §3)', () => {
-    const figures = robustnessFigures(learner, baseline);
-    expect(figures.corruptionError.value).toBeCloseTo(0.75, 12);
-    expect(figures.relativeCorruptionError.value).toBeCloseTo(4 / 7, 12);
-    expect(figures.dropFromClean.value).toBeCloseTo(0.9 - (0.8 + 0.6) / 2, 12);
-    // trapezoids (0.9 + 0.8)/2 + (0.8 + 0.6)/2 = 1.55 over clean × range = 0.9 × 2
-    expect(figures.normalisedArea.value).toBeCloseTo(1.55 / 1.8, 12);
-  });
-
-  it('leaves both corruption errors undefined, with a reason, without a baseline', () => {
-    const figures = robustnessFigures(learner, null);
-    expect(figures.corruptionError.value).toBeNaN();
-    expect(figures.relativeCorruptionError.reason).toBe('no baseline learner to compare with');
-    expect(figures.normalisedArea.value).toBeCloseTo(1.55 / 1.8, 12);
   });
 });

@@ -4,37 +4,23 @@ import { severityParameter } from '../../noise/severity.js';
 import { createRng } from '../../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../../senses/channel.js';
 import { senseAll } from '../../senses/sense-all.js';
-import { HEADINGS, type World } from '../../world/types.js';
-import { step } from '../../world/movement.js';
+import type { World } from '../../world/types.js';
+import { everyPoseSample } from '../../collect/every-pose.js';
 import type { ExploreState } from './explore-state.js';
 
 type Channels = Record<ChannelName, Float32Array>;
 
 const references = new WeakMap<World, Record<ChannelName, ChannelReference>>();
 
-/**
- * Channel spreads and silence levels the noise is scaled by. The explorer has no training
- * split, so it uses one step forward from every free cell in every heading, with the
- * clock at the row number so duty-cycled emitters are heard both on and off.
- */
+/** Channel spreads and silence levels the noise is scaled by: explore has no training split, so every pose stands in. */
 export function referenceFor(world: World): Record<ChannelName, ChannelReference> {
   const cached = references.get(world);
   if (cached != null) return cached;
-  const rows: Channels[] = [];
-  for (let cell = 0; cell < world.width * world.height; cell++) {
-    if (world.solid[cell] === 1) continue;
-    for (const heading of HEADINGS) {
-      const pose = { x: cell % world.width, y: Math.floor(cell / world.width), heading };
-      const transition = step(world, pose, 'forward');
-      rows.push(senseAll(world, transition.pose, transition, 'forward', rows.length, DEFAULT_SENSE_SETTINGS));
-    }
-  }
-  const all = Int32Array.from(rows.keys());
+  const sample = everyPoseSample(world, DEFAULT_SENSE_SETTINGS);
+  const all = Int32Array.from({ length: sample.rows }, (_, i) => i);
   const reference = Object.fromEntries(CHANNELS.map((c) => {
-    const size = rows[0][c].length;
-    const values = new Float32Array(rows.length * size);
-    rows.forEach((r, i) => values.set(r[c], i * size));
-    return [c, channelReference(values, size, all, c)];
+    const values = sample.channels[c];
+    return [c, channelReference(values, values.length / sample.rows, all, c)];
   })) as Record<ChannelName, ChannelReference>;
   references.set(world, reference);
   return reference;

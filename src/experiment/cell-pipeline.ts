@@ -5,7 +5,7 @@ import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
 import { initBackend, softwareVersions, trainLearner, type FeatureExtractor } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
-import { loadWorld } from '../world/parse.js';
+import { parseWorld } from '../world/parse.js';
 import type { CellOutcome, CellWork, ShapedArray } from './cell-work.js';
 import type { ScoreRow } from './events.js';
 
@@ -16,11 +16,11 @@ import type { ScoreRow } from './events.js';
  */
 export const cellWork: CellWork = async (cell, onEpoch) => {
   const clock = stopwatch();
-  const worldText = readFileSync(cell.world.path);
-  if (createHash('sha256').update(worldText).digest('hex') !== cell.world.sha256) {
+  const worldBytes = readFileSync(cell.world.path);
+  if (createHash('sha256').update(worldBytes).digest('hex') !== cell.world.sha256) {
     throw new Error(`world file ${cell.world.path} changed since the sweep was planned; plan again`);
   }
-  const world = loadWorld(cell.world.path);
+  const world = parseWorld(worldBytes.toString('utf8'), cell.world.path); // the bytes just hashed, not a second read
   const data = collect(world, { policy: cell.collect.policy, steps: cell.collect.steps, episodeSteps: cell.collect.episodeSteps }, cell.senses, cell.seed);
   const split = splitByEpisode(data, cell.collect.split, cell.seed);
   const collectSeconds = clock();

@@ -30,8 +30,11 @@ export interface CellWorkModule {
   readonly cellWork: CellWork;
 }
 
-/** The production cell work: collect, train, probe. */
-export const PIPELINE_MODULE = new URL('./cell-pipeline.ts', import.meta.url).href;
+/**
+ * The production cell work: collect, train, probe. Named `.js` like every import: the
+ * compiled module in dist/, or under a TypeScript loader (tsx, vitest) the `.ts` source.
+ */
+export const PIPELINE_MODULE = new URL('./cell-pipeline.js', import.meta.url).href;
 
 /** One line saying why a cell failed, from what its work threw. */
 export function failureReason(error: unknown): string {

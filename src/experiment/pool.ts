@@ -22,7 +22,9 @@ export interface PoolOptions {
   readonly abandon?: AbortSignal;
 }
 
-const WORKER_ENTRY = new URL('./worker.ts', import.meta.url).href;
+const WORKER_ENTRY = new URL('./worker.js', import.meta.url);
+/** Whether this module is the TypeScript source (tsx, vitest) rather than the compiled dist/. */
+const RUNNING_SOURCES = import.meta.url.endsWith('.ts');
 
 /**
  * Runs cells in index order on up to `jobs` worker threads, one cell per thread at a time;
@@ -55,14 +57,17 @@ export async function runOnPool(cells: readonly PlannedCell[], options: PoolOpti
 }
 
 function startWorker(workModule: string, workers: Worker[]): Worker {
-  // Worker threads do not inherit the tsx loader; register it before loading the TypeScript entry.
-  const tsx = import.meta.resolve('tsx/esm/api');
-  const code = `import(${JSON.stringify(tsx)}).then((api) => { api.register(); return import(${JSON.stringify(WORKER_ENTRY)}); });`;
-  const thread = new Worker(code, { eval: true, workerData: { workModule } });
+  const thread = RUNNING_SOURCES ? new Worker(typescriptEntry(), { eval: true, workerData: { workModule } }) : new Worker(WORKER_ENTRY, { workerData: { workModule } });
   // A thread that dies between cells is replaced when its next cell fails; never crash the sweep over it.
   thread.on('error', () => undefined);
   workers.push(thread);
   return thread;
+}
+
+/** Worker threads do not inherit the tsx loader: code that registers it, then loads the TypeScript entry. */
+function typescriptEntry(): string {
+  const tsx = import.meta.resolve('tsx/esm/api');
+  return `import(${JSON.stringify(tsx)}).then((api) => { api.register(); return import(${JSON.stringify(WORKER_ENTRY.href)}); });`;
 }
 
 function runCell(thread: Worker, cell: PlannedCell, worker: number, callbacks: PoolCallbacks): Promise<{ result: CellResult; crashed: boolean }> {

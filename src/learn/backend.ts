@@ -1,7 +1,8 @@
 import * as tf from '@tensorflow/tfjs-core';
 import '@tensorflow/tfjs-backend-cpu';
 import '@tensorflow/tfjs-backend-wasm';
-import { registerFastMatMulGradient, registerStockGradients } from './gradients.js';
+import { registerFastMatMulGradient } from './plain-matmul.js';
+import { registerStockGradients } from './stock-gradients.js';
 import type { BackendName } from './spec.js';
 
 let gradientsReady = false;

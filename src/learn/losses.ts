@@ -1,5 +1,5 @@
 import * as tf from '@tensorflow/tfjs-core';
-import { transposeLast } from './gradients.js';
+import { transposeLast } from './plain-matmul.js';
 
 /** Mean squared error over every element: mean((o − y)²). */
 export function meanSquaredError(output: tf.Tensor2D, target: tf.Tensor2D): tf.Scalar {

@@ -1,6 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
-import { matMulPlain } from './gradients.js';
+import { matMulPlain } from './plain-matmul.js';
 import { glorotUniform } from './init.js';
 import { ACTIVATION_REGISTRY, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
 import type { RuleName } from './spec.js';

@@ -1,56 +1,54 @@
-/** Argument parsing and dispatch for the `crosswise` command. */
-import { exploreCommand } from './commands/explore.js';
-import { benchCommand } from './commands/bench.js';
-import { cellCommand } from './commands/cell.js';
-import { clusterCommand } from './commands/cluster.js';
-import { planCommand } from './commands/plan.js';
-import { runCommand } from './commands/run.js';
-import { schemaCommand } from './commands/schema.js';
-import { reportCommand } from './commands/report.js';
-import { renderDashboard } from './tui/dashboard/render-dashboard.js';
-import { checkCommand } from './commands/check.js';
-import { senseCommand } from './commands/sense.js';
+/** Dispatch for the `crosswise` command: help and version from the usages, then the chosen command's code. */
+import { readFileSync } from 'node:fs';
+import { benchUsage } from './commands/bench-usage.js';
+import { cellUsage } from './commands/cell-usage.js';
+import { checkUsage } from './commands/check-usage.js';
+import { clusterUsage } from './commands/cluster-usage.js';
+import { EXIT } from './commands/exit-codes.js';
+import { exploreUsage } from './commands/explore-usage.js';
+import { commandHelp, programHelp, wantsHelp } from './commands/help.js';
+import { printProblem } from './commands/messages.js';
+import { planUsage } from './commands/plan-usage.js';
+import { reportUsage } from './commands/report-usage.js';
+import { runUsage } from './commands/run-usage.js';
+import { schemaUsage } from './commands/schema-usage.js';
+import { senseUsage } from './commands/sense-usage.js';
+import type { CommandUsage } from './commands/usage.js';
 
-const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
+/** Every command, in the order `crosswise --help` lists them. */
+export const COMMANDS: readonly CommandUsage[] = [
+  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, senseUsage, exploreUsage, benchUsage, schemaUsage,
+];
 
-usage:
-  crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu]
-  crosswise plan <config>
-  crosswise cell <config> --index I [--out DIR]
-  crosswise cluster <config> --out DIR
-  crosswise report <DIR>
-  crosswise check <file>...
-  crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]
-  crosswise explore [world] [--seed N]
-  crosswise bench [--json] [--quick]
-  crosswise schema`;
-
-type Command = (args: readonly string[]) => Promise<number>;
-
-const COMMANDS: Record<string, Command> = {
-  explore: exploreCommand,
-  run: (args) => runCommand(args, { dashboard: renderDashboard }),
-  plan: planCommand,
-  cell: (args) => cellCommand(args),
-  cluster: clusterCommand,
-  schema: schemaCommand,
-  report: reportCommand,
-  check: checkCommand,
-  sense: senseCommand,
-  bench: benchCommand,
-};
+/** The package version (src/ and dist/ both sit one folder below package.json). */
+export function version(): string {
+  return (JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8')) as { version: string }).version;
+}
 
 /** Runs one command line and returns the process exit code. */
 export async function main(argv: readonly string[]): Promise<number> {
   const [name, ...rest] = argv;
   if (name == null || name === '--help' || name === '-h' || name === 'help') {
-    console.log(USAGE);
-    return 0;
+    const usage = COMMANDS.find((c) => c.name === rest[0]);
+    console.log(name === 'help' && usage != null ? commandHelp(usage) : programHelp(COMMANDS, version()));
+    return EXIT.success;
   }
-  const command = COMMANDS[name];
-  if (command == null) {
-    console.error(`crosswise: unknown command '${name}'\n${USAGE}`);
-    return 1;
+  if (name === '--version') {
+    console.log(`crosswise ${version()}`);
+    return EXIT.success;
   }
-  return command(rest);
+  const usage = COMMANDS.find((c) => c.name === name);
+  if (usage == null) {
+    // Loaded only on this path: the did-you-mean rule lives with the config messages.
+    const { suggestion } = await import('./experiment/config-errors.js');
+    const what = name.startsWith('-') ? 'option' : 'command';
+    printProblem(null, `unknown ${what} '${name}'${suggestion(name, what === 'option' ? ['--help', '--version'] : COMMANDS.map((c) => c.name))}; see crosswise --help`);
+    return EXIT.invalidInput;
+  }
+  if (wantsHelp(rest)) {
+    console.log(commandHelp(usage));
+    return EXIT.success;
+  }
+  const action = await usage.load();
+  return action(rest);
 }

@@ -1,33 +1,24 @@
-import { parseArgs } from 'node:util';
 import { benchCollection } from '../bench/collection.js';
 import type { BenchResult } from '../bench/result.js';
 import { benchSweep } from '../bench/sweep.js';
 import { benchTorchReference } from '../bench/torch-reference.js';
 import { benchTraining } from '../bench/training.js';
-import { BACKENDS, type BackendName } from '../learn/spec.js';
-
-const OPTIONS = { json: { type: 'boolean' }, quick: { type: 'boolean' }, backend: { type: 'string' } } as const;
+import type { BackendName } from '../learn/spec.js';
+import { benchUsage } from './bench-usage.js';
+import { runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
 
 function formatValue(value: number): string {
   if (Number.isNaN(value)) return '–';
   return value >= 100 ? Math.round(value).toLocaleString('en-US') : value.toFixed(2);
 }
 
-/** `crosswise bench [--json] [--quick] [--backend wasm|cpu]`: collection, training and sweep figures. */
+/** `crosswise bench`: collection, training and sweep figures (see bench-usage.ts). */
 export async function benchCommand(args: readonly string[]): Promise<number> {
-  let values;
-  try {
-    ({ values } = parseArgs({ args: [...args], options: OPTIONS, strict: true }));
-  } catch (error) {
-    console.error(`crosswise bench: ${(error as Error).message}`);
-    return 1;
-  }
-  const backend = (values.backend ?? 'wasm') as BackendName;
-  if (!BACKENDS.includes(backend)) {
-    console.error(`crosswise bench: --backend: expected one of ${BACKENDS.join(', ')}, got '${values.backend}'`);
-    return 1;
-  }
-  const quick = values.quick === true;
+  return runAction(benchUsage, args, async ({ values }) => bench(values));
+}
+
+async function bench({ json, quick, backend }: { json: boolean; quick: boolean; backend: BackendName }): Promise<number> {
   const sections: [string, () => Promise<BenchResult[]>][] = [
     ['collection', () => benchCollection({ quick })],
     ['training', () => benchTraining({ quick, backend })],
@@ -37,12 +28,12 @@ export async function benchCommand(args: readonly string[]): Promise<number> {
   if (!quick) sections.push(['sweep', benchSweep]);
   const results: BenchResult[] = [];
   for (const [name, run] of sections) {
-    if (values.json !== true) console.error(`bench: ${name}...`);
+    if (!json) console.error(`bench: ${name}...`);
     for (const result of await run()) {
       results.push(result);
-      if (values.json !== true) console.log(`${result.name.padEnd(48)} ${formatValue(result.value).padStart(10)} ${result.unit.padEnd(10)} ${result.detail}`);
+      if (!json) console.log(`${result.name.padEnd(48)} ${formatValue(result.value).padStart(10)} ${result.unit.padEnd(10)} ${result.detail}`);
     }
   }
-  if (values.json === true) console.log(JSON.stringify({ quick, backend, node: process.version, results }, null, 2));
-  return 0;
+  if (json) console.log(JSON.stringify({ quick, backend, node: process.version, results }, null, 2));
+  return EXIT.success;
 }

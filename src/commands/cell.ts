@@ -1,32 +1,34 @@
 import { failureReason, PIPELINE_MODULE, type CellWorkModule } from '../experiment/cell-work.js';
-import { loadSweepFrom, parseCommand, UsageError, withInputErrors } from '../experiment/command-line.js';
 import type { EpochLog } from '../learn/spec.js';
-import { cellLabel } from '../experiment/plan.js';
+import { cellLabel, planCells } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
 import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
 import { isFinished, storeCell, type CellResult } from '../experiment/store.js';
+import { cellUsage } from './cell-usage.js';
+import { loadSweepFrom, runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { UsageError } from './usage.js';
 
-/** `crosswise cell <config> --index I [--out DIR]`: runs exactly one cell (one task of a cluster job array). */
+/** `crosswise cell`: runs exactly one cell, one task of a cluster job array (see cell-usage.ts). */
 export async function cellCommand(args: readonly string[], workModule: string = PIPELINE_MODULE): Promise<number> {
-  return withInputErrors(async () => {
-    const { config, values } = parseCommand('cell', args, { index: { type: 'string' }, out: { type: 'string' } });
+  return runAction(cellUsage, args, async ({ operands: [config], values }) => {
     const sweep = loadSweepFrom(config, values.out);
+    const { index } = values;
+    // Checked before prepareOutput writes anything: an invalid command line leaves no trace.
+    const planned = planCells(sweep).length;
+    if (index >= planned) throw new UsageError(`--index: expected an integer from 0 to ${planned - 1}, got '${index}'`);
     const cells = prepareOutput(sweep);
-    const index = Number(values.index);
-    if (values.index == null || !Number.isInteger(index) || index < 0 || index >= cells.length) {
-      throw new UsageError(`crosswise cell: --index: expected an integer from 0 to ${cells.length - 1}, got '${values.index ?? ''}'`);
-    }
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
     if (isFinished(sweep.out, cell.id)) {
       console.log(`cell ${index} (${cell.id}) is already finished in ${sweep.out}`);
-      return 0;
+      return EXIT.success;
     }
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
     const record = storeCell(sweep.out, cell, result, sweep.varyKeys);
     print(cellEndEvent(cell, 1, result));
-    return record.status === 'done' ? 0 : 3;
+    return record.status === 'done' ? EXIT.success : EXIT.cellsFailed;
   });
 }
 

@@ -2,6 +2,10 @@ import { readFileSync } from 'node:fs';
 import { isMap, parseDocument } from 'yaml';
 import { checkConfigFile } from '../experiment/config.js';
 import { checkWorldFile } from '../world/parse.js';
+import { checkUsage } from './check-usage.js';
+import { runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 
 /** A validator for one kind of file, chosen by what the file contains. */
 export interface FileChecker {
@@ -43,19 +47,16 @@ export function checkFile(path: string): { kind: string | null; problems: string
   return { kind: checker.kind, problems: checker.check(path) };
 }
 
-/** `crosswise check <file>...`: prints every problem, one per line; exit 1 if any. */
+/** `crosswise check`: prints every problem, one per line; exit 1 if any (see check-usage.ts). */
 export async function checkCommand(args: readonly string[]): Promise<number> {
-  const option = args.find((a) => a.startsWith('-'));
-  if (option != null || args.length === 0) {
-    console.error(option != null ? `crosswise check: unknown option '${option}'` : 'crosswise check: give at least one file to check');
-    return 1;
-  }
-  let failed = false;
-  for (const path of args) {
-    const { kind, problems } = checkFile(path);
-    for (const problem of problems) console.error(problem);
-    if (problems.length > 0) failed = true;
-    else console.log(`${path}: ok (${kind})`);
-  }
-  return failed ? 1 : 0;
+  return runAction(checkUsage, args, async ({ operands: paths }) => {
+    let failed = false;
+    for (const path of paths) {
+      const { kind, problems } = checkFile(path);
+      for (const problem of problems) printProblem('check', problem);
+      if (problems.length > 0) failed = true;
+      else console.log(`${path}: ok (${kind})`);
+    }
+    return failed ? EXIT.invalidInput : EXIT.success;
+  });
 }

@@ -1,17 +1,21 @@
-import { loadSweepFrom, parseCommand, withInputErrors } from '../experiment/command-line.js';
 import { planCells } from '../experiment/plan.js';
-import { formatTable } from '../experiment/table.js';
+import { loadSweepFrom, runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { count } from './messages.js';
+import { planUsage } from './plan-usage.js';
+import { formatTable } from './table.js';
 
-/** `crosswise plan <config> [--out DIR]`: lists the sweep's cells; runs and writes nothing. */
+/** `crosswise plan`: lists the sweep's cells; runs and writes nothing (see plan-usage.ts). */
 export async function planCommand(args: readonly string[]): Promise<number> {
-  return withInputErrors(async () => {
-    const { config, values } = parseCommand('plan', args, { out: { type: 'string' } });
+  return runAction(planUsage, args, async ({ operands: [config], values }) => {
     const sweep = loadSweepFrom(config, values.out);
     const cells = planCells(sweep);
     const header = ['index', 'id', 'learner', 'seed', ...sweep.varyKeys];
     const rows = cells.map((cell) => [String(cell.index), cell.id, cell.learner.name, String(cell.seed), ...sweep.varyKeys.map((key) => cell.vary[key])]);
     console.log(formatTable(header, rows));
-    console.log(`${cells.length} cells (${sweep.combinations.length} combinations × ${sweep.seeds.length} seeds × learners); out ${sweep.out}`);
-    return 0;
+    const learners = sweep.filled.learners.length; // vary changes learners' settings, never their number
+    const factors = [count(sweep.combinations.length, 'combination'), count(sweep.seeds.length, 'seed'), count(learners, 'learner')];
+    console.log(`${count(cells.length, 'cell')} (${factors.join(' × ')}); out ${sweep.out}`);
+    return EXIT.success;
   });
 }

@@ -1,20 +1,22 @@
-/** `crosswise report <DIR>`: rebuilds summary.md, comparisons.csv and plots from stored results. */
+import { runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
+import { reportUsage } from './report-usage.js';
+
+/** `crosswise report`: rebuilds summary.md, comparisons.csv and plots from stored results (see report-usage.ts). */
 export async function reportCommand(args: readonly string[]): Promise<number> {
-  if (args.length !== 1 || args[0].startsWith('-')) {
-    console.error('crosswise report: expected exactly one argument, the output directory (crosswise report <DIR>)');
-    return 1;
-  }
-  try {
+  return runAction(reportUsage, args, async ({ operands: [dir] }) => {
     // Imported here so other commands do not pay for loading the plotting library.
     const { buildReport } = await import('../report/build-report.js');
-    const files = await buildReport(args[0]);
-    for (const warning of files.warnings) console.error(`warning: ${warning}`);
+    const files = await buildReport(dir).catch((error: unknown) => error as Error);
+    if (files instanceof Error) {
+      printProblem('report', files.message);
+      return EXIT.invalidInput;
+    }
+    for (const warning of files.warnings) printProblem('report', `warning: ${warning}`);
     console.log(`summary: ${files.summaryPath}`);
     console.log(`comparisons: ${files.comparisonsPath}`);
-    console.log(`plots: ${files.plots.length} in ${args[0].replace(/\/+$/, '')}/plots`);
-    return 0;
-  } catch (error) {
-    console.error(`crosswise report: ${(error as Error).message}`);
-    return 1;
-  }
+    console.log(`plots: ${files.plots.length} in ${dir.replace(/\/+$/, '')}/plots`);
+    return EXIT.success;
+  });
 }

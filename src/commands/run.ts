@@ -1,11 +1,12 @@
 import { availableParallelism } from 'node:os';
 import { PIPELINE_MODULE } from '../experiment/cell-work.js';
-import { loadSweepFrom, parseCommand, positiveInteger, UsageError, withInputErrors } from '../experiment/command-line.js';
 import type { RunEvent, RunListener } from '../experiment/events.js';
 import { plainLogger } from '../experiment/plain-log.js';
 import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
-import { BACKENDS, type BackendName } from '../learn/spec.js';
+import { loadSweepFrom, runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
 export interface DashboardHooks {
@@ -22,19 +23,22 @@ export interface RunCommandParts {
   /** Module exporting `cellWork`; the collect–train–probe pipeline unless given. */
   readonly workModule?: string;
   /** Mounts the dashboard when stdout is a terminal and --plain is not given; resolves when it has closed. */
-  readonly dashboard?: (hooks: DashboardHooks) => { waitUntilExit(): Promise<void> };
+  readonly dashboard?: Dashboard;
 }
 
-const OPTIONS = { out: { type: 'string' }, jobs: { type: 'string' }, plain: { type: 'boolean' }, backend: { type: 'string' } } as const;
+type Dashboard = (hooks: DashboardHooks) => { waitUntilExit(): Promise<void> };
 
-/** `crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu]`: the whole sweep, resumable. */
+/** The Ink dashboard, loaded only when a run shows it (Ink and React take a while to load). */
+async function terminalDashboard(): Promise<Dashboard> {
+  return (await import('../tui/dashboard/render-dashboard.js')).renderDashboard;
+}
+
+/** `crosswise run`: the whole sweep, resumable (see run-usage.ts). */
 export async function runCommand(args: readonly string[], parts: RunCommandParts = {}): Promise<number> {
-  return withInputErrors(async () => {
-    const { config, values } = parseCommand('run', args, OPTIONS);
-    const jobs = positiveInteger('jobs', values.jobs, availableParallelism());
-    const backend = backendOption(values.backend);
+  return runAction(runUsage, args, async ({ operands: [config], values }) => {
+    const jobs = values.jobs ?? availableParallelism();
     const loaded = loadSweepFrom(config, values.out);
-    const sweep = backend == null ? loaded : { ...loaded, backend };
+    const sweep = values.backend == null ? loaded : { ...loaded, backend: values.backend };
     const controller = new AbortController();
     const abandon = new AbortController();
     // The first Ctrl-C lets running cells finish; a second one abandons them (nothing half-written either way).
@@ -44,9 +48,9 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
       controller.abort();
     };
     const listeners = new Set<RunListener>();
-    const useDashboard = values.plain !== true && process.stdout.isTTY && parts.dashboard != null;
+    const useDashboard = !values.plain && process.stdout.isTTY;
     const dashboard = useDashboard
-      ? parts.dashboard?.({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
+      ? (parts.dashboard ?? await terminalDashboard())({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
       : undefined;
     if (dashboard == null) listeners.add(plainLogger((line) => console.log(line)));
     process.on('SIGINT', stop);
@@ -63,9 +67,9 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
       await dashboard?.waitUntilExit();
       if (outcome.interrupted) {
         console.log(`stopped; finished cells are kept. resume with: crosswise run ${config}${values.out == null ? '' : ` --out ${values.out}`}`);
-        return 130;
+        return EXIT.interrupted;
       }
-      return outcome.failed > 0 ? 3 : 0;
+      return outcome.failed > 0 ? EXIT.cellsFailed : EXIT.success;
     } finally {
       process.off('SIGINT', stop);
       process.off('SIGTERM', stop);
@@ -80,10 +84,4 @@ async function buildSummary(out: string): Promise<string> {
   const files = await buildReport(out).catch((error: unknown) => error as Error);
   if (files instanceof Error) return `the report could not be built: ${files.message}`;
   return `summary: ${files.summaryPath}${files.warnings.length > 0 ? ` (${files.warnings.length} warnings: ${files.warnings[0]})` : ''}`;
-}
-
-function backendOption(text: string | undefined): BackendName | undefined {
-  if (text == null) return undefined;
-  if (!(BACKENDS as readonly string[]).includes(text)) throw new UsageError(`--backend: expected one of ${BACKENDS.join(' | ')}, got '${text}'`);
-  return text as BackendName;
 }

@@ -1,12 +1,13 @@
 import { configJsonSchema } from '../experiment/schema.js';
+import { runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { schemaUsage } from './schema-usage.js';
 
-/** `crosswise schema`: prints the config JSON Schema, for editors (`crosswise schema > crosswise.schema.json`). */
+/** `crosswise schema`: prints the config JSON Schema, for editors (see schema-usage.ts). */
 export async function schemaCommand(args: readonly string[]): Promise<number> {
-  if (args.length > 0) {
-    console.error(`crosswise schema: takes no arguments, got ${args.join(' ')}`);
-    return 1;
-  }
-  const schema = { ...configJsonSchema(), title: 'crosswise sweep config' };
-  console.log(JSON.stringify(schema, null, 2));
-  return 0;
+  return runAction(schemaUsage, args, async () => {
+    const schema = { ...configJsonSchema(), title: 'crosswise sweep config' };
+    console.log(JSON.stringify(schema, null, 2));
+    return EXIT.success;
+  });
 }

@@ -3,68 +3,37 @@ import { latentClassNames } from '../collect/collector.js';
 import { latentsAt } from '../collect/latents.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
-import { channelEntryNames, channelShape } from '../senses/registry.js';
+import { CHANNEL_UNITS, channelEntryNames, channelShape } from '../senses/registry.js';
 import { senseAll } from '../senses/sense-all.js';
 import { arrivalTransition } from '../world/arrival.js';
 import { isBlocked } from '../world/movement.js';
 import { loadWorld } from '../world/parse.js';
-import { WorldFileError } from '../world/problems.js';
-import { ACTIONS, HEADINGS, type Action, type Heading, type Pose, type World } from '../world/types.js';
-
-const USAGE = 'usage: crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]';
-
-interface SenseArgs {
-  readonly worldPath: string;
-  readonly at: string;
-  readonly action: Action;
-  readonly stepIndex: number;
-  readonly json: boolean;
-}
-
-function parseArgs(args: readonly string[]): SenseArgs | string {
-  const positional: string[] = [];
-  const options = new Map<string, string>();
-  let json = false;
-  for (let i = 0; i < args.length; i++) {
-    const arg = args[i];
-    if (arg === '--json') json = true;
-    else if (arg === '--at' || arg === '--action' || arg === '--step') {
-      if (args[i + 1] == null) return `${arg} needs a value`;
-      options.set(arg, args[++i]);
-    } else if (arg.startsWith('-')) return `unknown option '${arg}'`;
-    else positional.push(arg);
-  }
-  if (positional.length !== 1) return `give exactly one world file, got ${positional.length}`;
-  const at = options.get('--at');
-  if (at == null) return '--at X,Y,HEADING is required';
-  const action = options.get('--action') ?? 'stay';
-  if (!(ACTIONS as readonly string[]).includes(action)) return `--action must be one of ${ACTIONS.join(', ')}, got '${action}'`;
-  const stepText = options.get('--step') ?? '0';
-  const stepIndex = Number(stepText);
-  if (!/^\d+$/.test(stepText)) return `--step must be a whole number >= 0, got '${stepText}'`;
-  return { worldPath: positional[0], at, action: action as Action, stepIndex, json };
-}
+import { HEADINGS, type Action, type Heading, type Pose, type World } from '../world/types.js';
+import { runAction } from './command-line.js';
+import { EXIT } from './exit-codes.js';
+import { senseUsage } from './sense-usage.js';
+import { UsageError } from './usage.js';
 
 function parsePose(world: World, at: string): Pose | string {
   const match = /^(\d+),(\d+),([a-z]+)$/.exec(at.trim());
-  if (match == null) return `--at must look like X,Y,HEADING (e.g. 2,3,north), got '${at}'`;
+  if (match == null) return `--at: expected X,Y,HEADING (e.g. 2,3,north), got '${at}'`;
   const [x, y, heading] = [Number(match[1]), Number(match[2]), match[3]];
-  if (!(HEADINGS as readonly string[]).includes(heading)) return `heading must be one of ${HEADINGS.join(', ')}, got '${heading}'`;
-  if (x >= world.width || y >= world.height) return `x=${x}, y=${y} is outside the ${world.width}×${world.height} map`;
-  if (isBlocked(world, x, y)) return `x=${x}, y=${y} is a solid cell; the agent cannot stand there`;
+  if (!(HEADINGS as readonly string[]).includes(heading)) return `--at: heading must be one of ${HEADINGS.join(', ')}, got '${heading}'`;
+  if (x >= world.width || y >= world.height) return `--at: x=${x}, y=${y} is outside the ${world.width}×${world.height} map`;
+  if (isBlocked(world, x, y)) return `--at: x=${x}, y=${y} is a solid cell; the agent cannot stand there`;
   return { x, y, heading: heading as Heading };
 }
 
-/** The `crosswise sense --json` object; sight values nest as [depth][width][rgb]. */
+/** The `crosswise sense --json` object; sight values nest as [depth][width][rgb]; `units` says what each channel's numbers measure. */
 interface SenseReport {
   readonly world: string;
   readonly pose: Pose;
   readonly action: Action;
   readonly step: number;
-  readonly sight: { readonly shape: readonly number[]; readonly values: number[][][] };
-  readonly sound: { readonly bands_hz: number[]; readonly left_db: number[]; readonly right_db: number[] };
-  readonly touch: { readonly names: readonly string[]; readonly values: number[] };
-  readonly motor: { readonly names: readonly string[]; readonly values: number[] };
+  readonly sight: { readonly units: string; readonly shape: readonly number[]; readonly values: number[][][] };
+  readonly sound: { readonly units: string; readonly bands_hz: number[]; readonly left_db: number[]; readonly right_db: number[] };
+  readonly touch: { readonly units: string; readonly names: readonly string[]; readonly values: number[] };
+  readonly motor: { readonly units: string; readonly names: readonly string[]; readonly values: number[] };
   readonly latents: Readonly<Record<string, unknown>>;
 }
 
@@ -92,14 +61,15 @@ export function senseReport(world: World, pose: Pose, action: Action, stepIndex:
   }));
   return {
     world: world.name, pose, action, step: stepIndex,
-    sight: { shape: channelShape('sight', settings), values: nest(senses.sight, channelShape('sight', settings)) as number[][][] },
+    sight: { units: CHANNEL_UNITS.sight, shape: channelShape('sight', settings), values: nest(senses.sight, channelShape('sight', settings)) as number[][][] },
     sound: {
+      units: CHANNEL_UNITS.sound,
       bands_hz: [...bandCentresHz(settings)].map((f) => round(f, 1)),
       left_db: [...senses.sound.subarray(0, bands)].map((v) => round(v, 4)),
       right_db: [...senses.sound.subarray(bands)].map((v) => round(v, 4)),
     },
-    touch: { names: channelEntryNames('touch', settings), values: [...senses.touch].map((v) => round(v, 6)) },
-    motor: { names: channelEntryNames('motor', settings), values: [...senses.motor] },
+    touch: { units: CHANNEL_UNITS.touch, names: channelEntryNames('touch', settings), values: [...senses.touch].map((v) => round(v, 6)) },
+    motor: { units: CHANNEL_UNITS.motor, names: channelEntryNames('motor', settings), values: [...senses.motor] },
     latents,
   };
 }
@@ -109,40 +79,29 @@ function table(r: SenseReport): string {
   const pad = (s: string | number, n: number) => String(s).padStart(n);
   return [
     `${r.world}: x=${r.pose.x} y=${r.pose.y} facing ${r.pose.heading}, after '${r.action}', step ${r.step}`,
-    'sight (r g b per cell; row d0 nearest, leftmost column first)',
+    `sight: ${r.sight.units}; r g b per cell, row d0 nearest, leftmost column first`,
     ...r.sight.values.map((row, d) => `  d${d}  ${row.map(cell).join(' | ')}`),
-    'sound (dB)',
+    `sound: ${r.sound.units}`,
     `  band Hz ${r.sound.bands_hz.map((f) => pad(Math.round(f), 6)).join('')}`,
     `  left    ${r.sound.left_db.map((v) => pad(v.toFixed(1), 6)).join('')}`,
     `  right   ${r.sound.right_db.map((v) => pad(v.toFixed(1), 6)).join('')}`,
-    `touch    ${r.touch.names.map((n, i) => `${n}=${r.touch.values[i]}`).join('  ')}`,
-    `motor    ${r.motor.names.map((n, i) => `${n}=${r.motor.values[i]}`).join('  ')}`,
+    `touch: ${r.touch.units}`,
+    `  ${r.touch.names.map((n, i) => `${n}=${r.touch.values[i]}`).join('  ')}`,
+    `motor: ${r.motor.units}`,
+    `  ${r.motor.names.map((n, i) => `${n}=${r.motor.values[i]}`).join('  ')}`,
     'latents',
     ...Object.entries(r.latents).map(([k, v]) => `  ${k.padEnd(20)}${String(v)}`),
   ].join('\n');
 }
 
-/** `crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]`. */
+/** `crosswise sense`: every channel and latent at one pose (see sense-usage.ts). */
 export async function senseCommand(args: readonly string[]): Promise<number> {
-  const parsed = parseArgs(args);
-  if (typeof parsed === 'string') {
-    console.error(`crosswise sense: ${parsed} (${USAGE})`);
-    return 1;
-  }
-  let world: World;
-  try {
-    world = loadWorld(parsed.worldPath);
-  } catch (error) {
-    if (!(error instanceof WorldFileError)) throw error;
-    console.error(error.message);
-    return 1;
-  }
-  const pose = parsePose(world, parsed.at);
-  const report = typeof pose === 'string' ? pose : senseReport(world, pose, parsed.action, parsed.stepIndex);
-  if (typeof report === 'string') {
-    console.error(`crosswise sense: ${report}`);
-    return 1;
-  }
-  console.log(parsed.json ? JSON.stringify(report, null, 2) : table(report));
-  return 0;
+  return runAction(senseUsage, args, async ({ operands: [worldPath], values }) => {
+    const world = loadWorld(worldPath);
+    const pose = parsePose(world, values.at);
+    const report = typeof pose === 'string' ? pose : senseReport(world, pose, values.action, values.step);
+    if (typeof report === 'string') throw new UsageError(report);
+    console.log(values.json ? JSON.stringify(report, null, 2) : table(report));
+    return EXIT.success;
+  });
 }

@@ -14,7 +14,7 @@ export function plainLine(event: RunEvent, total: number): string {
   const at = (index: number) => `[${String(index + 1).padStart(String(total).length)}/${total}]`;
   switch (event.type) {
     case 'sweep-start':
-      return `sweep ${event.name}: ${event.total} cells, ${event.skipped} already finished, ${event.jobs} jobs, out ${event.out}`;
+      return `sweep ${event.name}: ${plural(event.total, 'cell')}, ${event.skipped} already finished, ${plural(event.jobs, 'job')}, out ${event.out}`;
     case 'cell-start':
       return `${at(event.cell.index)} start ${describe(event.cell)} on worker ${event.worker}`;
     case 'epoch': {
@@ -29,6 +29,11 @@ export function plainLine(event: RunEvent, total: number): string {
     case 'sweep-done':
       return `sweep ${event.interrupted ? 'interrupted' : 'done'}: ${event.done} done, ${event.failed} failed in ${event.seconds.toFixed(1)} s; ${event.summary}`;
   }
+}
+
+/** `1 job`, `2 jobs`. */
+function plural(n: number, noun: string): string {
+  return `${n} ${noun}${n === 1 ? '' : 's'}`;
 }
 
 function describe(cell: { readonly id: string; readonly learner: string; readonly seed: number; readonly vary: Readonly<Record<string, string>> }): string {

@@ -25,24 +25,25 @@ describe('crosswise check', () => {
     expect(out).toEqual(worlds.map((w) => `${w}: ok (world)`));
   });
 
-  it('prints one line per problem with path:line:col and exits 1', async () => {
+  it('prints one line per problem, crosswise check: path:line:col: reason, and exits 1', async () => {
     const path = join(dir, 'bad.yaml');
     writeFileSync(path, 'name: x\ncell_size_m: 0\nmaterials: []\nemitters: []\nmap: |\n  #\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err[0]).toBe(`${path}:2:14: 'cell_size_m' in the world must be a number > 0 and <= 100, got 0`);
-    expect(err.every((line) => line.startsWith(`${path}:`))).toBe(true);
+    expect(err[0]).toBe(`crosswise check: ${path}:2:14: 'cell_size_m' in the world must be a number > 0 and <= 100, got 0`);
+    expect(err.every((line) => line.startsWith(`crosswise check: ${path}:`))).toBe(true);
   });
 
   it('says a file is neither a world nor anything else it knows', async () => {
     const path = join(dir, 'other.yaml');
     writeFileSync(path, 'title: hello\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err).toEqual([`${path}:1:1: not a world or config file (a world file has a 'map' key, a config a 'learners' key)`]);
+    expect(err).toEqual([`crosswise check: ${path}:1:1: not a world or config file (a world file has a 'map' key, a config a 'learners' key)`]);
   });
 
   it('reports a missing file and no arguments as errors', async () => {
     expect(await checkCommand([join(dir, 'none.yaml')])).toBe(1);
-    expect(err[0]).toBe(`${join(dir, 'none.yaml')}:1:1: cannot read the file (ENOENT)`);
+    expect(err[0]).toBe(`crosswise check: ${join(dir, 'none.yaml')}:1:1: cannot read the file (ENOENT)`);
     expect(await checkCommand([])).toBe(1);
+    expect(err[1]).toBe('crosswise check: missing <file> (usage: crosswise check <file>...)');
   });
 });

@@ -44,7 +44,8 @@ describe('experiment commands', () => {
     expect(lines[0]).toBe('index  id          learner           seed  learners.*.encoder.hidden');
     expect(lines[1]).toMatch(/^0 {6}[0-9a-f]{10} {2}sound-from-sight {2}1 {5}\[8\]$/);
     expect(lines[8]).toMatch(/^7 {6}[0-9a-f]{10} {2}untrained {9}2 {5}\[16,8\]$/);
-    expect(lines[9]).toBe(`8 cells (2 combinations × 2 seeds × learners); out ${join(dir, 'out')}`);
+    // 2 vary combinations × 2 seeds × 2 learners = 8 cells.
+    expect(lines[9]).toBe(`8 cells (2 combinations × 2 seeds × 2 learners); out ${join(dir, 'out')}`);
     expect(existsSync(join(dir, 'out'))).toBe(false);
   });
 

@@ -77,7 +77,17 @@ describe('crosswise sense --json on a hand-made closet', () => {
     const r = await senseJson('--at', '2,1,east', '--action', 'forward');
     expect(r.touch.names).toEqual(['whisker_left', 'whisker_front', 'whisker_right', 'bump_force', 'footfall_0', 'footfall_1', 'footfall_2', 'footfall_3']);
     expect(r.touch.values).toEqual([1, 1, 1, 0, 0.1, 0.2, 0.3, 0.4]);
-    expect(r.motor).toEqual({ names: ['forward', 'back', 'turn-left', 'turn-right', 'stay'], values: [1, 0, 0, 0, 0] });
+    expect(r.motor).toEqual({ units: 'one-hot action', names: ['forward', 'back', 'turn-left', 'turn-right', 'stay'], values: [1, 0, 0, 0, 0] });
+  });
+
+  it('names the unit of every channel', async () => {
+    const r = await senseJson('--at', '2,1,east');
+    expect([r.sight.units, r.sound.units, r.touch.units, r.motor.units]).toEqual([
+      'colour reflectance × lamp illumination (0..1)',
+      'dB re the world reference level, per band',
+      'whisker contact 0/1, bump force in full-speed bumps, footfall vibration 0..1',
+      'one-hot action',
+    ]);
   });
 
   it('reports the latents by name', async () => {
@@ -103,6 +113,8 @@ describe('crosswise sense without --json', () => {
     expect(lines[0]).toBe("closet: x=2 y=1 facing east, after 'forward', step 3");
     expect(lines[2]).toBe('  d0  0.00 0.00 0.00 | 0.25 0.25 0.25 | 0.00 0.00 1.00 | 0.25 0.25 0.25 | 0.00 0.00 0.00');
     expect(lines).toContain('  nearest_emitter     buzzer');
+    expect(lines).toContain('touch: whisker contact 0/1, bump force in full-speed bumps, footfall vibration 0..1');
+    expect(lines).toContain('  whisker_left=1  whisker_front=1  whisker_right=1  bump_force=0  footfall_0=0.1  footfall_1=0.2  footfall_2=0.3  footfall_3=0.4');
   });
 });
 
@@ -118,9 +130,9 @@ describe('crosswise sense argument errors', () => {
     expect(await senseCommand([join(dir, 'closet.yaml'), '--at', '1,1,up'])).toBe(1);
     expect(await senseCommand([join(dir, 'closet.yaml'), '--at', '1,1,east', '--action', 'jump'])).toBe(1);
     expect(err).toEqual([
-      'crosswise sense: x=0, y=0 is a solid cell; the agent cannot stand there',
-      "crosswise sense: heading must be one of north, east, south, west, got 'up'",
-      expect.stringMatching(/^crosswise sense: --action must be one of forward, back, turn-left, turn-right, stay, got 'jump'/),
+      'crosswise sense: --at: x=0, y=0 is a solid cell; the agent cannot stand there',
+      "crosswise sense: --at: heading must be one of north, east, south, west, got 'up'",
+      "crosswise sense: --action: expected one of forward, back, turn-left, turn-right, stay, got 'jump'",
     ]);
   });
 
@@ -128,8 +140,8 @@ describe('crosswise sense argument errors', () => {
     writeFileSync(join(dir, 'bad.yaml'), CLOSET.replace('cell_size_m', 'cell_size'));
     expect(await senseCommand([join(dir, 'bad.yaml'), '--at', '1,1,east'])).toBe(1);
     expect(err.join('\n').split('\n')).toEqual([
-      `${join(dir, 'bad.yaml')}:2:1: unknown key 'cell_size' in the world; did you mean 'cell_size_m'?`,
-      `${join(dir, 'bad.yaml')}:1:1: missing key 'cell_size_m' in the world`,
+      `crosswise sense: ${join(dir, 'bad.yaml')}:2:1: unknown key 'cell_size' in the world; did you mean 'cell_size_m'?`,
+      `crosswise sense: ${join(dir, 'bad.yaml')}:1:1: missing key 'cell_size_m' in the world`,
     ]);
   });
 });

@@ -2,25 +2,23 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { exploreCommand, parseExploreArgs } from '../../src/commands/explore.js';
+import { exploreCommand } from '../../src/commands/explore.js';
 import { checkWorldFile } from '../../src/world/parse.js';
 
 afterEach(() => { vi.restoreAllMocks(); });
 
 describe('explore command line', () => {
-  it('takes a world path and a seed', () => {
-    expect(parseExploreArgs(['w.yaml', '--seed', '0'])).toEqual({ world: 'w.yaml', seed: 0 });
-  });
-
-  it('defaults to the greenhouse demo world and seed 1', () => {
-    const parsed = parseExploreArgs([]);
-    expect('world' in parsed && parsed.world.endsWith('worlds/greenhouse.yaml') && parsed.seed === 1).toBe(true);
-  });
-
-  it('rejects a seed that is not an integer, an unknown option and a second world in one line each', () => {
-    expect(parseExploreArgs(['--seed', '1.5'])).toEqual({ error: 'explore: --seed needs an integer, got 1.5' });
-    expect(parseExploreArgs(['--sed', '2'])).toEqual({ error: "explore: unknown option '--sed'; usage: crosswise explore [world] [--seed N]" });
-    expect(parseExploreArgs(['a.yaml', 'b.yaml'])).toEqual({ error: "explore: one world at a time, got 'a.yaml' and 'b.yaml'; usage: crosswise explore [world] [--seed N]" });
+  it('rejects a seed that is not an integer, an unknown option and a second world in one line each, exit 1', async () => {
+    const printed: string[] = [];
+    vi.spyOn(console, 'error').mockImplementation((line: string) => { printed.push(line); });
+    expect(await exploreCommand(['--seed', '1.5'])).toBe(1);
+    expect(await exploreCommand(['--sed', '2'])).toBe(1);
+    expect(await exploreCommand(['a.yaml', 'b.yaml'])).toBe(1);
+    expect(printed).toEqual([
+      "crosswise explore: --seed: expected a whole number, got '1.5'",
+      "crosswise explore: unknown option '--sed' (did you mean '--seed'?); see crosswise explore --help",
+      "crosswise explore: unexpected argument 'b.yaml' (usage: crosswise explore [world] [--seed N])",
+    ]);
   });
 
   it('prints the same one-line problems as the world check, before any screen, and exits 1', async () => {
@@ -30,7 +28,7 @@ describe('explore command line', () => {
     vi.spyOn(console, 'error').mockImplementation((line: string) => { printed.push(line); });
     expect(await exploreCommand([path])).toBe(1);
     expect(printed.length).toBeGreaterThan(0);
-    expect(printed).toEqual(checkWorldFile(path));
-    expect(printed.every((line) => line.startsWith(`${path}:`) && !line.includes('\n'))).toBe(true);
+    expect(printed).toEqual(checkWorldFile(path).map((problem) => `crosswise explore: ${problem}`));
+    expect(printed.every((line) => line.startsWith(`crosswise explore: ${path}:`) && !line.includes('\n'))).toBe(true);
   });
 });

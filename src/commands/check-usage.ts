@@ -1,0 +1,13 @@
+import { defineCommand } from './usage.js';
+
+/** What `crosswise check` takes and does. */
+export const checkUsage = defineCommand({
+  name: 'check',
+  summary: 'validate config and world files',
+  details: 'Prints every problem as file:line:col and a reason, or one ok line per valid file. Nothing is written.',
+  operands: [{ name: 'file', repeats: true, description: 'config or world files (YAML)' }],
+  options: {},
+  examples: ['crosswise check configs/*.yaml worlds/*.yaml'],
+  exitCodes: [0, 1],
+  load: async () => (await import('./check.js')).checkCommand,
+});

@@ -1,0 +1,47 @@
+import { ConfigError } from '../experiment/config-errors.js';
+import { loadSweep } from '../experiment/config.js';
+import type { Sweep } from '../experiment/resolved-config.js';
+import { WorldFileError } from '../world/problems.js';
+import { EXIT } from './exit-codes.js';
+import { commandHelp, wantsHelp } from './help.js';
+import { printProblem } from './messages.js';
+import { parseArguments } from './parse-arguments.js';
+import { UsageError, type CommandUsage, type OptionDeclaration, type ParsedArguments } from './usage.js';
+
+/** The lines to print for an input problem (a config, a world or the command line), or null for any other error. */
+function inputProblems(error: unknown): readonly string[] | null {
+  if (error instanceof ConfigError) return error.lines;
+  if (error instanceof WorldFileError) return error.problems;
+  if (error instanceof UsageError) return [error.message];
+  return null;
+}
+
+/**
+ * Runs a command's body on its parsed command line. `-h`/`--help` prints the command's help
+ * instead; an invalid command line, config or world prints each problem as one
+ * `crosswise <command>: ...` line and returns exit code 1 (the body must not have written
+ * anything by then).
+ */
+export async function runAction<Os extends Record<string, OptionDeclaration>>(
+  usage: CommandUsage<Os>,
+  args: readonly string[],
+  body: (parsed: ParsedArguments<Os>) => Promise<number>,
+): Promise<number> {
+  if (wantsHelp(args)) {
+    console.log(commandHelp(usage));
+    return EXIT.success;
+  }
+  try {
+    return await body(parseArguments(usage, args));
+  } catch (error) {
+    const problems = inputProblems(error);
+    if (problems == null) throw error;
+    for (const problem of problems) printProblem(usage.name, problem);
+    return EXIT.invalidInput;
+  }
+}
+
+/** Loads a config, with `--out` overriding its output folder. */
+export function loadSweepFrom(config: string, out: string | undefined): Sweep {
+  return loadSweep(config, out == null ? {} : { out });
+}

@@ -1,0 +1,22 @@
+/** The exit codes of every crosswise command and what each means. */
+export const EXIT_CODES = {
+  0: 'success',
+  1: 'invalid input (config, world, arguments); nothing written',
+  3: 'some cells failed; the rest completed and are stored',
+  4: 'the output folder is busy or belongs to another experiment',
+  5: 'a write failed',
+  130: 'interrupted; finished cells are kept',
+} as const;
+
+/** One of the exit codes in `EXIT_CODES`. */
+export type ExitCode = keyof typeof EXIT_CODES;
+
+/** The exit codes by what happened, for `return` statements that read as words. */
+export const EXIT = {
+  success: 0,
+  invalidInput: 1,
+  cellsFailed: 3,
+  outputBusy: 4,
+  writeFailed: 5,
+  interrupted: 130,
+} as const satisfies Record<string, ExitCode>;

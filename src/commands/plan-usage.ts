@@ -1,0 +1,15 @@
+import { defineCommand } from './usage.js';
+
+/** What `crosswise plan` takes and does. */
+export const planUsage = defineCommand({
+  name: 'plan',
+  summary: "list a sweep's cells; runs and writes nothing",
+  details: 'One row per cell: its index (for crosswise cell --index), its id (its folder under cells/), learner, seed and vary values.',
+  operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
+  options: {
+    out: { kind: 'text', value: 'DIR', description: 'output folder the sweep would write to', defaultText: "the config's out" },
+  },
+  examples: ['crosswise plan configs/quickstart.yaml'],
+  exitCodes: [0, 1],
+  load: async () => (await import('./plan.js')).planCommand,
+});

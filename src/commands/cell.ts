@@ -16,7 +16,7 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     const { index } = values;
     // Checked before prepareOutput writes anything: an invalid command line leaves no trace.
     const planned = planCells(sweep).length;
-    if (index >= planned) throw new UsageError(`--index: expected an integer from 0 to ${planned - 1}, got '${index}'`);
+    if (index >= planned) throw new UsageError(`--index: expected a whole number from 0 to ${planned - 1}, got '${index}'`);
     const cells = prepareOutput(sweep);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));

@@ -81,6 +81,6 @@ describe('experiment commands', () => {
     expect([record.index, record.learner, record.seed]).toEqual([3, 'untrained', 2]);
     const wrong = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '8']);
     expect(wrong.code).toBe(1);
-    expect(wrong.stderr.trim()).toBe("crosswise cell: --index: expected an integer from 0 to 7, got '8'");
+    expect(wrong.stderr.trim()).toBe("crosswise cell: --index: expected a whole number from 0 to 7, got '8'");
   });
 });

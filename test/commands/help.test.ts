@@ -148,6 +148,14 @@ describe('crosswise <command> --help', () => {
     expect(err).toEqual([]);
   });
 
+  it('is also what crosswise help <command> prints', async () => {
+    await main(['plan', '--help']);
+    const help = [...out];
+    out.length = 0;
+    expect(await main(['help', 'plan'])).toBe(0);
+    expect(out).toEqual(help);
+  });
+
   it('treats --help after -- as an operand, not a request for help', async () => {
     expect(await main(['check', '--', '--help'])).toBe(1);
     expect(err).toEqual(['crosswise check: --help:1:1: cannot read the file (ENOENT)']);

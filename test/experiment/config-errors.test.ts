@@ -21,7 +21,7 @@ noise:
   - { channel: sight, kind: gaussian }
 `;
 
-/** The lines `crosswise run` prints for a config, after checking it wrote nothing and exited 1. */
+/** The lines `crosswise run` prints for a config, without their `crosswise run: ` prefix, after checking it wrote nothing and exited 1. */
 async function rejection(text: string): Promise<string[]> {
   const dir = configFolder(text);
   const config = join(dir, 'config.yaml');
@@ -32,7 +32,9 @@ async function rejection(text: string): Promise<string[]> {
   spy.mockRestore();
   expect(code).toBe(1);
   expect(existsSync(out)).toBe(false);
-  return errors.map((line) => line.replace(`${dir}/`, ''));
+  const prefix = 'crosswise run: ';
+  expect(errors.filter((line) => !line.startsWith(prefix))).toEqual([]);
+  return errors.map((line) => line.slice(prefix.length).replace(`${dir}/`, ''));
 }
 
 describe('config validation', () => {

@@ -14,6 +14,7 @@ export type Rng = () => number;
  *   `shuffle/<learner>` (batch order), `shuffle/<learner>/validation` (validation order);
  * - `bootstrap/<table>/<learner>/<severity>` under seed 0 (report IQM intervals);
  * - `explore/<world>/<step>/<channel>/<kind>/<severity>` (noise shown by `crosswise explore`);
+ * - `listen` (the band noise of `crosswise listen`, under the walk's seed);
  * - `bench` under seed 0 (synthetic data for `crosswise bench`).
  */
 export function createRng(seed: number, ...stream: readonly (string | number)[]): Rng {

@@ -39,7 +39,7 @@ function relativeError(a: number[], b: number[]): number {
 
 function setup(): { tower: Tower; x: number[][]; y: number[][]; batch: Batch } {
   const rng = createRng(3, 'test');
-  const tower = createTower({ inputWidth: 3, hidden: [4], outputWidth: 2, extraWidth: 0 }, 'tanh', rng);
+  const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4], outputWidth: 2, extraWidth: 0 }, 'tanh', { encoder: rng, head: rng });
   // Biases start at zero; give them values so their gradients are exercised too.
   for (const v of towerVariables(tower)) v.assign(tf.tidy(() => tf.add(v, tf.tensor(Float32Array.from({ length: v.size }, () => 0.3 * normal(rng)), v.shape))));
   const x = Array.from({ length: 5 }, () => Array.from({ length: 3 }, () => normal(rng)));
@@ -65,7 +65,8 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     await initBackend(backend);
     const { tower: unused, batch } = setup();
     tf.dispose(towerVariables(unused));
-    const tower = createTower({ inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'sigmoid', createRng(4, 'test'));
+    const rng = createRng(4, 'test');
+    const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'sigmoid', { encoder: rng, head: rng });
     const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
     const feedback = [tower.encoder[1].W, tower.head!.W] as tf.Tensor2D[]; // [B_2, B_head] = [W_2, W_head]
     const [bp, fa] = tf.tidy(() => [

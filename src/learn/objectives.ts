@@ -190,6 +190,7 @@ export function checkSpec(spec: LearnerSpec): void {
   }
   if (spec.objective === 'supervised' && spec.supervisedTargets.length === 0) fail("objective 'supervised' needs at least one latent target");
   if (!(spec.train.batch >= 1) || !Number.isInteger(spec.train.batch)) fail(`batch must be a positive integer, got ${spec.train.batch}`);
+  if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);
   if (!(spec.train.temperature > 0)) fail(`temperature must be positive, got ${spec.train.temperature}`);
   if (!(spec.train.alignEvery >= 1)) fail(`alignEvery must be at least 1, got ${spec.train.alignEvery}`);

@@ -111,10 +111,9 @@ function makeOptimizer(spec: LearnerSpec): tf.Optimizer {
 const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 /**
- * Epochs with early stopping on the validation loss: training stops once `patience`
- * epochs in a row bring no lower validation loss (patience 0 acts like 1). When training
- * ends the weights of the epoch with the lowest validation loss are restored, and that
- * epoch is returned.
+ * Epochs with early stopping on the validation loss: training stops once `patience` (≥ 1)
+ * epochs in a row bring no lower validation loss. When training ends the weights of the
+ * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
 async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
   const { spec, towers, signal } = ctx;

@@ -156,6 +156,11 @@ describe('failures and resources', () => {
     await expect(trainLearner(learnerSpec({ name: 'x', target: [] }), data, split, { seed: 1 }))
       .rejects.toThrow("learner 'x': objective 'predict' needs at least one target channel");
   });
+
+  it('rejects a patience below 1, which the config schema also forbids', async () => {
+    await expect(trainLearner(learnerSpec({ name: 'x', train: { patience: 0 } }), data, split, { seed: 1 }))
+      .rejects.toThrow("learner 'x': patience must be a positive integer, got 0");
+  });
 });
 
 describe('early stopping', () => {

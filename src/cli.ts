@@ -7,6 +7,7 @@ import { clusterUsage } from './commands/cluster-usage.js';
 import { EXIT } from './commands/exit-codes.js';
 import { exploreUsage } from './commands/explore-usage.js';
 import { commandHelp, programHelp, wantsHelp } from './commands/help.js';
+import { listenUsage } from './commands/listen-usage.js';
 import { printProblem } from './commands/messages.js';
 import { planUsage } from './commands/plan-usage.js';
 import { reportUsage } from './commands/report-usage.js';
@@ -17,7 +18,7 @@ import type { CommandUsage } from './commands/usage.js';
 
 /** Every command, in the order `crosswise --help` lists them. */
 export const COMMANDS: readonly CommandUsage[] = [
-  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, senseUsage, exploreUsage, benchUsage, schemaUsage,
+  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
 ];
 
 /** The package version (src/ and dist/ both sit one folder below package.json). */

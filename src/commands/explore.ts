@@ -1,9 +1,11 @@
 import { readdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
 import { checkWorldFile, loadWorld } from '../world/parse.js';
 import { WorldFileError } from '../world/problems.js';
 import { runAction } from './command-line.js';
+import { configWorldAndSenses } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { exploreUsage } from './explore-usage.js';
 import { UsageError } from './usage.js';
@@ -19,7 +21,10 @@ function demoWorldPaths(): string[] {
 /** `crosswise explore`: walk a world with every sense drawn live; other demo worlds are a key away (see explore-usage.ts). */
 export async function exploreCommand(args: readonly string[]): Promise<number> {
   return runAction(exploreUsage, args, async ({ operands: [world], values }) => {
-    const first = resolve(world ?? resolve(DEMO_DIR, DEFAULT_WORLD));
+    const chosen = values.config == null
+      ? { worldPath: world ?? resolve(DEMO_DIR, DEFAULT_WORLD), senses: DEFAULT_SENSE_SETTINGS }
+      : configWorldAndSenses(values.config);
+    const first = resolve(chosen.worldPath);
     const problems = checkWorldFile(first);
     if (problems.length > 0) throw new WorldFileError(problems);
     if (!process.stdin.isTTY) throw new UsageError('needs an interactive terminal (stdin is not a TTY)');
@@ -28,7 +33,7 @@ export async function exploreCommand(args: readonly string[]): Promise<number> {
     const colour = process.env.NO_COLOR == null || process.env.NO_COLOR === '';
     // Imported here: Ink and React take a while to load, and only the app needs them.
     const { renderExplore } = await import('../tui/explore/render-explore.js');
-    await renderExplore({ worlds, seed: values.seed, colour }).waitUntilExit();
+    await renderExplore({ worlds, seed: values.seed, colour, settings: chosen.senses }).waitUntilExit();
     return EXIT.success;
   });
 }

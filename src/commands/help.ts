@@ -25,10 +25,20 @@ function operandWords(operand: OperandDeclaration): string {
   return `${operand.optional === true ? `[${operand.name}]` : `<${operand.name}>`}${operand.repeats === true ? '...' : ''}`;
 }
 
-/** The one-line form of a command: `crosswise cluster <config> --out DIR [--jobs N]`. */
+/** An operand, or the option that may stand in for it, for messages: `<world> or --config FILE`. */
+export function operandOrOption(usage: CommandUsage, operand: OperandDeclaration): string {
+  const option = operand.orOption == null ? undefined : usage.options[operand.orOption];
+  return option == null ? `<${operand.name}>` : `<${operand.name}> or ${optionWords(operand.orOption as string, option)}`;
+}
+
+/** The one-line form of a command: `crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--json]`. */
 export function synopsis(usage: CommandUsage): string {
-  const operands = usage.operands.map(operandWords);
-  const options = Object.entries(usage.options).map(([name, option]) => {
+  const alternatives = new Set(usage.operands.map((o) => o.orOption).filter((name) => name != null));
+  const operands = usage.operands.map((o) => {
+    const option = o.orOption == null ? undefined : usage.options[o.orOption];
+    return option == null ? operandWords(o) : `(${operandWords(o)} | ${optionWords(o.orOption as string, option)})`;
+  });
+  const options = Object.entries(usage.options).filter(([name]) => !alternatives.has(name)).map(([name, option]) => {
     const words = optionWords(name, option);
     return option.kind !== 'flag' && option.required === true ? words : `[${words}]`;
   });
@@ -52,7 +62,8 @@ function wrap(text: string, width: number): string[] {
 
 /** Rows of `  term  text`, the texts in one column wrapped to WIDTH; a long term puts its text on the next line. */
 function table(rows: readonly (readonly [string, string])[]): string[] {
-  const column = Math.min(2 + Math.max(...rows.map(([term]) => term.length)) + 2, MAX_TERM_COLUMN);
+  const fitting = rows.map(([term]) => term.length).filter((length) => 2 + length + 2 <= MAX_TERM_COLUMN);
+  const column = 2 + Math.max(0, ...fitting) + 2;
   const indent = ' '.repeat(column);
   return rows.flatMap(([term, text]) => {
     const lines = wrap(text, WIDTH - column);

@@ -1,5 +1,5 @@
 import { suggestion } from '../experiment/config-errors.js';
-import { placeholder, synopsis } from './help.js';
+import { operandOrOption, placeholder, synopsis } from './help.js';
 import { UsageError, type CommandUsage, type OptionDeclaration, type OptionValues, type ParsedArguments } from './usage.js';
 
 /**
@@ -38,7 +38,7 @@ export function parseArguments<Os extends Record<string, OptionDeclaration>>(usa
       i++;
     }
   }
-  checkOperands(usage, operands);
+  checkOperands(usage, operands, given);
   const values = Object.fromEntries(Object.entries(usage.options).map(([name, option]) => [name, optionValue(name, option, given)]));
   return { operands, values: values as OptionValues<Os> };
 }
@@ -47,15 +47,20 @@ function optionFlags(usage: CommandUsage): string[] {
   return [...Object.keys(usage.options).map((name) => `--${name}`), '--help'];
 }
 
-function checkOperands(usage: CommandUsage, operands: readonly string[]): void {
-  const least = usage.operands.filter((operand) => operand.optional !== true).length;
-  const most = usage.operands.at(-1)?.repeats === true ? Infinity : usage.operands.length;
+/** Checks the number of operands; an operand whose stand-in option was given (`orOption`) must be left out. */
+function checkOperands(usage: CommandUsage, operands: readonly string[], given: ReadonlyMap<string, string | null>): void {
+  const replaced = usage.operands.filter((o) => o.orOption != null && given.has(o.orOption));
+  const declared = usage.operands.filter((o) => !replaced.includes(o));
+  const least = declared.filter((operand) => operand.optional !== true).length;
+  const most = declared.at(-1)?.repeats === true ? Infinity : declared.length;
+  if (replaced.length > 0 && operands.length > most) {
+    throw new UsageError(`give ${operandOrOption(usage, replaced[0])}, not both (usage: ${synopsis(usage)})`);
+  }
   if (operands.length < least) {
-    throw new UsageError(`missing <${usage.operands[operands.length].name}> (usage: ${synopsis(usage)})`);
+    throw new UsageError(`missing ${operandOrOption(usage, declared[operands.length])} (usage: ${synopsis(usage)})`);
   }
   if (operands.length > most) {
-    const extra = operands[most];
-    throw new UsageError(`unexpected argument '${extra}' (usage: ${synopsis(usage)})`);
+    throw new UsageError(`unexpected argument '${operands[most]}' (usage: ${synopsis(usage)})`);
   }
 }
 

@@ -1,7 +1,7 @@
 import { LATENT_KIND, LATENT_NAMES, type LatentName } from '../collect/dataset.js';
 import { latentClassNames } from '../collect/collector.js';
 import { latentsAt } from '../collect/latents.js';
-import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
+import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
 import { CHANNEL_UNITS, channelEntryNames, channelShape } from '../senses/registry.js';
 import { senseAll } from '../senses/sense-all.js';
@@ -10,6 +10,7 @@ import { isBlocked } from '../world/movement.js';
 import { loadWorld } from '../world/parse.js';
 import { HEADINGS, type Action, type Heading, type Pose, type World } from '../world/types.js';
 import { runAction } from './command-line.js';
+import { configWorldAndSenses } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { senseUsage } from './sense-usage.js';
 import { UsageError } from './usage.js';
@@ -46,10 +47,11 @@ function nest(values: Float32Array, shape: readonly number[]): unknown {
 }
 
 /** Every channel and latent at one pose as the JSON object of `crosswise sense --json`. */
-export function senseReport(world: World, pose: Pose, action: Action, stepIndex: number): SenseReport | string {
+export function senseReport(
+  world: World, pose: Pose, action: Action, stepIndex: number, settings: SenseSettings = DEFAULT_SENSE_SETTINGS,
+): SenseReport | string {
   const transition = arrivalTransition(world, pose, action);
   if (typeof transition === 'string') return transition;
-  const settings = DEFAULT_SENSE_SETTINGS;
   const senses = senseAll(world, pose, transition, action, stepIndex, settings);
   const bands = settings.sound.bands;
   const raw = latentsAt(world, pose, transition, settings);
@@ -97,9 +99,12 @@ function table(r: SenseReport): string {
 /** `crosswise sense`: every channel and latent at one pose (see sense-usage.ts). */
 export async function senseCommand(args: readonly string[]): Promise<number> {
   return runAction(senseUsage, args, async ({ operands: [worldPath], values }) => {
-    const world = loadWorld(worldPath);
+    const { worldPath: path, senses } = values.config == null
+      ? { worldPath, senses: DEFAULT_SENSE_SETTINGS }
+      : configWorldAndSenses(values.config);
+    const world = loadWorld(path);
     const pose = parsePose(world, values.at);
-    const report = typeof pose === 'string' ? pose : senseReport(world, pose, values.action, values.step);
+    const report = typeof pose === 'string' ? pose : senseReport(world, pose, values.action, values.step, senses);
     if (typeof report === 'string') throw new UsageError(report);
     console.log(values.json ? JSON.stringify(report, null, 2) : table(report));
     return EXIT.success;

@@ -44,7 +44,7 @@ export interface LearnerSpec {
     readonly patience: number;
     /** contrast only: InfoNCE temperature. */
     readonly temperature: number;
-    /** Non-backprop rules: record update/gradient angles every this many steps. */
+    /** Non-backprop rules: record weight-update angles every this many steps. */
     readonly alignEvery: number;
   };
   /** Write features and latents as .npy files beside the cell's results. */
@@ -58,8 +58,8 @@ export interface EpochLog {
   readonly validationLoss: number;
   readonly seconds: number;
   /**
-   * Mean angle in degrees between the rule's weight-gradient signal and the true gradient,
-   * per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
+   * Mean weight-update angle in degrees, between the rule's update of a weight matrix and the
+   * true gradient of the loss with respect to it, per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
    * target encoder's; recorded every `alignEvery` steps. Empty for backprop.
    */
   readonly alignmentDeg: readonly number[];

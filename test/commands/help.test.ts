@@ -44,6 +44,7 @@ describe('crosswise --help', () => {
       '  sense    every channel and latent at one pose of a world',
       '  explore  walk a world with every sense drawn live (an interactive terminal',
       '           app)',
+      '  listen   what the agent hears along a walk, as a stereo WAV file',
       '  bench    speed of collection, training and a whole sweep, beside PyTorch when',
       '           present',
       '  schema   print the config JSON Schema, for editors',
@@ -118,11 +119,12 @@ describe('crosswise <command> --help', () => {
     ]);
   });
 
-  it('shows sense: a required option, a long choice list behind a placeholder, literal defaults', async () => {
+  it('shows sense: an option standing in for the operand, a required option, a long choice list behind a placeholder, literal defaults', async () => {
     expect(await main(['sense', '-h'])).toBe(0);
-    expect(out.slice(2, 3)).toEqual(['usage: crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]']);
-    expect(out.slice(out.indexOf('options:'), out.indexOf('example:'))).toEqual([
+    expect(out.slice(2, 3)).toEqual(['usage: crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--action A] [--step N] [--json]']);
+    expect(out.slice(out.indexOf('options:'), out.indexOf('examples:'))).toEqual([
       'options:',
+      '  --config FILE     a sweep config, for its world and sense settings',
       "  --at X,Y,HEADING  the agent's cell (from 0, x to the right, y down) and",
       '                    heading, e.g. 2,3,north (required)',
       '  --action A        the action that brought the agent there; touch, motor and',

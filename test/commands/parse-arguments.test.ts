@@ -56,6 +56,14 @@ describe('reading a command line against its usage', () => {
     expect(problem(['w.yaml'], senseUsage)).toBe("--at X,Y,HEADING is required (the agent's cell (from 0, x to the right, y down) and heading, e.g. 2,3,north)");
   });
 
+  it('takes an option in place of an operand declared with orOption, one or the other', () => {
+    expect(parseArguments(senseUsage, ['--config', 'c.yaml', '--at', '1,1,east']).operands).toEqual([]);
+    expect(parseArguments(senseUsage, ['w.yaml', '--at', '1,1,east']).values.config).toBeUndefined();
+    const synopsis = 'crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--action A] [--step N] [--json]';
+    expect(problem(['w.yaml', '--config', 'c.yaml', '--at', '1,1,east'], senseUsage)).toBe(`give <world> or --config FILE, not both (usage: ${synopsis})`);
+    expect(problem(['--at', '1,1,east'], senseUsage)).toBe(`missing <world> or --config FILE (usage: ${synopsis})`);
+  });
+
   it('does not mistake a name inherited by every object for an option', () => {
     expect(problem(['sweep.yaml', '--constructor', 'x'])).toBe("unknown option '--constructor'; see crosswise run --help");
   });

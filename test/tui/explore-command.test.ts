@@ -3,32 +3,44 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { exploreCommand } from '../../src/commands/explore.js';
+import { checkConfigFile } from '../../src/experiment/config.js';
 import { checkWorldFile } from '../../src/world/parse.js';
 
 afterEach(() => { vi.restoreAllMocks(); });
 
+/** What `crosswise explore` prints on stderr for each command line, all expected to exit 1. */
+async function rejections(...lines: (readonly string[])[]): Promise<string[]> {
+  const printed: string[] = [];
+  vi.spyOn(console, 'error').mockImplementation((line: string) => { printed.push(line); });
+  for (const args of lines) expect(await exploreCommand(args)).toBe(1);
+  return printed;
+}
+
 describe('explore command line', () => {
-  it('rejects a seed that is not an integer, an unknown option and a second world in one line each, exit 1', async () => {
-    const printed: string[] = [];
-    vi.spyOn(console, 'error').mockImplementation((line: string) => { printed.push(line); });
-    expect(await exploreCommand(['--seed', '1.5'])).toBe(1);
-    expect(await exploreCommand(['--sed', '2'])).toBe(1);
-    expect(await exploreCommand(['a.yaml', 'b.yaml'])).toBe(1);
-    expect(printed).toEqual([
+  it('rejects a seed that is not an integer, an unknown option, a second world, and a world with --config, one line each', async () => {
+    const usage = 'usage: crosswise explore ([world] | --config FILE) [--seed N]';
+    expect(await rejections(['--seed', '1.5'], ['--sed', '2'], ['a.yaml', 'b.yaml'], ['a.yaml', '--config', 'c.yaml'])).toEqual([
       "crosswise explore: --seed: expected a whole number, got '1.5'",
       "crosswise explore: unknown option '--sed' (did you mean '--seed'?); see crosswise explore --help",
-      "crosswise explore: unexpected argument 'b.yaml' (usage: crosswise explore [world] [--seed N])",
+      `crosswise explore: unexpected argument 'b.yaml' (${usage})`,
+      `crosswise explore: give <world> or --config FILE, not both (${usage})`,
     ]);
   });
 
   it('prints the same one-line problems as the world check, before any screen, and exits 1', async () => {
     const path = join(mkdtempSync(join(tmpdir(), 'crosswise-explore-')), 'broken.yaml');
     writeFileSync(path, 'name: broken\ncell_size_m: -1\nmaterials: []\nemitters: []\nmap: |\n  #?#\n');
-    const printed: string[] = [];
-    vi.spyOn(console, 'error').mockImplementation((line: string) => { printed.push(line); });
-    expect(await exploreCommand([path])).toBe(1);
+    const printed = await rejections([path]);
     expect(printed.length).toBeGreaterThan(0);
     expect(printed).toEqual(checkWorldFile(path).map((problem) => `crosswise explore: ${problem}`));
     expect(printed.every((line) => line.startsWith(`crosswise explore: ${path}:`) && !line.includes('\n'))).toBe(true);
+  });
+
+  it('prints a config\'s problems as the config loader words them, before any screen, and exits 1', async () => {
+    const path = join(mkdtempSync(join(tmpdir(), 'crosswise-explore-')), 'bad.yaml');
+    writeFileSync(path, 'name: bad\nworld: ../nowhere.yaml\nsenses: { sound: { bands: 0 } }\nlearners: [{ name: a, objective: untrained, input: [sight] }]\n');
+    const printed = await rejections(['--config', path]);
+    expect(printed).toEqual(checkConfigFile(path).map((problem) => `crosswise explore: ${problem}`));
+    expect(printed.some((line) => line.startsWith(`crosswise explore: ${path}:3:`) && line.includes('senses.sound.bands'))).toBe(true);
   });
 });

@@ -25,18 +25,23 @@ function operandWords(operand: OperandDeclaration): string {
   return `${operand.optional === true ? `[${operand.name}]` : `<${operand.name}>`}${operand.repeats === true ? '...' : ''}`;
 }
 
+/** The words of the option that may be given instead of an operand (`--config FILE`), or null. */
+function standIn(usage: CommandUsage, operand: OperandDeclaration): string | null {
+  return operand.orOption == null ? null : optionWords(operand.orOption, usage.options[operand.orOption]);
+}
+
 /** An operand, or the option that may stand in for it, for messages: `<world> or --config FILE`. */
 export function operandOrOption(usage: CommandUsage, operand: OperandDeclaration): string {
-  const option = operand.orOption == null ? undefined : usage.options[operand.orOption];
-  return option == null ? `<${operand.name}>` : `<${operand.name}> or ${optionWords(operand.orOption as string, option)}`;
+  const option = standIn(usage, operand);
+  return option == null ? `<${operand.name}>` : `<${operand.name}> or ${option}`;
 }
 
 /** The one-line form of a command: `crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--json]`. */
 export function synopsis(usage: CommandUsage): string {
   const alternatives = new Set(usage.operands.map((o) => o.orOption).filter((name) => name != null));
   const operands = usage.operands.map((o) => {
-    const option = o.orOption == null ? undefined : usage.options[o.orOption];
-    return option == null ? operandWords(o) : `(${operandWords(o)} | ${optionWords(o.orOption as string, option)})`;
+    const option = standIn(usage, o);
+    return option == null ? operandWords(o) : `(${operandWords(o)} | ${option})`;
   });
   const options = Object.entries(usage.options).filter(([name]) => !alternatives.has(name)).map(([name, option]) => {
     const words = optionWords(name, option);

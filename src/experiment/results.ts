@@ -1,7 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { csvLine } from '../report/csv.js';
-import { RESULTS_COLUMNS, type ResultRow } from '../report/results-table.js';
+import { csvLine } from '../results/csv.js';
+import { RESULTS_COLUMNS, type ResultRow } from '../results/results-table.js';
 import type { ScoreRow } from './events.js';
 import type { PlannedCell } from './plan.js';
 

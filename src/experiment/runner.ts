@@ -6,7 +6,7 @@ import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
 import { collectResults } from './results.js';
-import { writeFileAtomic } from '../report/atomic.js';
+import { writeFileAtomic } from '../results/atomic-file.js';
 import { isFinished, readCellRecord, removePartialCells, storeCell, type CellResult } from './store.js';
 
 /** How to run a sweep. */

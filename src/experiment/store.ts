@@ -5,9 +5,9 @@ import { dirname, join } from 'node:path';
 import type { EpochLog } from '../learn/spec.js';
 import type { CellOutcome } from './cell-work.js';
 import type { PlannedCell } from './plan.js';
-import { csvLine } from '../report/csv.js';
-import { encodeNpy } from '../report/npy.js';
-import { formatResultsCsv } from '../report/results-table.js';
+import { csvLine } from '../results/csv.js';
+import { encodeNpy } from '../results/npy.js';
+import { formatResultsCsv } from '../results/results-table.js';
 import { resultRows } from './results.js';
 
 /** What happened to a cell, as stored in its cell.json. */

@@ -1,7 +1,7 @@
 import { mkdir, readdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { summarise } from '../stats/summarise.js';
-import { writeFileAtomic } from './atomic.js';
+import { writeFileAtomic } from '../results/atomic-file.js';
 import { compareWithBaseline, formatComparisonsCsv } from './comparisons.js';
 import { combinations, scoreGroups, severities, unique, type Combination } from './groups.js';
 import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';

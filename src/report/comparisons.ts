@@ -1,8 +1,8 @@
 import { holm } from '../stats/holm.js';
 import { pairedComparison, type PairedComparison } from '../stats/paired.js';
 import { bySeed, combinations, scoreGroups, severities, unique } from './groups.js';
-import { csvLine } from './csv.js';
-import type { ResultRow } from './results-table.js';
+import { csvLine } from '../results/csv.js';
+import type { ResultRow } from '../results/results-table.js';
 
 /** One learner against the baseline at one target, noise and severity, paired by seed. */
 export interface Comparison extends PairedComparison {

@@ -1,4 +1,4 @@
-import type { ResultRow } from './results-table.js';
+import type { ResultRow } from '../results/results-table.js';
 
 /** One combination of vary values, with the result rows measured under it. */
 export interface Combination {

@@ -3,7 +3,7 @@ import { summarise, type Summary } from '../stats/summarise.js';
 import { preparedCka, prepareCka } from '../probe/cka.js';
 import { comboKey, unique, type Combination } from './groups.js';
 import type { StoredCell, StoredRun } from './load.js';
-import { readNpy, type NpyArray } from './npy.js';
+import { readNpy, type NpyArray } from '../results/npy.js';
 
 /** CKA between every pair of learners on clean test features, summarised over seeds. */
 export interface LearnerCka {

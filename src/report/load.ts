@@ -2,8 +2,8 @@ import { existsSync } from 'node:fs';
 import { readdir, readFile, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parse as parseYaml } from 'yaml';
-import { parseCsv } from './csv.js';
-import { parseResultsCsv, type ResultRow, type ResultsTable } from './results-table.js';
+import { parseCsv } from '../results/csv.js';
+import { parseResultsCsv, type ResultRow, type ResultsTable } from '../results/results-table.js';
 
 /** What the report reads from a cell folder (cells/<id>/cell.json and train.csv); the writer's form is CellRecord in experiment/store.ts. */
 export interface StoredCell {

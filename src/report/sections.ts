@@ -5,7 +5,7 @@ import { isReliable, type Comparison } from './comparisons.js';
 import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
 import type { StoredCell } from './load.js';
-import type { ResultRow } from './results-table.js';
+import type { ResultRow } from '../results/results-table.js';
 import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
-import { decodeNpy } from '../../src/report/npy.js';
+import { decodeNpy } from '../../src/results/npy.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 const crosswise = (...args: string[]) => promisify(execFile)(process.execPath, [join(ROOT, 'bin/crosswise.js'), ...args], { cwd: ROOT });

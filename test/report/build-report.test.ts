@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildReport, type ReportFiles } from '../../src/report/build-report.js';
-import { parseCsv } from '../../src/report/csv.js';
+import { parseCsv } from '../../src/results/csv.js';
 import { writeFixture } from './fixture.js';
 
 let dir = '';

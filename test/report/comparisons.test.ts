@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { compareWithBaseline, holmFamilySize } from '../../src/report/comparisons.js';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ResultRow } from '../../src/results/results-table.js';
 
 // Test data: learners a (baseline) and b, three seeds, one target, two noises that share
 // the clean (severity 0) score and differ at severity 1.

@@ -1,7 +1,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { encodeNpy } from '../../src/report/npy.js';
-import { formatResultsCsv, type ResultRow } from '../../src/report/results-table.js';
+import { encodeNpy } from '../../src/results/npy.js';
+import { formatResultsCsv, type ResultRow } from '../../src/results/results-table.js';
 
 /**
  * Test data (invented, not measurements): three learners, three seeds, one continuous

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ResultRow } from '../../src/results/results-table.js';
 import { iqmTable } from '../../src/report/sections.js';
 
 // Test data: one learner, ten seeds scoring 0.1, 0.2, …, 1.0 at severity 0.

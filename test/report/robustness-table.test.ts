@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ResultRow } from '../../src/results/results-table.js';
 import { robustnessTable } from '../../src/report/sections.js';
 
 // Test data: one seed per learner so each mean is the value itself.

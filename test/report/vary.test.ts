@@ -3,8 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/report/build-report.js';
-import { parseCsv } from '../../src/report/csv.js';
-import { formatResultsCsv, type ResultRow } from '../../src/report/results-table.js';
+import { parseCsv } from '../../src/results/csv.js';
+import { formatResultsCsv, type ResultRow } from '../../src/results/results-table.js';
 
 // Test data: two learners, two seeds, a vary key with two values; the second combination's
 // scores are the first's plus 0.1 for learner b only.

@@ -2,7 +2,7 @@ import { readFile, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/report/build-report.js';
-import { parseCsv } from '../../src/report/csv.js';
+import { parseCsv } from '../../src/results/csv.js';
 import { configFolder, spawnWithFake } from '../experiment/helpers.js';
 
 // The runner's own output layout, produced by `crosswise run` with the experiment tests'

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { parseCsv } from '../../src/report/csv.js';
-import { formatResultsCsv, parseResultsCsv, type ResultRow } from '../../src/report/results-table.js';
+import { parseCsv } from '../../src/results/csv.js';
+import { formatResultsCsv, parseResultsCsv, type ResultRow } from '../../src/results/results-table.js';
 
 // Test data: two invented rows.
 const rows: ResultRow[] = [

@@ -1,18 +1,19 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { csvLine } from '../results/csv.js';
-import { RESULTS_COLUMNS, type ResultRow } from '../results/results-table.js';
-import type { ScoreRow } from './events.js';
+import { RESULTS_COLUMNS, type Measurement, type ResultRow } from '../results/results-table.js';
 import type { PlannedCell } from './plan.js';
 
-/** A cell's scores as results.csv rows. */
-export function resultRows(cell: PlannedCell, scores: readonly ScoreRow[]): ResultRow[] {
-  return scores.map((score) => ({
-    ...score,
+/** A cell's measurements as results.csv rows. */
+export function resultRows(cell: PlannedCell, measurements: readonly Measurement[]): ResultRow[] {
+  return measurements.map((measurement) => ({
     cell: cell.id,
+    learner: cell.learner.name,
     objective: cell.learner.objective,
     rule: cell.learner.rule,
+    seed: cell.seed,
     vary: cell.vary,
+    ...measurement,
   }));
 }
 

@@ -2,7 +2,7 @@ import { holm } from '../stats/holm.js';
 import { pairedComparison, type PairedComparison } from '../stats/paired.js';
 import { bySeed, combinations, scoreGroups, severities, unique } from './groups.js';
 import { csvLine } from '../results/csv.js';
-import type { ResultRow } from '../results/results-table.js';
+import type { ScoreRow } from '../results/results-table.js';
 
 /** One learner against the baseline at one target, noise and severity, paired by seed. */
 export interface Comparison extends PairedComparison {
@@ -23,7 +23,7 @@ export interface Comparison extends PairedComparison {
  * Every paired comparison of a learner's probe score with the baseline's, Holm-adjusted
  * together across the whole report (all combinations, targets, noises and severities).
  */
-export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
+export function compareWithBaseline(rows: readonly ScoreRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
   const raw: Omit<Comparison, 'pHolm'>[] = [];
   for (const combo of combinations(rows, varyKeys)) {
     const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => l !== baseline);

@@ -3,7 +3,7 @@ import { readdir, readFile, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { parseCsv } from '../results/csv.js';
-import { parseResultsCsv, type ResultRow, type ResultsTable } from '../results/results-table.js';
+import { isScore, parseResultsCsv, type ResultsTable, type ScoreRow } from '../results/results-table.js';
 
 /** What the report reads from a cell folder (cells/<id>/cell.json and train.csv); the writer's form is CellRecord in experiment/store.ts. */
 export interface StoredCell {
@@ -26,7 +26,8 @@ export interface StoredRun {
   readonly name: string;
   readonly baseline: string | null;
   readonly varyKeys: readonly string[];
-  readonly rows: readonly ResultRow[];
+  /** The probe scores at each severity. */
+  readonly rows: readonly ScoreRow[];
   readonly cells: readonly StoredCell[];
   readonly warnings: readonly string[];
 }
@@ -50,7 +51,7 @@ export async function loadRun(outDir: string): Promise<StoredRun> {
     warnings.push(`config.resolved.yaml: probe.baseline: '${baseline}' has no results, so no paired comparisons or CE`);
     baseline = null;
   }
-  return { outDir, name: config.name, baseline, varyKeys: table.varyKeys, rows: table.rows, cells, warnings };
+  return { outDir, name: config.name, baseline, varyKeys: table.varyKeys, rows: table.rows.filter(isScore), cells, warnings };
 }
 
 /**

@@ -5,19 +5,19 @@ import { isReliable, type Comparison } from './comparisons.js';
 import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
 import type { StoredCell } from './load.js';
-import type { ResultRow } from '../results/results-table.js';
+import type { ScoreRow } from '../results/results-table.js';
 import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */
 export const FEW_SEEDS = 10;
 
 /** Mean ± CI of one learner's metric at each severity. */
-export function learnerSummaries(rows: readonly ResultRow[], learner: string, levels: readonly number[]): Summary[] {
+export function learnerSummaries(rows: readonly ScoreRow[], learner: string, levels: readonly number[]): Summary[] {
   return levels.map((s) => summarise([...bySeed(rows, (r) => r.learner === learner && r.severity === s).values()]));
 }
 
 /** The learner × severity table of a metric, with an optional chance row. */
-export function scoreTable(rows: readonly ResultRow[], chance: readonly ResultRow[]): string[] {
+export function scoreTable(rows: readonly ScoreRow[], chance: readonly ScoreRow[]): string[] {
   const levels = severities(rows);
   const body = unique(rows.map((r) => r.learner)).map((l) => [l, ...learnerSummaries(rows, l, levels).map(meanCi)]);
   if (chance.length > 0) {
@@ -38,7 +38,7 @@ export function comparisonTable(comparisons: readonly Comparison[]): string[] {
  * Normalised area, drop from clean, CE and relative CE of each learner's mean curve
  * (definitions in src/probe/robustness.ts), then one line naming why any figure is n/a.
  */
-export function robustnessTable(rows: readonly ResultRow[], baseline: string | null): string[] {
+export function robustnessTable(rows: readonly ScoreRow[], baseline: string | null): string[] {
   const levels = severities(rows);
   const curve = (learner: string): CurvePoint[] =>
     learnerSummaries(rows, learner, levels).map((s, i) => ({ severity: levels[i], score: s.mean }));
@@ -97,7 +97,7 @@ export function verdict(target: string, noise: Noise, baseline: string, comparis
  * (Agarwal et al. 2021, NeurIPS), for runs with many seeds. The bootstrap stream is
  * seeded from a fixed name, so the same results give the same table.
  */
-export function iqmTable(rows: readonly ResultRow[], streamName: string): string[] {
+export function iqmTable(rows: readonly ScoreRow[], streamName: string): string[] {
   const levels = severities(rows);
   return table(['learner', ...levels.map((s) => `severity ${s}`)], unique(rows.map((r) => r.learner)).map((learner) => [
     learner, ...levels.map((s) => {

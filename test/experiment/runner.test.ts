@@ -45,7 +45,7 @@ describe('crosswise run (with a test double for the cell work)', () => {
     expect(results).toBe(readFileSync(join(two, 'out', 'results.csv'), 'utf8'));
     // 8 cells × 5 targets × 3 severities, plus the header.
     expect(results.trim().split('\n')).toHaveLength(8 * 5 * 3 + 1);
-    expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,metric,value,collect.steps');
+    expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,parameter,measure,metric,value,collect.steps');
   });
 
   it('writes config.resolved.yaml, and cell.json and train.csv for every cell', () => {

@@ -30,10 +30,11 @@ export async function writeFixture(dir: string, options: { features?: boolean } 
       const cell = `${learner.slice(0, 5)}-${seed}`;
       const base = { cell, learner, objective: META[learner][0], rule: META[learner][1], seed, channel: 'sight', kind: 'gaussian', vary: {} };
       for (const severity of [0, 1]) {
-        rows.push({ ...base, target: 'x', severity, metric: 'r2', value: SCORES[learner][seed][severity] });
-        rows.push({ ...base, target: 'wall_ahead', severity, metric: 'accuracy', value: 0.9 - 0.1 * severity - 0.01 * seed });
-        rows.push({ ...base, target: 'wall_ahead', severity, metric: 'chance', value: 0.6 });
-        rows.push({ ...base, target: '-', severity, metric: 'cka', value: 1 - 0.2 * severity });
+        const at = { severity, parameter: [0, 0.25][severity], measure: 'score' } as const; // σ from the severity table
+        rows.push({ ...base, target: 'x', ...at, metric: 'r2', value: SCORES[learner][seed][severity] });
+        rows.push({ ...base, target: 'wall_ahead', ...at, metric: 'accuracy', value: 0.9 - 0.1 * severity - 0.01 * seed });
+        rows.push({ ...base, target: 'wall_ahead', ...at, metric: 'chance', value: 0.6 });
+        rows.push({ ...base, target: '-', ...at, metric: 'cka', value: 1 - 0.2 * severity });
       }
       const cellDir = join(dir, 'cells', cell);
       await mkdir(cellDir, { recursive: true });

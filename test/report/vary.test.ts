@@ -15,7 +15,7 @@ function rows(): ResultRow[] {
       for (const seed of [1, 2]) {
         const bump = hidden === '[128, 64]' && learner === 'b' ? 0.1 : 0;
         out.push({ cell: `${learner}${seed}${hidden.length}`, learner, objective: 'predict', rule: 'backprop', seed, target: 'y',
-          channel: 'sound', kind: 'masking', severity: 0, metric: 'r2', value: 0.5 + 0.1 * seed + (learner === 'b' ? 0.05 * seed : 0) + bump,
+          channel: 'sound', kind: 'masking', severity: 0, parameter: Infinity, measure: 'score', metric: 'r2', value: 0.5 + 0.1 * seed + (learner === 'b' ? 0.05 * seed : 0) + bump,
           vary: { 'learners.*.encoder.hidden': hidden } });
       }
     }

@@ -26,14 +26,14 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
   const split = splitByEpisode(data, cell.collect.split, cell.seed);
   const collectSeconds = clock();
   await initBackend(cell.backend);
-  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch });
+  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch, alignEvery: cell.output.alignEvery });
   const trainSeconds = clock();
   try {
     const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
     const rows: Measurement[] = evaluation.rows.map((row) => ({ ...row, measure: 'score' }));
     const arrays: Record<string, NpyArray> = {
       test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },
-      ...(cell.learner.saveFeatures ? everyStep(encoder, data) : {}),
+      ...(cell.output.saveFeatures ? everyStep(encoder, data) : {}),
     };
     const outcome: CellOutcome = {
       rows,

@@ -110,10 +110,12 @@ export function iqmTable(rows: readonly ScoreRow[], streamName: string): string[
 
 /** Final-epoch angle between each rule's update and the true gradient, per learner and layer, over seeds. */
 export function alignmentTable(cells: readonly StoredCell[]): string[] {
-  const measured = cells.filter((c) => c.status === 'done' && Object.keys(c.finalAlignmentDeg).length > 0);
-  const layers = unique(measured.flatMap((c) => Object.keys(c.finalAlignmentDeg)));
-  if (layers.length === 0) return [];
-  return table(['learner', ...layers.map((l) => `layer ${l} (degrees)`)], unique(measured.map((c) => c.learner)).map((learner) => [
-    learner, ...layers.map((layer) => meanCi(summarise(measured.filter((c) => c.learner === learner).map((c) => c.finalAlignmentDeg[layer] ?? NaN)))),
+  const measured = cells.filter((c) => c.record.status === 'done' && (c.log.at(-1)?.alignmentDeg.length ?? 0) > 0);
+  const layers = Math.max(0, ...measured.map((c) => c.log.at(-1)?.alignmentDeg.length ?? 0));
+  if (layers === 0) return [];
+  const learnerOf = (c: StoredCell) => c.record.identity.learner.name;
+  const finalAngle = (c: StoredCell, layer: number) => c.log.at(-1)?.alignmentDeg[layer] ?? NaN;
+  return table(['learner', ...Array.from({ length: layers }, (_, i) => `layer ${i + 1} (degrees)`)], unique(measured.map(learnerOf)).map((learner) => [
+    learner, ...Array.from({ length: layers }, (_, layer) => meanCi(summarise(measured.filter((c) => learnerOf(c) === learner).map((c) => finalAngle(c, layer))))),
   ]));
 }

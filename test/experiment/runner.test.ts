@@ -49,6 +49,12 @@ describe('crosswise run (with a test double for the cell work)', () => {
     expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,parameter,measure,metric,value,collect.steps');
   });
 
+  it('writes the same summary.md and comparisons.csv whatever order the cells finished in', () => {
+    for (const file of ['summary.md', 'comparisons.csv']) {
+      expect(readFileSync(join(one, 'out', file), 'utf8')).toBe(readFileSync(join(two, 'out', file), 'utf8'));
+    }
+  });
+
   it('writes config.resolved.yaml, and cell.json and train.csv for every cell', () => {
     const out = join(two, 'out');
     const cells = cellFolders(out);

@@ -54,8 +54,8 @@ export interface EpochLog {
   readonly validationLoss: number;
   readonly seconds: number;
   /**
-   * Mean angle in degrees between the rule's weight-gradient signal and the true gradient,
-   * per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
+   * Mean weight-update angle in degrees, between the rule's update of a weight matrix and the
+   * true gradient of the loss with respect to it, per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
    * target encoder's; recorded every `alignEvery` steps (TrainOptions). Empty for backprop.
    */
   readonly alignmentDeg: readonly number[];

@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { clusterScript } from '../experiment/cluster-script.js';
 import { planCells } from '../experiment/plan.js';
-import { writeFileAtomic } from '../report/atomic.js';
+import { writeFileAtomic } from '../results/atomic-file.js';
 import { clusterUsage } from './cluster-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';

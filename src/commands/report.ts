@@ -3,7 +3,7 @@ import { EXIT } from './exit-codes.js';
 import { printProblem } from './messages.js';
 import { reportUsage } from './report-usage.js';
 
-/** `crosswise report`: rebuilds summary.md, comparisons.csv and plots from stored results (see report-usage.ts). */
+/** `crosswise report`: rebuilds results.csv, summary.md, comparisons.csv and plots from the stored cells (see report-usage.ts). */
 export async function reportCommand(args: readonly string[]): Promise<number> {
   return runAction(reportUsage, args, async ({ operands: [dir] }) => {
     // Imported here so other commands do not pay for loading the plotting library.
@@ -14,6 +14,7 @@ export async function reportCommand(args: readonly string[]): Promise<number> {
       return EXIT.invalidInput;
     }
     for (const warning of files.warnings) printProblem('report', `warning: ${warning}`);
+    console.log(`results: ${files.resultsPath}`);
     console.log(`summary: ${files.summaryPath}`);
     console.log(`comparisons: ${files.comparisonsPath}`);
     console.log(`plots: ${files.plots.length} in ${dir.replace(/\/+$/, '')}/plots`);

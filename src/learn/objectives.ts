@@ -193,5 +193,4 @@ export function checkSpec(spec: LearnerSpec): void {
   if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);
   if (!(spec.train.temperature > 0)) fail(`temperature must be positive, got ${spec.train.temperature}`);
-  if (!(spec.train.alignEvery >= 1)) fail(`alignEvery must be at least 1, got ${spec.train.alignEvery}`);
 }

@@ -44,11 +44,7 @@ export interface LearnerSpec {
     readonly patience: number;
     /** contrast only: InfoNCE temperature. */
     readonly temperature: number;
-    /** Non-backprop rules: record weight-update angles every this many steps. */
-    readonly alignEvery: number;
   };
-  /** Write features and latents as .npy files beside the cell's results. */
-  readonly saveFeatures: boolean;
 }
 
 /** One line of the training log. */
@@ -60,7 +56,7 @@ export interface EpochLog {
   /**
    * Mean weight-update angle in degrees, between the rule's update of a weight matrix and the
    * true gradient of the loss with respect to it, per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
-   * target encoder's; recorded every `alignEvery` steps. Empty for backprop.
+   * target encoder's; recorded every `alignEvery` steps (TrainOptions). Empty for backprop.
    */
   readonly alignmentDeg: readonly number[];
 }

@@ -17,6 +17,12 @@ export interface TrainOptions {
   /** The cell seed: initialisation, feedback matrices and batch order derive from it and the learner's settings (streams.ts). */
   readonly seed: number;
   readonly onEpoch?: (log: EpochLog) => void;
+  /**
+   * Non-backprop rules: measure the update/gradient angle every this many steps (and at
+   * an epoch's last step when no step of it was measured). Left out, only that last step
+   * is measured. Measuring reads the weights and never changes them.
+   */
+  readonly alignEvery?: number;
 }
 
 /** A frozen encoder and its training log. */
@@ -49,6 +55,7 @@ interface EpochContext {
   readonly signal: TrainingSignal;
   readonly optimizer: tf.Optimizer;
   readonly shuffle: Rng;
+  readonly alignEvery: number | undefined;
   step: number;
 }
 
@@ -64,7 +71,8 @@ function trainEpoch(ctx: EpochContext, train: SplitTensors, epoch: number): { lo
     const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
     if (rows.length < minBatch(spec)) continue;
     const last = start + spec.train.batch >= train.n;
-    const record = spec.rule !== 'backprop' && (ctx.step % spec.train.alignEvery === 0 || (last && !angles.recorded));
+    const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
+    const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
     const value = tf.tidy(() => {
       const batch = gatherBatch(train, rows);
       const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
@@ -157,6 +165,9 @@ async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: Spl
  */
 export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedNetwork> {
   checkSpec(spec);
+  if (options.alignEvery != null && !(Number.isInteger(options.alignEvery) && options.alignEvery >= 1)) {
+    throw new Error(`learner '${spec.name}': alignEvery must be a positive integer, got ${options.alignEvery}`);
+  }
   const objective = OBJECTIVE_REGISTRY[spec.objective](spec, data);
   const stats = new TrainingStatistics(data, split.train);
   const signal = objective.signal;
@@ -174,7 +185,7 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   const optimizer = makeOptimizer(spec);
   let bestEpoch = 0;
   try {
-    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), step: 0 };
+    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);

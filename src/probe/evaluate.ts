@@ -19,6 +19,8 @@ export interface EvaluationRow {
   readonly channel: string;
   readonly kind: string;
   readonly severity: number;
+  /** The corruption parameter used at this severity (noiseParameter: the clean value at severity 0). */
+  readonly parameter: number;
   readonly metric: 'r2' | 'accuracy' | 'chance' | 'cka';
   readonly value: number;
 }
@@ -104,14 +106,15 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
     const testValues = takeRows(data.channels[spec.channel], size, split.test);
     const reads = encoder.input.includes(spec.channel);
     spec.severities.forEach((severity, i) => {
+      const parameter = noiseParameter(spec, i);
       let condition = clean;
       if (severity > 0 && reads) {
         const rng = noiseRng(seed, spec.channel, spec.kind, severity);
-        const values = corruptChannel(testValues, size, spec.kind, noiseParameter(spec, i), reference, rng);
+        const values = corruptChannel(testValues, size, spec.kind, parameter, reference, rng);
         const features = extract(split.test, { channel: spec.channel, values });
         condition = measure(features, toBasis(basis, features, nTest));
       }
-      rows.push(...conditionRows(spec, severity, condition, labels, chance));
+      rows.push(...conditionRows({ channel: spec.channel, kind: spec.kind, severity, parameter }, condition, labels, chance));
     });
   }
   const testFeatureRows = Math.min(nTest, TEST_FEATURE_ROWS);
@@ -126,8 +129,9 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
   };
 }
 
-function conditionRows(spec: NoiseSpec, severity: number, condition: Condition, labels: readonly TestLabels[], chance: readonly number[]): EvaluationRow[] {
-  const at = { channel: spec.channel, kind: spec.kind, severity };
+type NoiseLevel = Pick<EvaluationRow, 'channel' | 'kind' | 'severity' | 'parameter'>;
+
+function conditionRows(at: NoiseLevel, condition: Condition, labels: readonly TestLabels[], chance: readonly number[]): EvaluationRow[] {
   const rows: EvaluationRow[] = [];
   labels.forEach(({ probe }, t) => {
     rows.push({ target: probe.target.name, ...at, metric: probe.target.metric, value: condition.scores[t] });

@@ -16,11 +16,23 @@ function inputProblems(error: unknown): readonly string[] | null {
   return null;
 }
 
+/** File-system calls that only ever write; `open` counts as a write only for errors no read gives. */
+const WRITE_CALLS = new Set(['mkdir', 'rename', 'write', 'copyfile', 'chmod', 'unlink', 'rmdir', 'symlink', 'link']);
+const WRITE_ONLY_CODES = new Set(['EROFS', 'ENOSPC', 'EDQUOT', 'EISDIR', 'EEXIST']);
+
+/** `cannot write <path>: <code>` when the error is a failed write to the file system, else null. */
+function writeFailure(error: unknown): string | null {
+  const { syscall, code, path } = error as Partial<NodeJS.ErrnoException>;
+  if (!(error instanceof Error) || syscall == null || code == null) return null;
+  const writing = WRITE_CALLS.has(syscall) || (syscall === 'open' && WRITE_ONLY_CODES.has(code));
+  return writing ? `cannot write ${path ?? 'a file'}: ${code} (${syscall})` : null;
+}
+
 /**
  * Runs a command's body on its parsed command line. `-h`/`--help` prints the command's help
  * instead; an invalid command line, config or world prints each problem as one
  * `crosswise <command>: ...` line and returns exit code 1 (the body must not have written
- * anything by then).
+ * anything by then); a failed write to the file system is one line and exit code 5.
  */
 export async function runAction<Os extends Record<string, OptionDeclaration>>(
   usage: CommandUsage<Os>,
@@ -35,9 +47,14 @@ export async function runAction<Os extends Record<string, OptionDeclaration>>(
     return await body(parseArguments(usage, args));
   } catch (error) {
     const problems = inputProblems(error);
-    if (problems == null) throw error;
-    for (const problem of problems) printProblem(usage.name, problem);
-    return EXIT.invalidInput;
+    if (problems != null) {
+      for (const problem of problems) printProblem(usage.name, problem);
+      return EXIT.invalidInput;
+    }
+    const failedWrite = writeFailure(error);
+    if (failedWrite == null) throw error;
+    printProblem(usage.name, failedWrite);
+    return EXIT.writeFailed;
   }
 }
 

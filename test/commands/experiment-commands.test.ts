@@ -64,6 +64,15 @@ describe('experiment commands', () => {
     execFileSync('bash', ['-n', join(out, 'array-job.sh')]); // throws on a syntax error
   });
 
+  it('cluster reports a folder it cannot create in one line and exits 5 (a write failed)', async () => {
+    const dir = configFolder(CONFIG);
+    const errors: string[] = [];
+    vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
+    // config.yaml is a file, so no folder can be made beneath it.
+    expect(await clusterCommand([join(dir, 'config.yaml'), '--out', join(dir, 'config.yaml', 'out')])).toBe(5);
+    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out')}: ENOTDIR (mkdir)`]);
+  });
+
   it('cluster requires --out', async () => {
     const dir = configFolder(CONFIG);
     const errors: string[] = [];

@@ -21,7 +21,7 @@ const WRITE_CALLS = new Set(['mkdir', 'rename', 'write', 'copyfile', 'chmod', 'u
 const WRITE_ONLY_CODES = new Set(['EROFS', 'ENOSPC', 'EDQUOT', 'EISDIR', 'EEXIST']);
 
 /** `cannot write <path>: <code>` when the error is a failed write to the file system, else null. */
-function writeFailure(error: unknown): string | null {
+export function writeFailure(error: unknown): string | null {
   const { syscall, code, path } = error as Partial<NodeJS.ErrnoException>;
   if (!(error instanceof Error) || syscall == null || code == null) return null;
   const writing = WRITE_CALLS.has(syscall) || (syscall === 'open' && WRITE_ONLY_CODES.has(code));

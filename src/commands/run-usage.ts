@@ -15,6 +15,6 @@ export const runUsage = defineCommand({
     backend: { kind: 'choice', choices: BACKENDS, description: 'TensorFlow.js backend for training', defaultText: "the config's backend" },
   },
   examples: ['crosswise run configs/quickstart.yaml --jobs 2'],
-  exitCodes: [0, 1, 3, 4, 5, 130],
+  exitCodes: [0, 1, 3, 5, 130],
   load: async () => (await import('./run.js')).runCommand,
 });

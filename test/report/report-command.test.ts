@@ -1,3 +1,4 @@
+import { writeFileSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -49,5 +50,16 @@ describe('crosswise report <DIR>', () => {
     const { out } = capture();
     expect(await reportCommand([dir])).toBe(0);
     expect(out.mock.calls.slice(0, 2).map((call) => call[0])).toEqual([`results: ${join(dir, 'results.csv')}`, `summary: ${join(dir, 'summary.md')}`]);
+  });
+
+  it('exits 5 with one line when it cannot write its files', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-cmd-'));
+    dirs.push(dir);
+    writeFixture(dir);
+    // A file where the plots folder must go: no plot can be written.
+    writeFileSync(join(dir, 'plots'), '');
+    const { err } = capture();
+    expect(await reportCommand([dir])).toBe(5);
+    expect(err.mock.calls.map((call) => String(call[0]))).toEqual([expect.stringMatching(new RegExp(`^crosswise report: cannot write ${join(dir, 'plots')}\\S*: E[A-Z]+ \\(\\w+\\)$`))]);
   });
 });

@@ -38,3 +38,19 @@ export function normal(rng: Rng): number {
 export function randomInt(rng: Rng, n: number): number {
   return Math.floor(rng() * n);
 }
+
+/**
+ * A uniformly random permutation of 0..n−1 by Fisher–Yates (Durstenfeld 1964; Knuth 1997,
+ * Algorithm P): for i from n−1 down to 1, swap entry i with entry randomInt(i + 1). The
+ * draws and their order are part of every stored result; do not change them.
+ */
+export function permutation(n: number, rng: Rng): Int32Array {
+  const order = Int32Array.from({ length: n }, (_, i) => i);
+  for (let i = n - 1; i > 0; i--) {
+    const j = randomInt(rng, i + 1);
+    const swap = order[i];
+    order[i] = order[j];
+    order[j] = swap;
+  }
+  return order;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createRng, normal } from '../src/random.js';
+import { createRng, normal, permutation } from '../src/random.js';
 
 describe('createRng', () => {
   it('reproduces the same stream from the same seed and name', () => {
@@ -40,5 +40,34 @@ describe('normal', () => {
     // Standard error of the mean is 1/sqrt(n); of the variance about sqrt(2/n) for a normal.
     expect(Math.abs(mean)).toBeLessThan(5 / Math.sqrt(n));
     expect(Math.abs(variance - 1)).toBeLessThan(5 * Math.sqrt(2 / n));
+  });
+});
+
+describe('permutation', () => {
+  it('swaps entry i with entry floor(u·(i + 1)) from the top down (Durstenfeld 1964), worked by hand', () => {
+    // n = 4 with draws u = 0.5, 0.9, 0.2: i = 3 swaps with floor(2) = 2 → [0, 1, 3, 2];
+    // i = 2 swaps with floor(2.7) = 2 → unchanged; i = 1 swaps with floor(0.4) = 0 → [1, 0, 3, 2].
+    const draws = [0.5, 0.9, 0.2];
+    const scripted = (): number => draws.shift() ?? NaN;
+    expect(Array.from(permutation(4, scripted))).toEqual([1, 0, 3, 2]);
+    expect(draws).toEqual([]);
+  });
+
+  it('gives each of the 6 orders of 3 items equally often (N = 6000, within 5 standard errors)', () => {
+    // Count per order is Binomial(6000, 1/6): mean 1000, sd √(6000·(1/6)·(5/6)) = 28.9.
+    const rng = createRng(11, 'permutation-test');
+    const counts = new Map<string, number>();
+    for (let k = 0; k < 6000; k++) {
+      const key = Array.from(permutation(3, rng)).join('');
+      counts.set(key, (counts.get(key) ?? 0) + 1);
+    }
+    expect(counts.size).toBe(6);
+    for (const count of counts.values()) expect(Math.abs(count - 1000)).toBeLessThan(5 * 28.9);
+  });
+
+  it('gives the empty and the one-item permutation without drawing', () => {
+    const never = (): number => { throw new Error('drew'); };
+    expect(Array.from(permutation(0, never))).toEqual([]);
+    expect(Array.from(permutation(1, never))).toEqual([0]);
   });
 });

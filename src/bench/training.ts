@@ -3,6 +3,7 @@ import { collect } from '../collect/collector.js';
 import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
 import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
+import { DEFAULTS } from '../experiment/defaults.js';
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
@@ -35,17 +36,20 @@ function workload(rows: number, sizes: Record<ChannelName, number>): { data: Dat
   return { data, split: { train: steps.subarray(100), validation: steps.subarray(0, 100), test: new Int32Array(0) } };
 }
 
+/** The default learner of a config, reading sight and predicting sound; supervised learners predict the default probe targets. */
 const DEFAULT_SPEC: LearnerSpec = {
+  ...DEFAULTS.learner,
   name: 'bench',
   objective: 'predict',
   input: ['sight'],
   target: ['sound'],
-  offset: 0,
-  supervisedTargets: ['wall_ahead', 'heading', 'nearest_distance_m'],
-  encoder: { hidden: [128, 64], activation: 'relu' },
-  rule: 'backprop',
-  train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 3, patience: 100, temperature: 0.1 },
+  supervisedTargets: DEFAULTS.probe.targets,
 };
+
+/** A spec trained for exactly `epochs` epochs: patience = epochs turns early stopping off, so every epoch is timed. */
+function timedSpec(spec: LearnerSpec, epochs: number): LearnerSpec {
+  return { ...spec, train: { ...spec.train, epochs, patience: epochs } };
+}
 
 /** Training samples per second after a warm-up epoch (median over rounds). */
 async function samplesPerSecond(spec: LearnerSpec, data: Dataset, split: DatasetSplit, rounds: number): Promise<number> {
@@ -83,7 +87,7 @@ export async function benchTraining(opts: { quick: boolean; backend: BackendName
   await initBackend(opts.backend);
   const defaults = demoWorkload(opts.quick ? 2700 : 10300);
   for (const c of CASES) {
-    const spec: LearnerSpec = { ...DEFAULT_SPEC, ...c.spec, train: { ...DEFAULT_SPEC.train, epochs } };
+    const spec = timedSpec({ ...DEFAULT_SPEC, ...c.spec }, epochs);
     rows.push({
       name: `train ${spec.objective} (${spec.rule}, ${opts.backend})`,
       value: await samplesPerSecond(spec, defaults.data, defaults.split, rounds),
@@ -92,7 +96,7 @@ export async function benchTraining(opts: { quick: boolean; backend: BackendName
     });
   }
   const reference = workload(opts.quick ? 2660 : 10340, { sight: 160, sound: 48, touch: 0, motor: 5 });
-  const referenceSpec: LearnerSpec = { ...DEFAULT_SPEC, encoder: { hidden: [128, 128], activation: 'relu' }, train: { ...DEFAULT_SPEC.train, epochs } };
+  const referenceSpec = timedSpec({ ...DEFAULT_SPEC, encoder: { hidden: [128, 128], activation: 'relu' } }, epochs);
   for (const backend of ['wasm', 'cpu'] as const) {
     await initBackend(backend);
     rows.push({

@@ -50,3 +50,15 @@ export const LATENT_KIND: Readonly<Record<LatentName, 'continuous' | 'categorica
   moved: 'categorical',
   bumped: 'categorical',
 };
+
+/**
+ * The number of classes of a categorical latent: one per class name of the dataset, never
+ * fewer than the largest index present + 1 (a dataset built without names), and at least 2,
+ * since a latent with one possible value is still a yes/no question to a classifier.
+ */
+export function classCount(data: Dataset, name: LatentName): number {
+  if (LATENT_KIND[name] !== 'categorical') throw new Error(`latent '${name}' is continuous; it has no classes`);
+  let count = Math.max(2, data.classNames[name]?.length ?? 0);
+  for (const v of data.latents[name]) if (v >= 0) count = Math.max(count, v + 1);
+  return count;
+}

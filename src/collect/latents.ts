@@ -1,8 +1,7 @@
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
-import { HEADING_INDEX } from '../senses/heading-index.js';
 import { sceneFor, type SensoryScene } from '../senses/scene.js';
 import { viewFrom } from '../senses/sight.js';
-import { headingFrame, type HeadingFrame } from '../senses/sight-rays.js';
+import { HEADING_INDEX, headingFrame, type HeadingFrame } from '../world/heading.js';
 import { cellAhead } from '../world/movement.js';
 import type { Pose, Transition, World } from '../world/types.js';
 import { LATENT_NAMES, type LatentName } from './dataset.js';
@@ -39,7 +38,6 @@ function emitterInView(scene: SensoryScene, pose: Pose, frame: HeadingFrame): bo
  */
 export function latentRow(scene: SensoryScene, pose: Pose, transition: Transition, row: Float64Array): void {
   const { world } = scene;
-  const heading = HEADING_INDEX[pose.heading];
   let nearest = 0;
   let nearestSquared = Infinity;
   for (let e = 0; e < world.emitters.length; e++) {
@@ -48,7 +46,7 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
     if (dx * dx + dy * dy < nearestSquared) { nearest = e; nearestSquared = dx * dx + dy * dy; }
   }
   const target = world.emitters[nearest];
-  const frame = headingFrame(heading);
+  const frame = headingFrame(pose.heading);
   const { fx, fy, rx, ry } = frame;
   const dx = target.x - pose.x;
   const dy = target.y - pose.y;
@@ -57,7 +55,7 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
   const aheadCell = ahead.y * world.width + ahead.x;
   row[AT.x] = pose.x;
   row[AT.y] = pose.y;
-  row[AT.heading] = heading;
+  row[AT.heading] = HEADING_INDEX[pose.heading];
   row[AT.material_under] = world.material[pose.y * world.width + pose.x];
   row[AT.material_ahead] = world.material[aheadCell];
   row[AT.wall_ahead] = world.solid[aheadCell];

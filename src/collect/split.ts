@@ -1,4 +1,4 @@
-import { createRng, randomInt } from '../random.js';
+import { createRng, permutation } from '../random.js';
 import type { Dataset, DatasetSplit } from './dataset.js';
 
 /** Fractions of episodes for each split; they must add up to 1. */
@@ -17,19 +17,14 @@ function checkFractions({ train, validation, test }: SplitFractions): void {
 
 /**
  * Splits a dataset into train, validation and test by whole episodes, so no episode's
- * steps are in two splits. Episodes are shuffled (Fisher–Yates, Durstenfeld 1964) with
- * createRng(seed, 'split'); round(train·E) episodes go to train, round(validation·E) to
- * validation (at most what is left) and the rest to test. Step indices are ascending.
+ * steps are in two splits. Episodes are shuffled by `permutation` with createRng(seed,
+ * 'split'); round(train·E) episodes go to train, round(validation·E) to validation (at
+ * most what is left) and the rest to test. Step indices are ascending.
  */
 export function splitByEpisode(dataset: Dataset, fractions: SplitFractions, seed: number): DatasetSplit {
   checkFractions(fractions);
   const episodes = dataset.steps === 0 ? 0 : dataset.episode[dataset.steps - 1] + 1;
-  const order = Array.from({ length: episodes }, (_, i) => i);
-  const rng = createRng(seed, 'split');
-  for (let i = episodes - 1; i > 0; i--) {
-    const j = randomInt(rng, i + 1);
-    [order[i], order[j]] = [order[j], order[i]];
-  }
+  const order = permutation(episodes, createRng(seed, 'split'));
   const nTrain = Math.round(fractions.train * episodes);
   const nValidation = Math.min(Math.round(fractions.validation * episodes), episodes - nTrain);
   const part = new Uint8Array(episodes); // 0 train, 1 validation, 2 test

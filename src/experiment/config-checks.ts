@@ -1,5 +1,6 @@
 import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
 import type { FilledConfig } from './schema.js';
 
@@ -15,7 +16,7 @@ export function checkConfig(config: FilledConfig, configDir: string): ConfigProb
     ...checkLearnerNames(config.learners),
     ...config.learners.flatMap((learner, i) => checkLearner(learner, ['learners', i])),
     ...checkProbe(config),
-    ...checkNoise(config),
+    ...noiseProblems(config.noise),
   ];
 }
 
@@ -92,20 +93,4 @@ function checkProbe({ probe, learners }: FilledConfig): ConfigProblem[] {
     path: ['probe', 'baseline'],
     message: `expected the name of a learner (${names.join(', ')}), got '${probe.baseline}'${suggestion(probe.baseline, names)}`,
   }];
-}
-
-function checkNoise({ noise }: FilledConfig): ConfigProblem[] {
-  return noise.flatMap((entry, i) => {
-    const problems: ConfigProblem[] = [];
-    if (entry.kind === 'masking' && entry.channel !== 'sound') {
-      problems.push({ path: ['noise', i, 'channel'], message: `masking noise applies to sound only, got '${entry.channel}'` });
-    }
-    if (entry.parameters != null && entry.parameters.length !== entry.severities.length) {
-      problems.push({ path: ['noise', i, 'parameters'], message: `expected one value per severity (${entry.severities.length}), got ${entry.parameters.length}` });
-    }
-    entry.severities.forEach((severity, j) => {
-      if (entry.severities.indexOf(severity) < j) problems.push({ path: ['noise', i, 'severities', j], message: `severity ${severity} is listed twice` });
-    });
-    return problems;
-  });
 }

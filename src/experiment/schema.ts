@@ -44,11 +44,16 @@ const learner = z.strictObject({
     .describe('Also store features.npy and latents.npy of every collected step. Output-only: not part of the cell id.'),
 });
 
+/** A number, where YAML's .inf (the clean SNR of masking) is allowed too. */
+const parameterValue = z.custom<number>((v) => typeof v === 'number' && !Number.isNaN(v), { message: 'expected a number' });
+
+// Only the shape of a noise entry: every rule about values is noise/validate.ts's.
 const noise = z.strictObject({
   channel: z.enum(CHANNELS),
   kind: z.enum(NOISE_KINDS),
-  severities: z.array(int(0, 5)).min(1).default([...d.severities]),
-  parameters: z.array(z.number().min(-200).max(200)).min(1).optional()
+  severities: z.array(z.number()).default([...d.severities])
+    .describe('0 is clean; 1..5 use the documented table; any whole number with explicit parameters.'),
+  parameters: z.array(parameterValue).optional()
     .describe('Explicit corruption parameters, one per severity, instead of the documented table.'),
 });
 
@@ -95,5 +100,9 @@ export type FilledConfig = z.output<typeof configSchema>;
 
 /** The config schema as JSON Schema (draft 2020-12), for editors. */
 export function configJsonSchema(): Record<string, unknown> {
-  return z.toJSONSchema(configSchema, { io: 'input' }) as Record<string, unknown>;
+  return z.toJSONSchema(configSchema, {
+    io: 'input',
+    unrepresentable: 'any',
+    override: (context) => { if (context.zodSchema === parameterValue) Object.assign(context.jsonSchema, { type: 'number' }); },
+  }) as Record<string, unknown>;
 }

@@ -1,5 +1,4 @@
 import * as tf from '@tensorflow/tfjs-core';
-import { randomInt, type Rng } from '../random.js';
 import type { ExampleSet } from './examples.js';
 import type { Matrix } from './matrix.js';
 import type { Batch } from './rules.js';
@@ -34,14 +33,4 @@ export function gatherBatch(s: SplitTensors, rows: Int32Array): Batch {
   const index = tf.tensor1d(rows, 'int32');
   const pick = (t: tf.Tensor2D): tf.Tensor2D => tf.gather(t, index);
   return { inputs: s.inputs.map(pick), extra: s.extra == null ? null : pick(s.extra), target: s.target == null ? null : pick(s.target) };
-}
-
-/** A Fisher–Yates permutation of 0..n−1 (Knuth 1997, Algorithm P). */
-export function permutation(n: number, rng: Rng): Int32Array {
-  const order = Int32Array.from({ length: n }, (_, i) => i);
-  for (let i = n - 1; i > 0; i--) {
-    const j = randomInt(rng, i + 1);
-    [order[i], order[j]] = [order[j], order[i]];
-  }
-  return order;
 }

@@ -1,5 +1,6 @@
 import type { Dataset } from '../collect/dataset.js';
 import { CHANNELS, type ChannelName } from '../senses/channel.js';
+import { columnStatistics } from '../stats/columns.js';
 
 /** A dense row-major matrix of float32 values. */
 export interface Matrix {
@@ -57,24 +58,9 @@ export function datasetRows(data: Dataset, channels: readonly ChannelName[], ste
   return gatherChannels(data.channels, data.channelSize, channels, steps);
 }
 
-/** Below this a column counts as constant and is only centred (avoids dividing by ~0). */
-const MIN_STD = 1e-6;
-
-/** Fits column means and population standard deviations (constant columns get std 1). */
+/** Fits column means and population standard deviations; a column with std below 1e-6 gets std 1 and is only centred. */
 export function fitStandardiser(m: Matrix): Standardiser {
-  const mean = new Float64Array(m.cols);
-  const sq = new Float64Array(m.cols);
-  for (let r = 0; r < m.rows; r++) {
-    for (let c = 0; c < m.cols; c++) mean[c] += m.data[r * m.cols + c];
-  }
-  for (let c = 0; c < m.cols; c++) mean[c] /= Math.max(m.rows, 1);
-  for (let r = 0; r < m.rows; r++) {
-    for (let c = 0; c < m.cols; c++) sq[c] += (m.data[r * m.cols + c] - mean[c]) ** 2;
-  }
-  const std = sq.map((s) => {
-    const sd = Math.sqrt(s / Math.max(m.rows, 1));
-    return sd < MIN_STD ? 1 : sd;
-  });
+  const { mean, std } = columnStatistics(m.data, m.cols, { kind: 'unit-below', tolerance: 1e-6 });
   return { mean: Float32Array.from(mean), std: Float32Array.from(std) };
 }
 

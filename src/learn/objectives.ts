@@ -1,5 +1,5 @@
 import * as tf from '@tensorflow/tfjs-core';
-import { LATENT_KIND, type Dataset, type LatentName } from '../collect/dataset.js';
+import { classCount, LATENT_KIND, type Dataset, type LatentName } from '../collect/dataset.js';
 import type { ChannelName } from '../senses/channel.js';
 import { nextSteps, type ExampleSet, type TrainingStatistics } from './examples.js';
 import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
@@ -118,11 +118,8 @@ const contrast: ObjectiveFactory = (spec, data) => {
 };
 
 /** Output columns of one latent: 1 for a continuous one, its class count for a categorical one. */
-export function latentWidth(data: Dataset, name: LatentName): number {
-  if (LATENT_KIND[name] === 'continuous') return 1;
-  const names = data.classNames[name];
-  if (names != null && names.length > 0) return names.length;
-  return data.latents[name].reduce((m, v) => Math.max(m, v), 0) + 1;
+function latentWidth(data: Dataset, name: LatentName): number {
+  return LATENT_KIND[name] === 'continuous' ? 1 : classCount(data, name);
 }
 
 /** One target column per latent: standardised value (continuous) or class index (categorical). [n, latents] */

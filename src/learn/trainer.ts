@@ -1,7 +1,7 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
-import type { Rng } from '../random.js';
-import { disposeSplit, gatherBatch, permutation, uploadExamples, type SplitTensors } from './batches.js';
+import { permutation, type Rng } from '../random.js';
+import { disposeSplit, gatherBatch, uploadExamples, type SplitTensors } from './batches.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
 import { TrainingStatistics } from './examples.js';

@@ -1,4 +1,5 @@
 import type { ChannelName } from '../senses/channel.js';
+import { columnStatistics } from '../stats/columns.js';
 
 /**
  * What a corruption needs to know about a channel's training data.
@@ -33,30 +34,16 @@ export function channelReference(
     throw new Error(`channelReference: ${channel} values of length ${values.length} are not rows of size ${size}`);
   }
   if (rows.length === 0) throw new Error(`channelReference: ${channel} needs at least one training row`);
-  const n = values.length / size;
-  const sum = new Float64Array(size);
-  const sumSq = new Float64Array(size);
-  let quietest = Infinity;
+  const { mean, std } = columnStatistics(values, size, { kind: 'keep' }, rows);
+  const silence = new Float32Array(size).fill(channel === 'sound' ? quietest(values, size, rows) : 0);
+  return { channel, size, mean: Float32Array.from(mean), std: Float32Array.from(std), silence };
+}
+
+/** The lowest value of any entry in the given rows. */
+function quietest(values: Float32Array, size: number, rows: ArrayLike<number>): number {
+  let lowest = Infinity;
   for (let r = 0; r < rows.length; r++) {
-    const row = rows[r];
-    if (!Number.isInteger(row) || row < 0 || row >= n) throw new Error(`channelReference: row ${row} is outside 0..${n - 1}`);
-    for (let j = 0; j < size; j++) {
-      const v = values[row * size + j];
-      sum[j] += v;
-      quietest = Math.min(quietest, v);
-    }
+    for (let j = 0; j < size; j++) lowest = Math.min(lowest, values[rows[r] * size + j]);
   }
-  const mean = new Float32Array(size);
-  for (let j = 0; j < size; j++) mean[j] = sum[j] / rows.length;
-  // Second pass around the mean: the one-pass Σx² − n·x̄² loses digits for dB levels near 60.
-  for (let r = 0; r < rows.length; r++) {
-    for (let j = 0; j < size; j++) {
-      const d = values[rows[r] * size + j] - sum[j] / rows.length;
-      sumSq[j] += d * d;
-    }
-  }
-  const std = new Float32Array(size);
-  for (let j = 0; j < size; j++) std[j] = Math.sqrt(sumSq[j] / rows.length);
-  const silence = new Float32Array(size).fill(channel === 'sound' ? quietest : 0);
-  return { channel, size, mean, std, silence };
+  return lowest;
 }

@@ -44,9 +44,10 @@ export function severityParameter(kind: NoiseKind, severity: number): number {
   return severity === 0 ? CLEAN_PARAMETER[kind] : SEVERITY_TABLE[kind][severity - 1];
 }
 
-/** The parameter a spec uses at its i-th severity: the explicit value if given, else the table's. */
+/**
+ * The parameter a spec uses at its i-th severity: the explicit value if given (at
+ * severity 0 validation allows only the clean one), else the table's.
+ */
 export function noiseParameter(spec: NoiseSpec, i: number): number {
-  const severity = spec.severities[i];
-  if (severity === 0) return CLEAN_PARAMETER[spec.kind];
-  return spec.parameters === undefined ? severityParameter(spec.kind, severity) : spec.parameters[i];
+  return spec.parameters === undefined ? severityParameter(spec.kind, spec.severities[i]) : spec.parameters[i];
 }

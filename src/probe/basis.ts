@@ -29,6 +29,8 @@ export function featureBasis(features: Float32Array, n: number, d: number): Feat
   const scale = new Float64Array(d);
   for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += features[i * d + j];
   for (let j = 0; j < d; j++) mean[j] /= n;
+  // Σ((x − μ)²/n) here, not stats/columns.ts's (Σ(x − μ)²)/n: the two differ in the last
+  // bits, and switching would move every stored R² in its last digits.
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < d; j++) scale[j] += (features[i * d + j] - mean[j]) ** 2 / n;
   }

@@ -1,3 +1,4 @@
+import { columnStatistics } from '../stats/columns.js';
 import { addScaled } from './vector.js';
 
 /**
@@ -33,7 +34,7 @@ export interface CkaOperand {
 /** Centres the columns of X [n, d] and computes ‖XᵀX‖_F, once per representation. */
 export function prepareCka(X: Float32Array, n: number, d: number): CkaOperand {
   if (n < 1 || X.length !== n * d) throw new Error(`prepareCka: expected ${n}×${d} values, got ${X.length}`);
-  const centred = centredColumns(X, n, d);
+  const centred = centredColumns(X, d);
   return { centred, n, d, selfNorm: Math.sqrt(selfProductNorm(centred, n, d)) };
 }
 
@@ -44,10 +45,8 @@ export function preparedCka(a: CkaOperand, b: CkaOperand): number {
   return denominator === 0 ? NaN : frobeniusSquaredOfProduct(b.centred, a.centred, a.n, b.d, a.d) / denominator;
 }
 
-function centredColumns(values: Float32Array, n: number, d: number): Float64Array {
-  const mean = new Float64Array(d);
-  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += values[i * d + j];
-  for (let j = 0; j < d; j++) mean[j] /= n;
+function centredColumns(values: Float32Array, d: number): Float64Array {
+  const { mean } = columnStatistics(values, d, { kind: 'keep' });
   return Float64Array.from(values, (v, p) => v - mean[p % d]);
 }
 

@@ -1,6 +1,7 @@
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import type { FeatureExtractor } from '../learn/spec.js';
-import { checkNoiseSpec, corruptChannel, noiseRng } from '../noise/corrupt.js';
+import { corruptChannel, noiseRng } from '../noise/corrupt.js';
+import { checkNoiseEntries } from '../noise/validate.js';
 import { channelReference } from '../noise/reference.js';
 import { noiseParameter } from '../noise/severity.js';
 import type { NoiseSpec } from '../noise/spec.js';
@@ -70,7 +71,7 @@ interface Condition {
 export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
   const { encoder, data, split, seed } = args;
   const targets = args.targets.map(probeTarget);
-  args.noise.forEach(checkNoiseSpec);
+  checkNoiseEntries(args.noise);
   for (const name of ['train', 'validation', 'test'] as const) {
     if (split[name].length === 0) throw new Error(`evaluateEncoder: the ${name} split has no rows`);
   }

@@ -1,4 +1,4 @@
-import { LATENT_KIND, LATENT_NAMES, type Dataset, type LatentName } from '../collect/dataset.js';
+import { classCount, LATENT_KIND, LATENT_NAMES, type Dataset, type LatentName } from '../collect/dataset.js';
 
 /** Labels of one target on some rows: real outputs for regression, class indices for classification. */
 export type TargetLabels =
@@ -58,7 +58,7 @@ function angleTarget(name: LatentName): ProbeTarget {
   };
 }
 
-/** Class-index latents; the class count comes from the dataset's class names, at least 2 (booleans). */
+/** Class-index latents, with the dataset's class count. */
 function classTarget(name: LatentName): ProbeTarget {
   return {
     name, kind: 'categorical', metric: 'accuracy',
@@ -66,9 +66,7 @@ function classTarget(name: LatentName): ProbeTarget {
       const latent = data.latents[name];
       const keep = definedPositions(latent, rows, (v) => v >= 0);
       const classes = Int32Array.from(keep, (p) => latent[rows[p]]);
-      let classCount = Math.max(2, data.classNames[name]?.length ?? 0);
-      for (const v of latent) if (v >= 0) classCount = Math.max(classCount, v + 1);
-      return { keep, labels: { kind: 'categorical', classes, classCount } };
+      return { keep, labels: { kind: 'categorical', classes, classCount: classCount(data, name) } };
     },
   };
 }

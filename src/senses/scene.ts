@@ -77,7 +77,7 @@ export function createScene(world: World, settings: SenseSettings = DEFAULT_SENS
 
 /** The sound table of cell i (see sound-table.ts), built on first use. */
 export function soundTableAt(scene: SensoryScene, cell: number): Float32Array {
-  return (scene.soundCells[cell] ??= soundCellTable(scene, cell));
+  return (scene.soundCells[cell] ??= soundCellTable(scene.world, scene.bandsHz, scene.emitterPower1m, cell));
 }
 
 const scenes = new WeakMap<World, Map<string, SensoryScene>>();

@@ -21,7 +21,7 @@ export function senseInto(
   const { sizes } = scene;
   senseSight(scene, pose, out.sight, row * sizes.sight);
   senseSound(scene, pose, transition, stepIndex, out.sound, row * sizes.sound);
-  senseTouch(scene, pose, transition, out.touch, row * sizes.touch);
+  senseTouch(scene.world, pose, transition, out.touch, row * sizes.touch);
   senseMotor(action, out.motor, row * sizes.motor);
 }
 

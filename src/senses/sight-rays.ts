@@ -1,3 +1,4 @@
+import { headingFrame, type HeadingFrame } from '../world/heading.js';
 import { forEachCellBetween } from '../world/line.js';
 import { HEADINGS } from '../world/types.js';
 
@@ -16,28 +17,7 @@ export interface SightRays {
   readonly betweenDy: Int32Array;
 }
 
-/** Forward and right unit vectors of a heading, in map cells (y grows southwards). */
-export interface HeadingFrame {
-  readonly fx: number;
-  readonly fy: number;
-  readonly rx: number;
-  readonly ry: number;
-}
-
-const FRAMES: readonly HeadingFrame[] = [
-  { fx: 0, fy: -1, rx: 1, ry: 0 }, // north: right is east
-  { fx: 1, fy: 0, rx: 0, ry: 1 }, // east: right is south
-  { fx: 0, fy: 1, rx: -1, ry: 0 }, // south: right is west
-  { fx: -1, fy: 0, rx: 0, ry: -1 }, // west: right is north
-];
-
-/** The frame of a heading index (0 north, 1 east, 2 south, 3 west). */
-export function headingFrame(heading: number): HeadingFrame {
-  return FRAMES[heading];
-}
-
-function raysFor(heading: number, width: number, depth: number): SightRays {
-  const { fx, fy, rx, ry } = headingFrame(heading);
+function raysFor({ fx, fy, rx, ry }: HeadingFrame, width: number, depth: number): SightRays {
   const cells = width * depth;
   const targetDx = new Int32Array(cells);
   const targetDy = new Int32Array(cells);
@@ -61,7 +41,7 @@ function raysFor(heading: number, width: number, depth: number): SightRays {
 
 /** Sight rays for every heading, in HEADINGS order. */
 export function buildSightRays(width: number, depth: number): readonly SightRays[] {
-  return HEADINGS.map((_, h) => raysFor(h, width, depth));
+  return HEADINGS.map((h) => raysFor(headingFrame(h), width, depth));
 }
 
 /**

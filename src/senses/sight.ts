@@ -1,5 +1,5 @@
+import { HEADING_INDEX } from '../world/heading.js';
 import type { Pose } from '../world/types.js';
-import { HEADING_INDEX } from './heading-index.js';
 import type { SensoryScene } from './scene.js';
 
 /**

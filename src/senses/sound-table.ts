@@ -1,6 +1,6 @@
 import { solidCellsBetween } from '../world/line.js';
+import type { World } from '../world/types.js';
 import { distanceLossDb, ildDb } from './acoustics.js';
-import type { SensoryScene } from './scene.js';
 
 /** Table kinds per emitter: the near ear, the far ear when facing north/south, the far ear when facing east/west. */
 export const NEAR = 0;
@@ -18,8 +18,12 @@ export const FAR_EAST_WEST = 2;
  * distance between cell centres − wall_loss_db per solid cell strictly between the two
  * (on the Bresenham line drawn from the listener).
  */
-export function soundCellTable(scene: SensoryScene, cell: number): Float32Array {
-  const { world, bandsHz, emitterPower1m } = scene;
+export function soundCellTable(
+  world: World,
+  bandsHz: Float64Array, // [bands]
+  emitterPower1m: Float64Array, // [emitters, bands] each emitter's band powers at 1 m
+  cell: number,
+): Float32Array {
   const bands = bandsHz.length;
   const x = cell % world.width;
   const y = Math.floor(cell / world.width);

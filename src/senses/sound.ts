@@ -1,8 +1,7 @@
 import { emitterIsOn } from '../world/emitter.js';
+import { HEADING_INDEX, headingFrame } from '../world/heading.js';
 import type { Pose, Transition } from '../world/types.js';
-import { HEADING_INDEX } from './heading-index.js';
 import { soundTableAt, type SensoryScene } from './scene.js';
-import { headingFrame } from './sight-rays.js';
 import { FAR_EAST_WEST, FAR_NORTH_SOUTH, NEAR } from './sound-table.js';
 
 /** Adds one source's band powers to both ears of `power` [2, bands]. */
@@ -28,9 +27,8 @@ export function senseSound(
   const { world, power } = scene;
   const bands = scene.bandsHz.length;
   power.fill(scene.ambientPower);
-  const heading = HEADING_INDEX[pose.heading];
-  const { rx, ry } = headingFrame(heading);
-  const far = heading % 2 === 0 ? FAR_NORTH_SOUTH : FAR_EAST_WEST;
+  const { rx, ry } = headingFrame(pose.heading);
+  const far = HEADING_INDEX[pose.heading] % 2 === 0 ? FAR_NORTH_SOUTH : FAR_EAST_WEST;
   const cell = pose.y * world.width + pose.x;
   const table = soundTableAt(scene, cell);
   for (let e = 0; e < world.emitters.length; e++) {

@@ -1,8 +1,6 @@
+import { headingFrame } from '../world/heading.js';
 import { isBlocked } from '../world/movement.js';
-import { TEXTURE_SIZE, type Pose, type Transition } from '../world/types.js';
-import { HEADING_INDEX } from './heading-index.js';
-import type { SensoryScene } from './scene.js';
-import { headingFrame } from './sight-rays.js';
+import { TEXTURE_SIZE, type Pose, type Transition, type World } from '../world/types.js';
 
 /** Names of the touch entries, in channel order. */
 export const TOUCH_NAMES: readonly string[] = [
@@ -16,9 +14,8 @@ export const TOUCH_NAMES: readonly string[] = [
  * of one full-speed bump, else 0), then the footfall vibration spectrum, which is the
  * texture of the material underfoot when the agent moved and 0 otherwise.
  */
-export function senseTouch(scene: SensoryScene, pose: Pose, transition: Transition, out: Float32Array, at: number): void {
-  const { world } = scene;
-  const { fx, fy, rx, ry } = headingFrame(HEADING_INDEX[pose.heading]);
+export function senseTouch(world: World, pose: Pose, transition: Transition, out: Float32Array, at: number): void {
+  const { fx, fy, rx, ry } = headingFrame(pose.heading);
   out[at] = isBlocked(world, pose.x - rx, pose.y - ry) ? 1 : 0;
   out[at + 1] = isBlocked(world, pose.x + fx, pose.y + fy) ? 1 : 0;
   out[at + 2] = isBlocked(world, pose.x + rx, pose.y + ry) ? 1 : 0;

@@ -1,10 +1,6 @@
-import { headingVector, isBlocked, step } from './movement.js';
-import type { Action, Heading, Pose, Transition, World } from './types.js';
-
-const BEFORE_TURN: Readonly<Record<'turn-left' | 'turn-right', Readonly<Record<Heading, Heading>>>> = {
-  'turn-left': { north: 'east', east: 'south', south: 'west', west: 'north' },
-  'turn-right': { north: 'west', west: 'south', south: 'east', east: 'north' },
-};
+import { headingFrame, leftOf, rightOf } from './heading.js';
+import { isBlocked, step } from './movement.js';
+import type { Action, Pose, Transition, World } from './types.js';
 
 /**
  * The transition of an agent that is at `pose` just after taking `action`.
@@ -17,11 +13,12 @@ const BEFORE_TURN: Readonly<Record<'turn-left' | 'turn-right', Readonly<Record<H
 export function arrivalTransition(world: World, pose: Pose, action: Action): Transition | string {
   if (action === 'stay') return { pose, moved: false, bumped: false };
   if (action === 'turn-left' || action === 'turn-right') {
-    return step(world, { ...pose, heading: BEFORE_TURN[action][pose.heading] }, action);
+    const before = action === 'turn-left' ? rightOf(pose.heading) : leftOf(pose.heading);
+    return step(world, { ...pose, heading: before }, action);
   }
-  const [dx, dy] = headingVector(pose.heading);
+  const { fx, fy } = headingFrame(pose.heading);
   const sign = action === 'forward' ? 1 : -1;
-  const from = { x: pose.x - sign * dx, y: pose.y - sign * dy, heading: pose.heading };
+  const from = { x: pose.x - sign * fx, y: pose.y - sign * fy, heading: pose.heading };
   if (!isBlocked(world, from.x, from.y)) return step(world, from, action);
   const into = step(world, pose, action);
   if (into.bumped) return into;

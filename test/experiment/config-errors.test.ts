@@ -148,6 +148,31 @@ describe('config validation', () => {
     ]);
   });
 
+  // Each noise rule of src/noise/validate.ts, reached through `run`, located in the file.
+  it.each([
+    ['a parameter outside its range', '{ channel: sight, kind: dropout, severities: [0, 1], parameters: [0, 1.5] }',
+      'config.yaml:13:74: noise.0.parameters.1: expected a fraction p in [0, 1], got 1.5'],
+    ['a parameter at severity 0 other than the clean value', '{ channel: sight, kind: gaussian, severities: [0, 2], parameters: [0.5, 1] }',
+      'config.yaml:13:72: noise.0.parameters.0: severity 0 is the clean input, so its parameter must be 0, got 0.5'],
+    ['a second entry with the same channel and kind', '{ channel: sight, kind: gaussian }\n  - { channel: sight, kind: gaussian, severities: [3] }',
+      'config.yaml:14:5: noise.1: sight gaussian is already noise.0; entries with the same channel and kind would share result rows and noise draws'],
+    ['parameters of another length than the severities', '{ channel: sight, kind: gaussian, severities: [1, 2], parameters: [0.5] }',
+      'config.yaml:13:71: noise.0.parameters: expected one value per severity (2), got 1'],
+  ])('rejects %s before anything runs', async (_, noise, line) => {
+    expect(await rejection(VALID.replace('{ channel: sight, kind: gaussian }', noise))).toEqual([line]);
+  });
+
+  it('accepts severities beyond 5 with explicit parameters, and .inf for clean masking', () => {
+    const noise = '{ channel: sight, kind: gaussian, severities: [0, 6, 7], parameters: [0, 8, 16] }\n'
+      + '  - { channel: sound, kind: masking, severities: [0, 1], parameters: [.inf, 30] }';
+    const dir = configFolder(VALID.replace('{ channel: sight, kind: gaussian }', noise));
+    const [settings] = loadSweep(join(dir, 'config.yaml')).combinations.map((c) => c.settings);
+    expect(settings.noise).toEqual([
+      { channel: 'sight', kind: 'gaussian', severities: [0, 6, 7], parameters: [0, 8, 16] },
+      { channel: 'sound', kind: 'masking', severities: [0, 1], parameters: [Infinity, 30] },
+    ]);
+  });
+
   it('rejects supervised targets that are not latents, and on learners that are not supervised', async () => {
     const text = `${VALID}  - { name: oracle, objective: supervised, input: [sight], supervised_targets: [wall_ahead, smell] }\n`
       .replace('objective: reconstruct', 'objective: reconstruct\n    supervised_targets: [x]');

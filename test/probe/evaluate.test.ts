@@ -114,7 +114,7 @@ describe('input checks', () => {
 
   it('rejects an invalid noise spec before any work', () => {
     expect(() => evaluateEncoder({ encoder, data, split, targets: ['x'], noise: [{ channel: 'sight', kind: 'masking', severities: [1] }], seed }))
-      .toThrow("noise sight/masking: kind 'masking' cannot corrupt channel 'sight'");
+      .toThrow("noise.0.channel: masking noise applies to sound only, got 'sight'");
   });
 });
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { emitterIsOn } from '../../src/world/emitter.js';
-import { cellAhead, headingVector, step } from '../../src/world/movement.js';
+import { cellAhead, step } from '../../src/world/movement.js';
 import { tinyWorld } from './fixtures.js';
 
 // The movement rules are the world's contract (DESIGN "The world"), checked on a hand-drawn map.
@@ -47,10 +47,8 @@ describe('step', () => {
   });
 });
 
-describe('headings', () => {
-  it('has north up (y decreasing) and east to the right (x increasing)', () => {
-    expect(headingVector('north')).toEqual([0, -1]);
-    expect(headingVector('east')).toEqual([1, 0]);
+describe('cellAhead', () => {
+  it('is one cell along the heading: west of (3, 3) is (2, 3)', () => {
     expect(cellAhead({ x: 3, y: 3, heading: 'west' })).toEqual({ x: 2, y: 3 });
   });
 });

@@ -22,11 +22,12 @@ describe('evaluateEncoder with a sight-only linear encoder', () => {
     expect(value(result.rows, { target: 'heading', channel: 'sight', severity: 0, metric: 'accuracy' })[0]).toBeGreaterThan(0.95);
   });
 
-  it('loses accuracy and R² as sight gaussian severity grows', () => {
+  it('loses accuracy and R² as sight gaussian severity grows (accuracy may hold at 1 under the mildest noise)', () => {
     for (const [target, metric] of [['x', 'r2'], ['heading', 'accuracy']] as const) {
       const curve = value(result.rows, { target, channel: 'sight', metric });
       expect(curve).toHaveLength(6);
-      for (let s = 1; s < curve.length; s++) expect(curve[s]).toBeLessThan(curve[s - 1]);
+      for (let s = 1; s < curve.length; s++) expect(curve[s]).toBeLessThanOrEqual(curve[s - 1]);
+      expect(curve[5]).toBeLessThan(curve[0] - 0.3);
     }
     const cka = value(result.rows, { target: '-', channel: 'sight', metric: 'cka' });
     expect(cka[0]).toBeCloseTo(1, 9);

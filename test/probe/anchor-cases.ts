@@ -17,7 +17,7 @@ export interface AnchorCase {
 
 const TARGETS = ['x', 'heading', 'wall_ahead', 'material_ahead', 'nearest_emitter', 'nearest_distance_m', 'nearest_azimuth_deg'];
 
-/** Every row distinct (continuous latents), and every step a revisited pose (rows repeat, as in a grid world). */
+/** Every row distinct (continuous latents); every step a revisited pose (rows repeat, as in a grid world); 4200 training rows, above the 3000 of the logistic penalty path. */
 export const ANCHOR_CASES: readonly AnchorCase[] = [
   {
     name: 'distinct rows', steps: 2000, seed: 11, input: ['sight', 'sound'], featureSize: 16, encoderSeed: 5, targets: TARGETS, noiseSeed: 3,
@@ -26,5 +26,9 @@ export const ANCHOR_CASES: readonly AnchorCase[] = [
   {
     name: 'revisited poses', steps: 2000, seed: 12, poses: 60, input: ['sight'], featureSize: 12, encoderSeed: 8, targets: TARGETS, noiseSeed: 4,
     noise: [{ channel: 'sight', kind: 'gaussian', severities: [0, 1, 2, 3, 4, 5] }, { channel: 'sight', kind: 'dropout', severities: [0, 2, 4] }],
+  },
+  {
+    name: 'more training rows than the logistic penalty path uses', steps: 6000, seed: 14, poses: 150, input: ['sight', 'touch'], featureSize: 16, encoderSeed: 9,
+    targets: TARGETS, noiseSeed: 5, noise: [{ channel: 'sight', kind: 'gaussian', severities: [0, 2, 4] }, { channel: 'touch', kind: 'blackout', severities: [0, 3] }],
   },
 ];

@@ -29,11 +29,6 @@ export interface BasisRows {
   readonly index: Int32Array; // [n]
 }
 
-/** n rows stored one by one: row i is z's row i. */
-export function everyRow(z: Float64Array, n: number): BasisRows {
-  return { z, index: Int32Array.from({ length: n }, (_, i) => i) };
-}
-
 /**
  * The standardise-and-rotate basis fitted on the training rows, given as m distinct rows
  * of d features and how often each occurs (once each when `counts` is left out): every

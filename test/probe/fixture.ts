@@ -1,4 +1,5 @@
 import type { Dataset, DatasetSplit, LatentName } from '../../src/collect/dataset.js';
+import type { BasisRows } from '../../src/probe/basis.js';
 import type { FeatureExtractor } from '../../src/learn/spec.js';
 import { createRng, normal, randomInt, type Rng } from '../../src/random.js';
 import { CHANNELS, type ChannelName } from '../../src/senses/channel.js';
@@ -115,4 +116,9 @@ export function linearEncoder(data: Dataset, input: readonly ChannelName[], feat
     dispose() {},
   };
   return { encoder, calls };
+}
+
+/** n rows in basis coordinates stored one by one: row i is z's row i. */
+export function everyRow(z: Float64Array, n: number): BasisRows {
+  return { z, index: Int32Array.from({ length: n }, (_, i) => i) };
 }

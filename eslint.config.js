@@ -1,52 +1,47 @@
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
+import moduleTable from './lint/module-table.js';
 
-// Computation never imports UI, only src/learn/ touches TensorFlow.js, and randomness always
-// comes from a seeded generator. Flat config replaces a rule wholesale when several blocks
-// match a file, so the import patterns are grouped by disjoint sets of files.
-const inkImports = [
-  { group: ['ink', 'ink/*', 'ink-*', 'react', 'react/*', 'react-dom'], message: 'Only src/tui/ may import ink or react: computation never imports UI.' },
+// The module table of src/, top to bottom (DEVELOPERS.md): a module imports only from
+// modules above it. random.ts and stats/ come first, so every module may use them.
+const MODULE_ORDER = [
+  'random.ts', 'stats', 'world', 'senses', 'collect', 'noise', 'learn', 'probe',
+  'results', 'report', 'experiment', 'bench', 'tui', 'commands', 'cli.ts',
 ];
-const uiImports = [
-  ...inkImports,
-  { group: ['**/tui/**'], message: 'Only the command line (cli.ts, src/commands/) may import the terminal UI.' },
-];
-const tensorflowImports = [
-  { group: ['@tensorflow/*'], message: 'Only src/learn/ imports TensorFlow.js.' },
-];
+
+const TABLE = {
+  root: 'src',
+  order: MODULE_ORDER,
+  // Both build on results/; neither depends on the other.
+  apart: [['experiment', 'report']],
+  packages: [
+    { patterns: ['@tensorflow/*'], modules: ['learn'], message: 'Only src/learn/ imports TensorFlow.js.' },
+    { patterns: ['ink', 'ink-*', 'react', 'react-dom'], modules: ['tui'], message: 'Only src/tui/ imports ink or react: computation never imports UI.' },
+  ],
+};
 
 export default tseslint.config(
   { ignores: ['node_modules/**', 'runs/**', 'dist/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
-    files: ['src/**/*.{ts,tsx}'],
+    files: ['**/*.{ts,tsx}'],
+    languageOptions: { parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname } },
     rules: {
-      'no-restricted-properties': ['error', { object: 'Math', property: 'random', message: 'Math.random is forbidden: pass a seeded generator (see src/random.ts).' }],
+      // Type-aware: a promise nobody awaits loses its errors (e.g. in the async runner).
+      '@typescript-eslint/no-floating-promises': 'error',
+      '@typescript-eslint/no-misused-promises': 'error',
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
     },
   },
   {
     files: ['src/**/*.{ts,tsx}'],
-    ignores: ['src/tui/**', 'src/cli.ts', 'src/commands/**', 'src/learn/**'],
-    rules: { 'no-restricted-imports': ['error', { patterns: [...uiImports, ...tensorflowImports] }] },
-  },
-  {
-    files: ['src/learn/**/*.ts'],
-    rules: { 'no-restricted-imports': ['error', { patterns: uiImports }] },
-  },
-  {
-    files: ['src/cli.ts', 'src/commands/**/*.ts'],
-    rules: { 'no-restricted-imports': ['error', { patterns: [...inkImports, ...tensorflowImports] }] },
-  },
-  {
-    files: ['src/tui/**/*.{ts,tsx}'],
-    rules: { 'no-restricted-imports': ['error', { patterns: tensorflowImports }] },
-  },
-  {
-    files: ['test/**/*.{ts,tsx}'],
+    plugins: { crosswise: moduleTable },
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      'no-restricted-properties': ['error', { object: 'Math', property: 'random', message: 'Math.random is forbidden: pass a seeded generator (see src/random.ts).' }],
+      'crosswise/module-order': ['error', TABLE],
+      // Type-only imports join the cycle check once src/senses/ holds no type-level cycle.
+      'crosswise/no-import-cycle': ['error', { root: 'src', types: false }],
     },
   },
 );

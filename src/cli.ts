@@ -10,6 +10,7 @@ import { reportCommand } from './commands/report.js';
 import { renderDashboard } from './tui/dashboard/render-dashboard.js';
 import { checkCommand } from './commands/check.js';
 import { senseCommand } from './commands/sense.js';
+import { listenCommand } from './commands/listen.js';
 
 const USAGE = `crosswise: a gridworld lab for cross-modal self-supervised learning
 
@@ -22,6 +23,7 @@ usage:
   crosswise check <file>...
   crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]
   crosswise explore [world] [--seed N]
+  crosswise listen (world | --config FILE [--index I]) [--steps N] [--seed S] [--policy P] --out FILE.wav
   crosswise bench [--json] [--quick]
   crosswise schema`;
 
@@ -38,6 +40,7 @@ const COMMANDS: Record<string, Command> = {
   check: checkCommand,
   sense: senseCommand,
   bench: benchCommand,
+  listen: listenCommand,
 };
 
 /** Runs one command line and returns the process exit code. */

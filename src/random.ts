@@ -10,10 +10,15 @@ export type Rng = () => number;
  * in one place never shifts the draws of another. The names in use are:
  * - `collect` (start cells and policies), `split` (episode shuffle);
  * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed);
- * - `init/<learner>` (weights), `init/<learner>/feedback` (fixed feedback matrices),
- *   `shuffle/<learner>` (batch order), `shuffle/<learner>/validation` (validation order);
+ * - `init/encoder/<channels joined by +>/<input width>/<hidden widths joined by x>/<activation>`
+ *   (a tower's encoder weights, layer by layer), `init/head/<tower>/<rows>x<cols>` (a tower's
+ *   head weights), `feedback/<tower>/<matrix>/<rows>x<cols>` (fixed feedback matrices),
+ *   `shuffle/train` (batch order, one permutation per epoch), `shuffle/validation` (evaluation
+ *   order). Tower 0 encodes a learner's input, tower 1 the contrast target. None holds the
+ *   learner's name, so learners with the same settings draw the same numbers (learn/streams.ts);
  * - `bootstrap/<table>/<learner>/<severity>` under seed 0 (report IQM intervals);
  * - `explore/<world>/<step>/<channel>/<kind>/<severity>` (noise shown by `crosswise explore`);
+ * - `listen` (the band noise of `crosswise listen`, under the walk's seed);
  * - `bench` under seed 0 (synthetic data for `crosswise bench`).
  */
 export function createRng(seed: number, ...stream: readonly (string | number)[]): Rng {

@@ -1,6 +1,7 @@
 import { fileURLToPath } from 'node:url';
 import { collect } from '../collect/collector.js';
 import { splitByEpisode } from '../collect/split.js';
+import { DEFAULTS } from '../experiment/defaults.js';
 import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
@@ -9,18 +10,18 @@ import { loadWorld } from '../world/parse.js';
 const DEMO_WORLD = fileURLToPath(new URL('../../worlds/greenhouse.yaml', import.meta.url));
 const SEED = 1;
 
-/** A quickstart learner: sound from sight, encoder [128, 64] relu, the default training settings. */
+/** A quickstart learner: sound from sight, with the default encoder [128, 64] relu and training settings. */
+const { alignEvery: _alignEvery, ...TRAIN } = DEFAULTS.learner.train;
 const SPEC: LearnerSpec = {
   name: 'bench-probe',
   objective: 'predict',
   input: ['sight'],
   target: ['sound'],
-  offset: 0,
+  offset: DEFAULTS.learner.offset,
   supervisedTargets: [],
-  encoder: { hidden: [128, 64], activation: 'relu' },
-  rule: 'backprop',
-  train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1, alignEvery: 50 },
-  saveFeatures: false,
+  encoder: DEFAULTS.learner.encoder,
+  rule: DEFAULTS.learner.rule,
+  train: TRAIN,
 };
 
 /**
@@ -31,14 +32,15 @@ const SPEC: LearnerSpec = {
  */
 export async function probeSecondsPerCell(opts: { repeats: number; backend: BackendName }): Promise<number> {
   await initBackend(opts.backend);
-  const data = collect(loadWorld(DEMO_WORLD), { policy: 'wander', steps: 20_000, episodeSteps: 200 }, DEFAULT_SENSE_SETTINGS, SEED);
-  const split = splitByEpisode(data, { train: 0.7, validation: 0.15, test: 0.15 }, SEED);
+  const { policy, steps, episodeSteps, split: fractions } = DEFAULTS.collect;
+  const data = collect(loadWorld(DEMO_WORLD), { policy, steps, episodeSteps }, DEFAULT_SENSE_SETTINGS, SEED);
+  const split = splitByEpisode(data, fractions, SEED);
   const { encoder } = await trainLearner(SPEC, data, split, { seed: SEED });
   try {
     const evaluate = () => evaluateEncoder({
       encoder, data, split, seed: SEED,
-      targets: ['wall_ahead', 'material_ahead', 'nearest_emitter', 'nearest_distance_m', 'heading'],
-      noise: [{ channel: 'sight', kind: 'gaussian', severities: [0, 1, 2, 3, 4, 5] }],
+      targets: DEFAULTS.probe.targets,
+      noise: [{ channel: 'sight', kind: 'gaussian', severities: DEFAULTS.severities }],
     });
     evaluate();
     const seconds: number[] = [];

@@ -3,7 +3,8 @@ import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { readCellRecord, type CellRecord } from '../experiment/store.js';
+import { readCellRecord, type CellRecord } from '../results/cell-record.js';
+import { outputPath } from '../results/layout.js';
 import type { BenchResult } from './result.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
@@ -18,7 +19,7 @@ function runCli(args: readonly string[]): number {
 }
 
 function cellTimings(out: string): CellRecord['seconds'][] {
-  return readdirSync(join(out, 'cells')).map((id) => readCellRecord(out, id).seconds);
+  return readdirSync(outputPath(out, 'cells')).map((id) => readCellRecord(out, id).seconds);
 }
 
 const sum = (values: readonly number[]) => values.reduce((a, b) => a + b, 0);

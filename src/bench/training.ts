@@ -44,8 +44,7 @@ const DEFAULT_SPEC: LearnerSpec = {
   supervisedTargets: ['wall_ahead', 'heading', 'nearest_distance_m'],
   encoder: { hidden: [128, 64], activation: 'relu' },
   rule: 'backprop',
-  train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 3, patience: 100, temperature: 0.1, alignEvery: 50 },
-  saveFeatures: false,
+  train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 3, patience: 100, temperature: 0.1 },
 };
 
 /** Training samples per second after a warm-up epoch (median over rounds). */

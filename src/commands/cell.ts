@@ -4,7 +4,8 @@ import type { EpochLog } from '../learn/spec.js';
 import { cellLabel } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
 import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
-import { isFinished, storeCell, type CellResult } from '../experiment/store.js';
+import { storeCell, type CellResult } from '../experiment/store.js';
+import { isFinished } from '../results/cell-folder.js';
 
 /** `crosswise cell <config> --index I [--out DIR]`: runs exactly one cell (one task of a cluster job array). */
 export async function cellCommand(args: readonly string[], workModule: string = PIPELINE_MODULE): Promise<number> {

@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { clusterScript } from '../experiment/cluster-script.js';
 import { loadSweepFrom, parseCommand, UsageError, withInputErrors } from '../experiment/command-line.js';
 import { planCells } from '../experiment/plan.js';
-import { writeFileAtomic } from '../report/atomic.js';
+import { writeFileAtomic } from '../results/atomic-file.js';
 
 const CROSSWISE_BIN = fileURLToPath(new URL('../../bin/crosswise.js', import.meta.url));
 

@@ -1,7 +1,8 @@
 import { LATENT_KIND, LATENT_NAMES, type LatentName } from '../collect/dataset.js';
 import { latentClassNames } from '../collect/collector.js';
 import { latentsAt } from '../collect/latents.js';
-import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
+import { ConfigError } from '../experiment/config-errors.js';
+import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
 import { channelEntryNames, channelShape } from '../senses/registry.js';
 import { senseAll } from '../senses/sense-all.js';
@@ -10,11 +11,13 @@ import { isBlocked } from '../world/movement.js';
 import { loadWorld } from '../world/parse.js';
 import { WorldFileError } from '../world/problems.js';
 import { ACTIONS, HEADINGS, type Action, type Heading, type Pose, type World } from '../world/types.js';
+import { configWorldAndSenses } from './config-senses.js';
 
-const USAGE = 'usage: crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]';
+const USAGE = 'usage: crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--action A] [--step N] [--json]';
 
 interface SenseArgs {
-  readonly worldPath: string;
+  readonly worldPath: string | null;
+  readonly configPath: string | null;
   readonly at: string;
   readonly action: Action;
   readonly stepIndex: number;
@@ -28,13 +31,15 @@ function parseArgs(args: readonly string[]): SenseArgs | string {
   for (let i = 0; i < args.length; i++) {
     const arg = args[i];
     if (arg === '--json') json = true;
-    else if (arg === '--at' || arg === '--action' || arg === '--step') {
+    else if (arg === '--at' || arg === '--action' || arg === '--step' || arg === '--config') {
       if (args[i + 1] == null) return `${arg} needs a value`;
       options.set(arg, args[++i]);
     } else if (arg.startsWith('-')) return `unknown option '${arg}'`;
     else positional.push(arg);
   }
-  if (positional.length !== 1) return `give exactly one world file, got ${positional.length}`;
+  const configPath = options.get('--config') ?? null;
+  if (configPath != null && positional.length > 0) return 'give a world file or --config, not both';
+  if (configPath == null && positional.length !== 1) return `give exactly one world file, got ${positional.length}`;
   const at = options.get('--at');
   if (at == null) return '--at X,Y,HEADING is required';
   const action = options.get('--action') ?? 'stay';
@@ -42,7 +47,7 @@ function parseArgs(args: readonly string[]): SenseArgs | string {
   const stepText = options.get('--step') ?? '0';
   const stepIndex = Number(stepText);
   if (!/^\d+$/.test(stepText)) return `--step must be a whole number >= 0, got '${stepText}'`;
-  return { worldPath: positional[0], at, action: action as Action, stepIndex, json };
+  return { worldPath: positional[0] ?? null, configPath, at, action: action as Action, stepIndex, json };
 }
 
 function parsePose(world: World, at: string): Pose | string {
@@ -77,10 +82,11 @@ function nest(values: Float32Array, shape: readonly number[]): unknown {
 }
 
 /** Every channel and latent at one pose as the JSON object of `crosswise sense --json`. */
-export function senseReport(world: World, pose: Pose, action: Action, stepIndex: number): SenseReport | string {
+export function senseReport(
+  world: World, pose: Pose, action: Action, stepIndex: number, settings: SenseSettings = DEFAULT_SENSE_SETTINGS,
+): SenseReport | string {
   const transition = arrivalTransition(world, pose, action);
   if (typeof transition === 'string') return transition;
-  const settings = DEFAULT_SENSE_SETTINGS;
   const senses = senseAll(world, pose, transition, action, stepIndex, settings);
   const bands = settings.sound.bands;
   const raw = latentsAt(world, pose, transition, settings);
@@ -122,23 +128,34 @@ function table(r: SenseReport): string {
   ].join('\n');
 }
 
-/** `crosswise sense <world> --at X,Y,HEADING [--action A] [--step N] [--json]`. */
+/** The world and sense settings from a world file or a config; the problem lines when either is invalid. */
+function worldAndSettings(parsed: SenseArgs): { world: World; settings: SenseSettings } | readonly string[] {
+  try {
+    if (parsed.configPath == null) return { world: loadWorld(parsed.worldPath as string), settings: DEFAULT_SENSE_SETTINGS };
+    const { worldPath, senses } = configWorldAndSenses(parsed.configPath);
+    return { world: loadWorld(worldPath), settings: senses };
+  } catch (error) {
+    if (error instanceof ConfigError) return error.lines;
+    if (error instanceof WorldFileError) return [error.message];
+    throw error;
+  }
+}
+
+/** `crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--action A] [--step N] [--json]`. */
 export async function senseCommand(args: readonly string[]): Promise<number> {
   const parsed = parseArgs(args);
   if (typeof parsed === 'string') {
     console.error(`crosswise sense: ${parsed} (${USAGE})`);
     return 1;
   }
-  let world: World;
-  try {
-    world = loadWorld(parsed.worldPath);
-  } catch (error) {
-    if (!(error instanceof WorldFileError)) throw error;
-    console.error(error.message);
+  const loaded = worldAndSettings(parsed);
+  if (!('world' in loaded)) {
+    for (const line of loaded) console.error(line);
     return 1;
   }
+  const { world, settings } = loaded;
   const pose = parsePose(world, parsed.at);
-  const report = typeof pose === 'string' ? pose : senseReport(world, pose, parsed.action, parsed.stepIndex);
+  const report = typeof pose === 'string' ? pose : senseReport(world, pose, parsed.action, parsed.stepIndex, settings);
   if (typeof report === 'string') {
     console.error(`crosswise sense: ${report}`);
     return 1;

@@ -6,8 +6,9 @@ import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
 import { initBackend, softwareVersions, trainLearner, type FeatureExtractor } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
 import { parseWorld } from '../world/parse.js';
-import type { CellOutcome, CellWork, ShapedArray } from './cell-work.js';
-import type { ScoreRow } from './events.js';
+import type { NpyArray } from '../results/npy.js';
+import type { Measurement } from '../results/results-table.js';
+import type { CellOutcome, CellWork } from './cell-work.js';
 
 /**
  * The production cell: collect the seed's experience, split it by episode, train the
@@ -25,14 +26,14 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
   const split = splitByEpisode(data, cell.collect.split, cell.seed);
   const collectSeconds = clock();
   await initBackend(cell.backend);
-  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch });
+  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch, alignEvery: cell.output.alignEvery });
   const trainSeconds = clock();
   try {
     const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
-    const rows: ScoreRow[] = evaluation.rows.map((row) => ({ learner: cell.learner.name, seed: cell.seed, ...row }));
-    const arrays: Record<string, ShapedArray> = {
+    const rows: Measurement[] = evaluation.rows.map((row) => ({ ...row, measure: 'score' }));
+    const arrays: Record<string, NpyArray> = {
       test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },
-      ...(cell.learner.saveFeatures ? everyStep(encoder, data) : {}),
+      ...(cell.output.saveFeatures ? everyStep(encoder, data) : {}),
     };
     const outcome: CellOutcome = {
       rows,
@@ -48,7 +49,7 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
 };
 
 /** Features of every collected step [steps, featureSize] and the latents [steps, LATENT_NAMES.length] in LATENT_NAMES order. */
-function everyStep(encoder: FeatureExtractor, data: Dataset): Record<string, ShapedArray> {
+function everyStep(encoder: FeatureExtractor, data: Dataset): Record<string, NpyArray> {
   const inputs = Object.fromEntries(encoder.input.map((channel) => [channel, data.channels[channel]]));
   const latents = new Float32Array(data.steps * LATENT_NAMES.length);
   LATENT_NAMES.forEach((name, j) => data.latents[name].forEach((value, t) => { latents[t * LATENT_NAMES.length + j] = value; }));

@@ -1,22 +1,17 @@
 import type { EpochLog } from '../learn/spec.js';
-import type { ScoreRow } from './events.js';
+import type { NpyArray } from '../results/npy.js';
+import type { Measurement } from '../results/results-table.js';
 import type { PlannedCell } from './plan.js';
-
-/** A float32 array with its shape, for a `.npy` file. */
-export interface ShapedArray {
-  readonly shape: readonly number[];
-  readonly data: Float32Array;
-}
 
 /** What one finished cell hands back to the runner, which stores it. */
 export interface CellOutcome {
-  readonly rows: readonly ScoreRow[];
+  readonly rows: readonly Measurement[];
   readonly log: readonly EpochLog[];
   readonly seconds: { readonly collect: number; readonly train: number; readonly probe: number };
   /** Versions of the libraries that computed the numbers, e.g. `{ tfjs: '4.22.0' }`. */
   readonly versions: Readonly<Record<string, string>>;
   /** Arrays to store as `<name>.npy` beside the scores (test features, latents). */
-  readonly arrays: Readonly<Record<string, ShapedArray>>;
+  readonly arrays: Readonly<Record<string, NpyArray>>;
 }
 
 /**

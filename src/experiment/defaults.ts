@@ -19,6 +19,17 @@ export interface ProbeSettings {
 }
 
 /**
+ * What a cell records beside its numbers. Output-only: these settings never change a
+ * number, so they are not part of a cell's identity (changing them does not rerun cells).
+ */
+export interface OutputSettings {
+  /** Also store features.npy and latents.npy of every collected step. */
+  readonly saveFeatures: boolean;
+  /** Non-backprop rules: steps between measurements of the update/gradient angle (train.csv). */
+  readonly alignEvery: number;
+}
+
+/**
  * Every default a config may leave out, in one place (config keys are the snake_case of these).
  * A config file holds only the settings it changes; `config.resolved.yaml` shows all of them.
  */
@@ -65,10 +76,10 @@ export const DEFAULTS = {
       patience: 3,
       /** contrast only: InfoNCE temperature; 0.1 is common practice (Chen et al. 2020 use 0.1–0.5). */
       temperature: 0.1,
-      /** Non-backprop rules: steps between measurements of the update/gradient angle. */
+      /** Non-backprop rules: steps between measurements of the update/gradient angle (output-only, see OutputSettings). */
       alignEvery: 50,
     },
-    /** Also write the features and the latents of every collected step (features.npy, latents.npy) beside the cell's scores. */
+    /** Also write the features and the latents of every collected step (features.npy, latents.npy) beside the cell's scores (output-only). */
     saveFeatures: false,
   },
   probe: {

@@ -2,8 +2,14 @@ import type { LatentName } from '../collect/dataset.js';
 import type { BackendName, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
-import type { CollectSettings, ProbeSettings } from './defaults.js';
+import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
 import type { FilledConfig } from './schema.js';
+
+/** A learner as the sweep runs it: what it learns, and what its cells record beside the numbers. */
+export interface PlannedLearner {
+  readonly spec: LearnerSpec;
+  readonly output: OutputSettings;
+}
 
 /** One combination of a sweep's settings, in the camelCase types the modules take. */
 export interface ResolvedSettings {
@@ -11,7 +17,7 @@ export interface ResolvedSettings {
   readonly worldPath: string;
   readonly collect: CollectSettings;
   readonly senses: SenseSettings;
-  readonly learners: readonly LearnerSpec[];
+  readonly learners: readonly PlannedLearner[];
   readonly probe: ProbeSettings;
   readonly noise: readonly NoiseSpec[];
 }
@@ -31,7 +37,10 @@ export function resolveSettings(config: FilledConfig, worldPath: string): Resolv
       sight: { ...config.senses.sight },
       sound: { bands: config.senses.sound.bands, minHz: config.senses.sound.min_hz, maxHz: config.senses.sound.max_hz },
     },
-    learners: config.learners.map((learner) => learnerSpec(learner, probeTargets)),
+    learners: config.learners.map((learner) => ({
+      spec: learnerSpec(learner, probeTargets),
+      output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
+    })),
     probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
     noise: config.noise.map((entry) => ({
       channel: entry.channel,
@@ -59,9 +68,7 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
       epochs: learner.train.epochs,
       patience: learner.train.patience,
       temperature: learner.train.temperature,
-      alignEvery: learner.train.align_every,
     },
-    saveFeatures: learner.save_features,
   };
 }
 

@@ -17,7 +17,7 @@ export function resolvedConfigYaml(sweep: Sweep): string {
     probe: { ...filled.probe, baseline: base.probe.baseline },
     learners: filled.learners.map((learner, i) => ({
       ...learner,
-      ...(learner.objective === 'supervised' ? { supervised_targets: [...base.learners[i].supervisedTargets] } : {}),
+      ...(learner.objective === 'supervised' ? { supervised_targets: [...base.learners[i].spec.supervisedTargets] } : {}),
     })),
     vary: filled.vary.world == null ? filled.vary : { ...filled.vary, world: filled.vary.world.map(moved) },
     out: '.',

@@ -1,13 +1,16 @@
 import { mkdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { writeFileAtomic } from '../results/atomic-file.js';
+import { isFinished, removePartialCells } from '../results/cell-folder.js';
+import { readCellRecord } from '../results/cell-record.js';
+import { outputPath } from '../results/layout.js';
+import { formatPlanCsv, readPlan } from '../results/plan-table.js';
+import { readStoredResults, writeResultsCsv } from '../results/stored-results.js';
 import type { RunEvent, RunListener } from './events.js';
-import { cellLabel, planCells, type PlannedCell } from './plan.js';
+import { cellLabel, planCells, planTable, type PlannedCell } from './plan.js';
 import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
-import { collectResults } from './results.js';
-import { writeFileAtomic } from '../report/atomic.js';
-import { isFinished, readCellRecord, removePartialCells, storeCell, type CellResult } from './store.js';
+import { storeCell, type CellResult } from './store.js';
 
 /** How to run a sweep. */
 export interface RunOptions {
@@ -32,7 +35,7 @@ export interface SweepOutcome {
 
 /**
  * Runs every unfinished cell of a sweep and stores each as it finishes, then rebuilds
- * results.csv in plan order and the report. Finished cells (done or failed) are skipped,
+ * results.csv from the stored cells (in config order) and the report. Finished cells (done or failed) are skipped,
  * so rerunning after an interruption completes the sweep.
  */
 export async function runSweep(sweep: Sweep, options: RunOptions): Promise<SweepOutcome> {
@@ -54,9 +57,9 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   });
   const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
   const outcome = countCells(sweep.out, cells, interrupted);
-  writeFileAtomic(join(sweep.out, 'results.csv'), collectResults(sweep.out, cells, sweep.varyKeys));
+  const results = writeResultsCsv(sweep.out, readStoredResults(sweep.out, readPlan(sweep.out)));
   const reportStarted = performance.now();
-  const where = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${join(sweep.out, 'results.csv')}`;
+  const where = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${results}`;
   const reportSeconds = (performance.now() - reportStarted) / 1000;
   const summary = `${where}; time in cells run now: collect ${phases.collect.toFixed(1)} s, train ${phases.train.toFixed(1)} s, probe ${phases.probe.toFixed(1)} s (summed over workers); report ${reportSeconds.toFixed(1)} s`;
   emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
@@ -70,11 +73,12 @@ export function cellEndEvent(cell: PlannedCell, worker: number, result: CellResu
     : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason };
 }
 
-/** Creates the output folder, writes config.resolved.yaml, clears leftovers of killed runs; returns the plan. */
+/** Creates the output folder, writes config.resolved.yaml and plan.csv, clears leftovers of killed runs; returns the plan. */
 export function prepareOutput(sweep: Sweep): PlannedCell[] {
   const cells = planCells(sweep);
-  mkdirSync(join(sweep.out, 'cells'), { recursive: true });
-  writeFileAtomic(join(sweep.out, 'config.resolved.yaml'), resolvedConfigYaml(sweep));
+  mkdirSync(outputPath(sweep.out, 'cells'), { recursive: true });
+  writeFileAtomic(outputPath(sweep.out, 'config'), resolvedConfigYaml(sweep));
+  writeFileAtomic(outputPath(sweep.out, 'plan'), formatPlanCsv(planTable(cells, sweep.varyKeys)));
   removePartialCells(sweep.out);
   return cells;
 }

@@ -26,7 +26,8 @@ const train = z.strictObject({
   epochs: int(1, 10_000).default(d.learner.train.epochs),
   patience: int(1, 10_000).default(d.learner.train.patience),
   temperature: z.number().gt(0).max(100).default(d.learner.train.temperature),
-  align_every: int(1, 1_000_000).default(d.learner.train.alignEvery),
+  align_every: int(1, 1_000_000).default(d.learner.train.alignEvery)
+    .describe('Non-backprop rules: steps between measurements of the update/gradient angle. Output-only: not part of the cell id.'),
 });
 
 const learner = z.strictObject({
@@ -39,7 +40,8 @@ const learner = z.strictObject({
   encoder: encoder.prefault({}),
   rule: z.enum(RULES).default(d.learner.rule),
   train: train.prefault({}),
-  save_features: z.boolean().default(d.learner.saveFeatures),
+  save_features: z.boolean().default(d.learner.saveFeatures)
+    .describe('Also store features.npy and latents.npy of every collected step. Output-only: not part of the cell id.'),
 });
 
 const noise = z.strictObject({

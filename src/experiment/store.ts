@@ -1,131 +1,68 @@
-import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { hostname } from 'node:os';
-import { dirname, join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import type { EpochLog } from '../learn/spec.js';
+import { commitCellFolder } from '../results/cell-folder.js';
+import { cellIdentity } from '../results/cell-identity.js';
+import { formatCellRecord, type CellRecord } from '../results/cell-record.js';
+import { RESULTS_FORMAT_VERSION } from '../results/format-version.js';
+import { CELL_FILES } from '../results/layout.js';
+import { encodeNpy } from '../results/npy.js';
+import { orderCellRows } from '../results/output-order.js';
+import { formatResultsCsv, type Measurement, type ResultRow } from '../results/results-table.js';
+import { formatTrainCsv } from '../results/train-table.js';
 import type { CellOutcome } from './cell-work.js';
-import type { PlannedCell } from './plan.js';
-import { csvLine } from '../report/csv.js';
-import { encodeNpy } from '../report/npy.js';
-import { formatResultsCsv } from '../report/results-table.js';
-import { resultRows } from './results.js';
-
-/** What happened to a cell, as stored in its cell.json. */
-export interface CellRecord {
-  readonly id: string;
-  readonly index: number;
-  readonly learner: string;
-  readonly seed: number;
-  readonly vary: Readonly<Record<string, string>>;
-  readonly status: 'done' | 'failed';
-  /** Why the cell failed; empty when it is done. */
-  readonly reason: string;
-  readonly seconds: { readonly collect: number; readonly train: number; readonly probe: number; readonly total: number };
-  readonly versions: Readonly<Record<string, string>>;
-  readonly finishedAt: string;
-  readonly settings: Omit<PlannedCell, 'index' | 'id' | 'vary'>;
-}
-
-/** The folder of one cell. */
-export function cellDir(out: string, id: string): string {
-  return join(out, 'cells', id);
-}
-
-/** Whether a cell is finished (done or failed); only a complete folder ever exists under its id. */
-export function isFinished(out: string, id: string): boolean {
-  return existsSync(join(cellDir(out, id), 'cell.json'));
-}
-
-/** The stored record of a finished cell. */
-export function readCellRecord(out: string, id: string): CellRecord {
-  return JSON.parse(readFileSync(join(cellDir(out, id), 'cell.json'), 'utf8')) as CellRecord;
-}
+import { cellSettings, type PlannedCell } from './plan.js';
 
 /** What a cell produced: an outcome when done, or the reason and the epochs it got through. */
 export type CellResult =
   | { readonly status: 'done'; readonly outcome: CellOutcome; readonly totalSeconds: number }
   | { readonly status: 'failed'; readonly reason: string; readonly log: readonly EpochLog[]; readonly totalSeconds: number };
 
-/**
- * Stores a finished cell: every file is written into a temporary folder that is then
- * renamed to `cells/<id>`, so a killed process never leaves a partly written cell.
- */
+/** Stores a finished cell (done or failed) as one folder committed at once; returns its record. */
 export function storeCell(out: string, cell: PlannedCell, result: CellResult, varyKeys: readonly string[]): CellRecord {
-  const { index: _index, id: _id, vary: _vary, ...settings } = cell;
   const outcome = result.status === 'done' ? result.outcome : undefined;
-  const record: CellRecord = {
-    id: cell.id,
-    index: cell.index,
-    learner: cell.learner.name,
-    seed: cell.seed,
-    vary: cell.vary,
-    status: result.status,
-    reason: result.status === 'failed' ? result.reason : '',
-    seconds: { ...(outcome?.seconds ?? { collect: 0, train: 0, probe: 0 }), total: result.totalSeconds },
-    versions: { node: process.versions.node, crosswise: crosswiseVersion(), ...outcome?.versions },
-    finishedAt: new Date().toISOString(),
-    settings,
-  };
+  const record = cellRecord(cell, result);
   const files: Record<string, string | Uint8Array> = {
-    'cell.json': `${JSON.stringify(record, null, 2)}\n`,
-    'train.csv': trainCsv(outcome?.log ?? (result.status === 'failed' ? result.log : [])),
+    [CELL_FILES.record]: formatCellRecord(record),
+    [CELL_FILES.train]: formatTrainCsv(outcome?.log ?? (result.status === 'failed' ? result.log : [])),
   };
   if (outcome != null) {
-    files['scores.csv'] = formatResultsCsv(resultRows(cell, outcome.rows), varyKeys);
+    const rows = orderCellRows(outcome.rows, cell.probe.targets, cell.noise);
+    files[CELL_FILES.scores] = formatResultsCsv(resultRows(cell, rows), varyKeys);
     for (const [name, array] of Object.entries(outcome.arrays)) files[`${name}.npy`] = encodeNpy(array.data, array.shape);
   }
-  commitFolder(cellDir(out, cell.id), files);
+  commitCellFolder(out, cell.id, files);
   return record;
 }
 
-function commitFolder(target: string, files: Readonly<Record<string, string | Uint8Array>>): void {
-  const temporary = join(dirname(target), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
-  mkdirSync(temporary, { recursive: true });
-  for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
-  try {
-    renameSync(temporary, target);
-  } catch (error) {
-    rmSync(temporary, { recursive: true, force: true });
-    // Another process finished the same cell first; its copy holds the same numbers.
-    if (!existsSync(join(target, 'cell.json'))) throw error;
-  }
+function cellRecord(cell: PlannedCell, result: CellResult): CellRecord {
+  const outcome = result.status === 'done' ? result.outcome : undefined;
+  return {
+    format_version: RESULTS_FORMAT_VERSION,
+    id: cell.id,
+    index: cell.index,
+    status: result.status,
+    reason: result.status === 'failed' ? result.reason : '',
+    identity: cellIdentity(cellSettings(cell)),
+    backend: cell.backend,
+    world_path: cell.world.path,
+    output: { save_features: cell.output.saveFeatures, align_every: cell.output.alignEvery },
+    seconds: { ...(outcome?.seconds ?? { collect: 0, train: 0, probe: 0 }), total: result.totalSeconds },
+    versions: { node: process.versions.node, crosswise: crosswiseVersion(), ...outcome?.versions },
+    finished_at: new Date().toISOString(),
+  };
 }
 
-// Temporary cell folders are named .partial-<host>-<pid>-<uuid>, so a cleanup only
-// touches those of dead processes on this machine, never those of a running task.
-const PARTIAL = '.partial-';
-
-/** Removes temporary folders that killed processes on this machine left behind. */
-export function removePartialCells(out: string): void {
-  const cells = join(out, 'cells');
-  if (!existsSync(cells)) return;
-  const mine = `${PARTIAL}${hostname()}-`;
-  for (const entry of readdirSync(cells)) {
-    if (!entry.startsWith(mine)) continue;
-    const pid = Number(entry.slice(mine.length).split('-')[0]);
-    if (!isAlive(pid)) rmSync(join(cells, entry), { recursive: true, force: true });
-  }
-}
-
-function isAlive(pid: number): boolean {
-  try {
-    process.kill(pid, 0); // signal 0 only checks that the process exists
-    return true;
-  } catch (error) {
-    return (error as NodeJS.ErrnoException).code === 'EPERM';
-  }
-}
-
-/** train.csv: one line per epoch, with one alignment column per weight layer when recorded. */
-export function trainCsv(log: readonly EpochLog[]): string {
-  const layers = Math.max(0, ...log.map((entry) => entry.alignmentDeg.length));
-  const alignment = Array.from({ length: layers }, (_, i) => `alignment_deg_${i + 1}`);
-  let text = csvLine(['epoch', 'train_loss', 'validation_loss', 'seconds', ...alignment]);
-  for (const entry of log) {
-    const angles = Array.from({ length: layers }, (_, i) => String(entry.alignmentDeg[i] ?? ''));
-    text += csvLine([entry.epoch, entry.trainLoss, entry.validationLoss, entry.seconds].map(String).concat(angles));
-  }
-  return text;
+/** A cell's measurements as results rows. */
+function resultRows(cell: PlannedCell, measurements: readonly Measurement[]): ResultRow[] {
+  return measurements.map((measurement) => ({
+    cell: cell.id,
+    learner: cell.learner.name,
+    objective: cell.learner.objective,
+    rule: cell.learner.rule,
+    seed: cell.seed,
+    vary: cell.vary,
+    ...measurement,
+  }));
 }
 
 let version: string | undefined;

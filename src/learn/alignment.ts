@@ -1,17 +1,16 @@
 import * as tf from '@tensorflow/tfjs-core';
 
-/**
- * Angle in degrees between two update tensors, acos(⟨u, g⟩ / (‖u‖‖g‖)) (the measure of
- * Lillicrap et al. 2016, Fig. 2); NaN when either is all zeros.
- */
+/** Angle in degrees between two tensors read as vectors, acos(⟨u, g⟩ / (‖u‖‖g‖)); NaN when either is all zeros. */
 export function angleDeg(u: tf.Tensor, g: tf.Tensor): tf.Scalar {
   const cos = tf.div(tf.sum(tf.mul(u, g)), tf.mul(tf.norm(u), tf.norm(g)));
   return tf.mul(tf.acos(tf.clipByValue(cos, -1, 1)), 180 / Math.PI);
 }
 
 /**
- * Per weight matrix, the angle between a rule's update signal and the true gradient.
- * Both lists hold one tensor per variable, W then b per layer; biases are skipped.
+ * Per weight matrix, the weight-update angle: between the rule's update of that matrix and the
+ * true gradient of the loss with respect to it (0° is backprop's direction, 90° an unrelated
+ * one). It is not the angle between hidden-unit updates, Δh_FA against Δh_BP, that Lillicrap et
+ * al. 2016 plot. Both lists hold one tensor per variable, W then b per layer; biases are skipped.
  */
 export function weightAngles(ruleGrads: readonly tf.Tensor[], trueGrads: readonly tf.Tensor[]): number[] {
   return tf.tidy(() => {

@@ -1,5 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
+import type { ChannelName } from '../senses/channel.js';
 import { glorotUniform, hiddenInit } from './init.js';
 import type { ActivationName } from './spec.js';
 
@@ -16,8 +17,10 @@ export interface Tower {
   readonly activation: ActivationName;
 }
 
-/** Sizes of one tower. */
+/** What one tower reads and its sizes. */
 export interface TowerShape {
+  /** Channels its encoder reads, in CHANNELS order. */
+  readonly channels: readonly ChannelName[];
   readonly inputWidth: number;
   readonly hidden: readonly number[];
   /** Head output width; 0 means no head (an encoder only). */
@@ -44,19 +47,28 @@ function dense(W: Float32Array, fanIn: number, fanOut: number): Dense {
   return tf.tidy(() => ({ W: tf.variable(tf.tensor2d(W, [fanIn, fanOut])), b: tf.variable(tf.zeros([fanOut])) }));
 }
 
-/** Builds a tower; weights come from the rng only (biases start at zero). */
-export function createTower(shape: TowerShape, activation: ActivationName, rng: Rng): Tower {
+/** The generators a tower's weights are drawn from: the encoder's layers in order, and the head's. */
+export interface TowerStreams {
+  readonly encoder: Rng;
+  readonly head: Rng;
+}
+
+/** Rows and columns of a tower's head: its representation plus the extra columns, to its outputs. */
+export function headShape(shape: TowerShape): [number, number] {
+  return [shape.hidden[shape.hidden.length - 1] + shape.extraWidth, shape.outputWidth];
+}
+
+/** Builds a tower; weights come from the streams only (biases start at zero). */
+export function createTower(shape: TowerShape, activation: ActivationName, streams: TowerStreams): Tower {
   const init = hiddenInit(activation);
   const encoder: Dense[] = [];
   let fanIn = shape.inputWidth;
   for (const width of shape.hidden) {
-    encoder.push(dense(init(rng, fanIn, width), fanIn, width));
+    encoder.push(dense(init(streams.encoder, fanIn, width), fanIn, width));
     fanIn = width;
   }
-  const headIn = fanIn + shape.extraWidth;
-  const head = shape.outputWidth > 0
-    ? dense(glorotUniform(rng, headIn, shape.outputWidth), headIn, shape.outputWidth)
-    : null;
+  const [headIn, outputs] = headShape(shape);
+  const head = outputs > 0 ? dense(glorotUniform(streams.head, headIn, outputs), headIn, outputs) : null;
   return { encoder, head, activation };
 }
 

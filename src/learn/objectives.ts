@@ -1,8 +1,9 @@
 import * as tf from '@tensorflow/tfjs-core';
 import { LATENT_KIND, type Dataset, type LatentName } from '../collect/dataset.js';
+import type { ChannelName } from '../senses/channel.js';
 import { nextSteps, type ExampleSet, type TrainingStatistics } from './examples.js';
 import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
-import { channelWidth, datasetRows, withSuccessor } from './matrix.js';
+import { channelWidth, datasetRows, orderedChannels, withSuccessor } from './matrix.js';
 import type { TowerShape } from './network.js';
 import type { LearnerSpec, ObjectiveName } from './spec.js';
 
@@ -23,8 +24,8 @@ export interface Objective {
 
 type ObjectiveFactory = (spec: LearnerSpec, data: Dataset) => Objective;
 
-function tower(spec: LearnerSpec, inputWidth: number, outputWidth: number, extraWidth = 0): TowerShape {
-  return { inputWidth, hidden: spec.encoder.hidden, outputWidth, extraWidth };
+function tower(spec: LearnerSpec, data: Dataset, channels: readonly ChannelName[], outputWidth: number, extraWidth = 0): TowerShape {
+  return { channels: orderedChannels(channels), inputWidth: channelWidth(data.channelSize, channels), hidden: spec.encoder.hidden, outputWidth, extraWidth };
 }
 
 function mse(outputs: readonly tf.Tensor2D[], target: tf.Tensor2D | null): tf.Scalar {
@@ -34,7 +35,7 @@ function mse(outputs: readonly tf.Tensor2D[], target: tf.Tensor2D | null): tf.Sc
 
 /** `input` → `target` channels at the same step (offset 0) or the next (offset 1), standardised. */
 const predict: ObjectiveFactory = (spec, data) => ({
-  towers: [tower(spec, channelWidth(data.channelSize, spec.input), channelWidth(data.channelSize, spec.target))],
+  towers: [tower(spec, data, spec.input, channelWidth(data.channelSize, spec.target))],
   signal: {
     examples(stats, steps) {
       const rows = spec.offset === 1 ? withSuccessor(data, steps) : steps;
@@ -54,7 +55,7 @@ const predict: ObjectiveFactory = (spec, data) => ({
 const reconstruct: ObjectiveFactory = (spec, data) => {
   const width = channelWidth(data.channelSize, spec.input);
   return {
-    towers: [tower(spec, width, width)],
+    towers: [tower(spec, data, spec.input, width)],
     signal: {
       examples(stats, steps) {
         const x = stats.standardised(spec.input, steps);
@@ -75,7 +76,7 @@ const reconstruct: ObjectiveFactory = (spec, data) => {
 const forecast: ObjectiveFactory = (spec, data) => {
   const width = channelWidth(data.channelSize, spec.input);
   return {
-    towers: [tower(spec, width, width, data.channelSize.motor)],
+    towers: [tower(spec, data, spec.input, width, data.channelSize.motor)],
     signal: {
       examples(stats, steps) {
         const rows = withSuccessor(data, steps);
@@ -101,8 +102,8 @@ const contrast: ObjectiveFactory = (spec, data) => {
   const embedding = spec.encoder.hidden[spec.encoder.hidden.length - 1];
   return {
     towers: [
-      tower(spec, channelWidth(data.channelSize, spec.input), embedding),
-      tower(spec, channelWidth(data.channelSize, spec.target), embedding),
+      tower(spec, data, spec.input, embedding),
+      tower(spec, data, spec.target, embedding),
     ],
     signal: {
       examples: (stats, steps) => ({
@@ -144,7 +145,7 @@ const supervised: ObjectiveFactory = (spec, data) => {
   const widths = names.map((name) => latentWidth(data, name));
   const offsets = widths.map((_, j) => widths.slice(0, j).reduce((a, b) => a + b, 0));
   return {
-    towers: [tower(spec, channelWidth(data.channelSize, spec.input), widths.reduce((a, b) => a + b, 0))],
+    towers: [tower(spec, data, spec.input, widths.reduce((a, b) => a + b, 0))],
     signal: {
       examples: (stats, steps) => ({
         n: steps.length,
@@ -169,7 +170,7 @@ const supervised: ObjectiveFactory = (spec, data) => {
 
 /** Frozen random weights: an encoder with no head and nothing to train (the floor). */
 const untrained: ObjectiveFactory = (spec, data) => ({
-  towers: [tower(spec, channelWidth(data.channelSize, spec.input), 0)],
+  towers: [tower(spec, data, spec.input, 0)],
   signal: null,
 });
 
@@ -189,7 +190,7 @@ export function checkSpec(spec: LearnerSpec): void {
   }
   if (spec.objective === 'supervised' && spec.supervisedTargets.length === 0) fail("objective 'supervised' needs at least one latent target");
   if (!(spec.train.batch >= 1) || !Number.isInteger(spec.train.batch)) fail(`batch must be a positive integer, got ${spec.train.batch}`);
+  if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);
   if (!(spec.train.temperature > 0)) fail(`temperature must be positive, got ${spec.train.temperature}`);
-  if (!(spec.train.alignEvery >= 1)) fail(`alignEvery must be at least 1, got ${spec.train.alignEvery}`);
 }

@@ -17,8 +17,8 @@ export type LossOfOutputs = (outputs: readonly tf.Tensor2D[]) => tf.Scalar;
 
 /** A learning rule: the weight-update signal it sends each variable. */
 export interface Rule {
-  /** Fixed random feedback matrices per tower (empty for backprop). */
-  createFeedback(towers: readonly Tower[], rng: Rng): tf.Tensor2D[][];
+  /** [rows, cols] of each fixed random feedback matrix a tower needs, in the order `gradients` reads them (none for backprop). */
+  feedbackShapes(tower: Tower): [number, number][];
   /** Loss and one update signal per variable, in `allVariables` order. */
   gradients(towers: readonly Tower[], feedback: readonly tf.Tensor2D[][], batch: Batch, loss: LossOfOutputs): { loss: tf.Scalar; grads: tf.Tensor[] };
 }
@@ -40,8 +40,12 @@ export function trueGradients(towers: readonly Tower[], batch: Batch, loss: Loss
   return { loss: value, grads: vars.map((v) => grads[v.name]) };
 }
 
-function randomMatrix(rng: Rng, rows: number, cols: number): tf.Tensor2D {
-  return tf.tensor2d(glorotUniform(rng, rows, cols), [rows, cols]);
+/**
+ * A rule's fixed feedback matrices, tower by tower, each Glorot-uniform from the stream that
+ * `streamOf` gives for its tower, its position and its shape.
+ */
+export function createFeedback(rule: Rule, towers: readonly Tower[], streamOf: (tower: number, matrix: number, shape: [number, number]) => Rng): tf.Tensor2D[][] {
+  return towers.map((t, i) => rule.feedbackShapes(t).map(([rows, cols], j) => tf.tensor2d(glorotUniform(streamOf(i, j, [rows, cols]), rows, cols), [rows, cols])));
 }
 
 /** Output error e = ∂L/∂output of each tower (for contrast: the gradient w.r.t. each embedding). */
@@ -89,11 +93,11 @@ function directFeedbackBackward(tower: Tower, cache: ForwardCache, e: tf.Tensor2
 }
 
 function randomFeedbackRule(
-  shapes: (tower: Tower) => [number, number][],
+  feedbackShapes: (tower: Tower) => [number, number][],
   backward: (tower: Tower, cache: ForwardCache, e: tf.Tensor2D, feedback: readonly tf.Tensor2D[]) => tf.Tensor[],
 ): Rule {
   return {
-    createFeedback: (towers, rng) => towers.map((t) => shapes(t).map(([r, c]) => randomMatrix(rng, r, c))),
+    feedbackShapes,
     gradients(towers, feedback, batch, loss) {
       const caches = towers.map((t, i) => forwardCached(t, batch.inputs[i], i === 0 ? batch.extra : null));
       const { loss: value, errors } = outputErrors(caches, loss);
@@ -110,7 +114,7 @@ function widths(tower: Tower): { hidden: number[]; out: number } {
 /** Every learning rule by its config name. */
 export const RULE_REGISTRY: Record<RuleName, Rule> = {
   backprop: {
-    createFeedback: (towers) => towers.map(() => []),
+    feedbackShapes: () => [],
     gradients: (towers, _feedback, batch, loss) => trueGradients(towers, batch, loss),
   },
   'feedback-alignment': randomFeedbackRule((tower) => {

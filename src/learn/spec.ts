@@ -44,11 +44,7 @@ export interface LearnerSpec {
     readonly patience: number;
     /** contrast only: InfoNCE temperature. */
     readonly temperature: number;
-    /** Non-backprop rules: record update/gradient angles every this many steps. */
-    readonly alignEvery: number;
   };
-  /** Write features and latents as .npy files beside the cell's results. */
-  readonly saveFeatures: boolean;
 }
 
 /** One line of the training log. */
@@ -58,9 +54,9 @@ export interface EpochLog {
   readonly validationLoss: number;
   readonly seconds: number;
   /**
-   * Mean angle in degrees between the rule's weight-gradient signal and the true gradient,
-   * per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
-   * target encoder's; recorded every `alignEvery` steps. Empty for backprop.
+   * Mean weight-update angle in degrees, between the rule's update of a weight matrix and the
+   * true gradient of the loss with respect to it, per weight matrix: the input encoder's hidden layers then its head, then (contrast) the
+   * target encoder's; recorded every `alignEvery` steps (TrainOptions). Empty for backprop.
    */
   readonly alignmentDeg: readonly number[];
 }

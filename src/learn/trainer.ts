@@ -1,6 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
-import { createRng, type Rng } from '../random.js';
+import type { Rng } from '../random.js';
 import { disposeSplit, gatherBatch, permutation, uploadExamples, type SplitTensors } from './batches.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
@@ -8,14 +8,21 @@ import { TrainingStatistics } from './examples.js';
 import { createExtractor } from './extractor.js';
 import { createTower, disposeTower, type Tower } from './network.js';
 import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
-import { allVariables, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
+import { allVariables, createFeedback, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
+import { batchOrderStream, feedbackStream, towerStreams } from './streams.js';
 
 /** Options of one training run. */
 export interface TrainOptions {
-  /** The cell seed: initialisation and shuffling derive from it alone. */
+  /** The cell seed: initialisation, feedback matrices and batch order derive from it and the learner's settings (streams.ts). */
   readonly seed: number;
   readonly onEpoch?: (log: EpochLog) => void;
+  /**
+   * Non-backprop rules: measure the update/gradient angle every this many steps (and at
+   * an epoch's last step when no step of it was measured). Left out, only that last step
+   * is measured. Measuring reads the weights and never changes them.
+   */
+  readonly alignEvery?: number;
 }
 
 /** A frozen encoder and its training log. */
@@ -48,6 +55,7 @@ interface EpochContext {
   readonly signal: TrainingSignal;
   readonly optimizer: tf.Optimizer;
   readonly shuffle: Rng;
+  readonly alignEvery: number | undefined;
   step: number;
 }
 
@@ -63,7 +71,8 @@ function trainEpoch(ctx: EpochContext, train: SplitTensors, epoch: number): { lo
     const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
     if (rows.length < minBatch(spec)) continue;
     const last = start + spec.train.batch >= train.n;
-    const record = spec.rule !== 'backprop' && (ctx.step % spec.train.alignEvery === 0 || (last && !angles.recorded));
+    const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
+    const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
     const value = tf.tidy(() => {
       const batch = gatherBatch(train, rows);
       const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
@@ -110,15 +119,14 @@ function makeOptimizer(spec: LearnerSpec): tf.Optimizer {
 const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 /**
- * Epochs with early stopping on the validation loss: training stops once `patience`
- * epochs in a row bring no lower validation loss (patience 0 acts like 1). When training
- * ends the weights of the epoch with the lowest validation loss are restored, and that
- * epoch is returned.
+ * Epochs with early stopping on the validation loss: training stops once `patience` (≥ 1)
+ * epochs in a row bring no lower validation loss. When training ends the weights of the
+ * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
 async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
   const { spec, towers, signal } = ctx;
   const vars = allVariables(towers);
-  const validationOrder = permutation(validation.n, createRng(options.seed, 'shuffle', spec.name, 'validation'));
+  const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
   let best: tf.Tensor[] = [];
   let bestLoss = Infinity;
   let bestEpoch = 0;
@@ -157,6 +165,9 @@ async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: Spl
  */
 export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedNetwork> {
   checkSpec(spec);
+  if (options.alignEvery != null && !(Number.isInteger(options.alignEvery) && options.alignEvery >= 1)) {
+    throw new Error(`learner '${spec.name}': alignEvery must be a positive integer, got ${options.alignEvery}`);
+  }
   const objective = OBJECTIVE_REGISTRY[spec.objective](spec, data);
   const stats = new TrainingStatistics(data, split.train);
   const signal = objective.signal;
@@ -165,17 +176,16 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     const n = examples?.[i].n ?? Infinity;
     if (n < minBatch(spec)) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
   }
-  const initRng = createRng(options.seed, 'init', spec.name);
-  const towers = objective.towers.map((shape) => createTower(shape, spec.encoder.activation, initRng));
+  const towers = objective.towers.map((shape, i) => createTower(shape, spec.encoder.activation, towerStreams(options.seed, shape, spec.encoder.activation, i)));
   const log: EpochLog[] = [];
   if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
   const rule = RULE_REGISTRY[spec.rule];
-  const feedback = rule.createFeedback(towers, createRng(options.seed, 'init', spec.name, 'feedback'));
+  const feedback = createFeedback(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
   const [train, validation] = examples.map(uploadExamples);
   const optimizer = makeOptimizer(spec);
   let bestEpoch = 0;
   try {
-    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: createRng(options.seed, 'shuffle', spec.name), step: 0 };
+    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);

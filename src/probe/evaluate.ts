@@ -19,6 +19,8 @@ export interface EvaluationRow {
   readonly channel: string;
   readonly kind: string;
   readonly severity: number;
+  /** The corruption parameter used at this severity (noiseParameter: the clean value at severity 0). */
+  readonly parameter: number;
   readonly metric: 'r2' | 'accuracy' | 'chance' | 'cka';
   readonly value: number;
 }
@@ -103,7 +105,8 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
     const corrupted = encoder.input.includes(spec.channel) ? corruptedFeatures(args, spec, testInputs) : [];
     spec.severities.forEach((severity, i) => {
       const features = corrupted[i];
-      rows.push(...conditionRows(spec, severity, features === undefined ? clean : measure(features), probes, chance));
+      const at = { channel: spec.channel, kind: spec.kind, severity, parameter: noiseParameter(spec, i) };
+      rows.push(...conditionRows(at, features === undefined ? clean : measure(features), probes, chance));
     });
   }
   const testFeatureRows = Math.min(nTest, TEST_FEATURE_ROWS);
@@ -143,8 +146,9 @@ function corruptedFeatures(args: EvaluationArgs, spec: NoiseSpec, test: RowInput
   });
 }
 
-function conditionRows(spec: NoiseSpec, severity: number, condition: Condition, probes: readonly FittedProbe[], chance: readonly number[]): EvaluationRow[] {
-  const at = { channel: spec.channel, kind: spec.kind, severity };
+type NoiseLevel = Pick<EvaluationRow, 'channel' | 'kind' | 'severity' | 'parameter'>;
+
+function conditionRows(at: NoiseLevel, condition: Condition, probes: readonly FittedProbe[], chance: readonly number[]): EvaluationRow[] {
   const rows: EvaluationRow[] = [];
   probes.forEach((probe, t) => {
     rows.push({ target: probe.target.name, ...at, metric: probe.target.metric, value: condition.scores[t] });

@@ -1,17 +1,21 @@
 import { mkdir, readdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { summarise } from '../stats/summarise.js';
-import { writeFileAtomic } from './atomic.js';
-import { compareWithBaseline, formatComparisonsCsv } from './comparisons.js';
+import { writeFileAtomic } from '../results/atomic-file.js';
+import { formatComparisonsCsv } from '../results/comparisons-table.js';
+import { outputPath } from '../results/layout.js';
+import { writeResultsCsv } from '../results/stored-results.js';
+import { compareWithBaseline } from './comparisons.js';
 import { combinations, scoreGroups, severities, unique, type Combination } from './groups.js';
 import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';
-import { loadRun, type StoredRun } from './load.js';
+import { loadRun, type StoredCell, type StoredRun } from './load.js';
 import { bandPlotSvg, robustnessPlotPath, trainingPlotPath, type BandPoint } from './plots.js';
 import { learnerSummaries } from './sections.js';
 import { summaryMarkdown } from './summary.js';
 
 /** What `buildReport` wrote. */
 export interface ReportFiles {
+  readonly resultsPath: string;
   readonly summaryPath: string;
   readonly comparisonsPath: string;
   /** Paths of the SVG plots written, joined to outDir. */
@@ -20,17 +24,19 @@ export interface ReportFiles {
 }
 
 /**
- * Rebuilds summary.md, comparisons.csv and plots/*.svg from an output directory's
- * stored results and cells; every file is written atomically. Throws a one-line error
- * when the directory or its results are missing.
+ * Rebuilds results.csv, summary.md, comparisons.csv and plots/*.svg from an output
+ * folder's stored cells alone, in config order, so `crosswise run` and `crosswise report`
+ * write the same bytes. Every file is written atomically. Throws a one-line error when
+ * the folder or its results are missing.
  */
 export async function buildReport(outDir: string): Promise<ReportFiles> {
-  const run = await loadRun(outDir);
+  const run = loadRun(outDir);
+  const resultsPath = writeResultsCsv(outDir, run.results);
   const warnings = [...run.warnings];
   const combos = combinations(run.rows, run.varyKeys);
   const comparisons = run.baseline == null ? [] : compareWithBaseline(run.rows, run.varyKeys, run.baseline);
   const learners = unique(run.rows.map((r) => r.learner));
-  await mkdir(join(outDir, 'plots'), { recursive: true });
+  await mkdir(outputPath(outDir, 'plots'), { recursive: true });
   const plots = new Set<string>();
   const ckaByCombo = new Map<number, LearnerCka | null>();
   for (const combo of combos) {
@@ -42,18 +48,19 @@ export async function buildReport(outDir: string): Promise<ReportFiles> {
     ckaByCombo.set(combo.index, await learnerCka(run, combo, warnings));
   }
   await removeStalePlots(outDir, plots);
-  const summaryPath = join(outDir, 'summary.md');
-  const comparisonsPath = join(outDir, 'comparisons.csv');
+  const summaryPath = outputPath(outDir, 'summary');
+  const comparisonsPath = outputPath(outDir, 'comparisons');
   writeFileAtomic(comparisonsPath, formatComparisonsCsv(comparisons, run.varyKeys));
   writeFileAtomic(summaryPath, summaryMarkdown({ run, combinations: combos, comparisons, learnerCka: ckaByCombo, plots, warnings }));
-  return { summaryPath, comparisonsPath, plots: [...plots].map((p) => join(outDir, p)), warnings };
+  return { resultsPath, summaryPath, comparisonsPath, plots: [...plots].map((p) => join(outDir, p)), warnings };
 }
 
 /** Removes plots an earlier report wrote that this one did not, so plots/ always matches summary.md. */
 async function removeStalePlots(outDir: string, written: ReadonlySet<string>): Promise<void> {
-  for (const name of await readdir(join(outDir, 'plots'))) {
+  const plots = outputPath(outDir, 'plots');
+  for (const name of await readdir(plots)) {
     const ours = /^(robustness_.+|training(_c\d+)?)\.svg$/.test(name);
-    if (ours && !written.has(`plots/${name}`)) await rm(join(outDir, 'plots', name), { force: true });
+    if (ours && !written.has(`plots/${name}`)) await rm(join(plots, name), { force: true });
   }
 }
 
@@ -77,12 +84,13 @@ async function comboPlots(run: StoredRun, combo: Combination, index: number | nu
 
 /** Validation loss per epoch and learner, mean and 95% CI over the seeds that reached that epoch. */
 function trainingPoints(run: StoredRun, combo: Combination): BandPoint[] {
-  const cells = cellsOf(run, combo).filter((c) => c.status === 'done' && c.validationLoss.length > 0);
-  return unique(cells.map((c) => c.learner)).flatMap((learner) => {
-    const mine = cells.filter((c) => c.learner === learner);
-    const epochs = Math.max(...mine.map((c) => c.validationLoss.length));
+  const cells = cellsOf(run, combo).filter((c) => c.record.status === 'done' && c.log.length > 0);
+  const learnerOf = (c: StoredCell) => c.record.identity.learner.name;
+  return unique(cells.map(learnerOf)).flatMap((learner) => {
+    const mine = cells.filter((c) => learnerOf(c) === learner);
+    const epochs = Math.max(...mine.map((c) => c.log.length));
     return Array.from({ length: epochs }, (_, e): BandPoint => {
-      const s = summarise(mine.map((c) => c.validationLoss[e] ?? NaN));
+      const s = summarise(mine.map((c) => c.log[e]?.validationLoss ?? NaN));
       return { learner, x: e + 1, mean: s.mean, low: s.ciLow, high: s.ciHigh };
     });
   });

@@ -1,29 +1,23 @@
 import { holm } from '../stats/holm.js';
 import { pairedComparison, type PairedComparison } from '../stats/paired.js';
+import type { ComparisonRow } from '../results/comparisons-table.js';
+import type { ScoreRow } from '../results/results-table.js';
 import { bySeed, combinations, scoreGroups, severities, unique } from './groups.js';
-import { csvLine } from './csv.js';
-import type { ResultRow } from './results-table.js';
 
 /** One learner against the baseline at one target, noise and severity, paired by seed. */
-export interface Comparison extends PairedComparison {
+export interface Comparison extends PairedComparison, ComparisonRow {
   readonly combination: number;
-  readonly vary: Readonly<Record<string, string>>;
-  readonly learner: string;
-  readonly baseline: string;
-  readonly target: string;
-  readonly channel: string;
-  readonly kind: string;
   readonly severity: number;
-  readonly metric: string;
   /** Holm-adjusted p across every comparison of the report (Holm 1979). */
   readonly pHolm: number;
 }
 
 /**
  * Every paired comparison of a learner's probe score with the baseline's, Holm-adjusted
- * together across the whole report (all combinations, targets, noises and severities).
+ * together across the whole report (all combinations, targets, noises and severities):
+ * for now that one family is the primary family of every comparison.
  */
-export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
+export function compareWithBaseline(rows: readonly ScoreRow[], varyKeys: readonly string[], baseline: string): Comparison[] {
   const raw: Omit<Comparison, 'pHolm'>[] = [];
   for (const combo of combinations(rows, varyKeys)) {
     const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => l !== baseline);
@@ -36,7 +30,8 @@ export function compareWithBaseline(rows: readonly ResultRow[], varyKeys: readon
           const seeds = [...mine.keys()].filter((s) => base.has(s)).sort((a, b) => a - b);
           if (seeds.length === 0) continue;
           const test = pairedComparison(seeds.map((s) => mine.get(s)!), seeds.map((s) => base.get(s)!));
-          raw.push({ ...test, combination: combo.index, vary: combo.values, learner, baseline, target, channel, kind, severity, metric });
+          raw.push({ ...test, combination: combo.index, vary: combo.values, learner, baseline, target, channel, kind, severity,
+            measure: 'score', family: 'primary', metric });
         }
       }
     }
@@ -62,18 +57,6 @@ function hypothesisKeys(comparisons: readonly Omit<Comparison, 'pHolm'>[]): stri
 export function holmFamilySize(comparisons: readonly Comparison[]): number {
   const keys = hypothesisKeys(comparisons);
   return unique(keys.filter((_, i) => !Number.isNaN(comparisons[i].p))).length;
-}
-
-/** The comparisons.csv text (DESIGN, Output layout), vary columns last. */
-export function formatComparisonsCsv(comparisons: readonly Comparison[], varyKeys: readonly string[]): string {
-  let text = csvLine(['learner', 'baseline', 'target', 'channel', 'kind', 'severity', 'metric',
-    'mean_diff', 'ci_low', 'ci_high', 'p', 'p_holm', 'd_z', 'n_seeds', ...varyKeys]);
-  for (const c of comparisons) {
-    text += csvLine([c.learner, c.baseline, c.target, c.channel, c.kind, String(c.severity), c.metric,
-      ...[c.meanDiff, c.ciLow, c.ciHigh, c.p, c.pHolm, c.dz].map(String), String(c.n),
-      ...varyKeys.map((k) => c.vary[k] ?? '')]);
-  }
-  return text;
 }
 
 /** Whether a comparison shows a reliable difference: Holm p < 0.05 and a CI that excludes 0. */

@@ -1,11 +1,11 @@
-import type { ResultRow } from './results-table.js';
+import type { ScoreRow } from '../results/results-table.js';
 
 /** One combination of vary values, with the result rows measured under it. */
 export interface Combination {
   /** 1-based position in order of first appearance in results.csv. */
   readonly index: number;
   readonly values: Readonly<Record<string, string>>;
-  readonly rows: readonly ResultRow[];
+  readonly rows: readonly ScoreRow[];
 }
 
 /** A corrupted channel and the kind of corruption. */
@@ -20,8 +20,8 @@ export function comboKey(values: Readonly<Record<string, string>>, varyKeys: rea
 }
 
 /** Splits rows by their vary values (one combination when there are no vary keys). */
-export function combinations(rows: readonly ResultRow[], varyKeys: readonly string[]): Combination[] {
-  const byKey = new Map<string, ResultRow[]>();
+export function combinations(rows: readonly ScoreRow[], varyKeys: readonly string[]): Combination[] {
+  const byKey = new Map<string, ScoreRow[]>();
   for (const r of rows) {
     const key = comboKey(r.vary, varyKeys);
     const list = byKey.get(key) ?? [];
@@ -37,7 +37,7 @@ export function unique<T>(items: Iterable<T>): T[] {
 }
 
 /** Distinct noises (channel, kind) in order of first appearance. */
-export function noises(rows: readonly ResultRow[]): Noise[] {
+export function noises(rows: readonly ScoreRow[]): Noise[] {
   const seen = new Map<string, Noise>();
   for (const r of rows) {
     const key = `${r.channel}\u0000${r.kind}`;
@@ -47,20 +47,20 @@ export function noises(rows: readonly ResultRow[]): Noise[] {
 }
 
 /** The value per seed of the rows that pass `match` (the last row wins for a repeated seed). */
-export function bySeed(rows: readonly ResultRow[], match: (r: ResultRow) => boolean): Map<number, number> {
+export function bySeed(rows: readonly ScoreRow[], match: (r: ScoreRow) => boolean): Map<number, number> {
   const values = new Map<number, number>();
   for (const r of rows) if (match(r)) values.set(r.seed, r.value);
   return values;
 }
 
 /** The probe score metric of a target's rows: accuracy for categorical targets, r2 for continuous ones. */
-export function scoreMetric(rows: readonly ResultRow[], target: string): 'r2' | 'accuracy' | null {
+export function scoreMetric(rows: readonly ScoreRow[], target: string): 'r2' | 'accuracy' | null {
   const metrics = new Set(rows.filter((r) => r.target === target).map((r) => r.metric));
   return metrics.has('accuracy') ? 'accuracy' : metrics.has('r2') ? 'r2' : null;
 }
 
 /** Severities present in the rows, ascending. */
-export function severities(rows: readonly ResultRow[]): number[] {
+export function severities(rows: readonly ScoreRow[]): number[] {
   return unique(rows.map((r) => r.severity)).sort((a, b) => a - b);
 }
 
@@ -68,11 +68,11 @@ export function severities(rows: readonly ResultRow[]): number[] {
 export interface ScoreGroup extends Noise {
   readonly target: string;
   readonly metric: 'r2' | 'accuracy';
-  readonly rows: readonly ResultRow[];
+  readonly rows: readonly ScoreRow[];
 }
 
 /** The score rows split by target, then by noise, in order of first appearance; targets without a probe score (CKA) are left out. */
-export function scoreGroups(rows: readonly ResultRow[]): ScoreGroup[] {
+export function scoreGroups(rows: readonly ScoreRow[]): ScoreGroup[] {
   const groups: ScoreGroup[] = [];
   for (const target of unique(rows.map((r) => r.target))) {
     const metric = scoreMetric(rows, target);

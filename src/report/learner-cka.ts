@@ -1,9 +1,9 @@
-import { join } from 'node:path';
 import { summarise, type Summary } from '../stats/summarise.js';
 import { preparedCka, prepareCka } from '../probe/cka.js';
 import { comboKey, unique, type Combination } from './groups.js';
 import type { StoredCell, StoredRun } from './load.js';
-import { readNpy, type NpyArray } from './npy.js';
+import { cellArrayPath, TEST_FEATURES } from '../results/layout.js';
+import { readNpy, type NpyArray } from '../results/npy.js';
 
 /** CKA between every pair of learners on clean test features, summarised over seeds. */
 export interface LearnerCka {
@@ -16,7 +16,7 @@ export interface LearnerCka {
 export function cellsOf(run: StoredRun, combo: Combination): StoredCell[] {
   const ids = new Set(combo.rows.map((r) => r.cell));
   const key = comboKey(combo.values, run.varyKeys);
-  return run.cells.filter((c) => ids.has(c.id) || (c.status !== 'done' && comboKey(c.vary, run.varyKeys) === key));
+  return run.cells.filter(({ record }) => ids.has(record.id) || (record.status !== 'done' && comboKey(record.identity.vary, run.varyKeys) === key));
 }
 
 /**
@@ -25,12 +25,12 @@ export function cellsOf(run: StoredRun, combo: Combination): StoredCell[] {
  * over seeds. Null when fewer than two learners stored features.
  */
 export async function learnerCka(run: StoredRun, combo: Combination, warnings: string[]): Promise<LearnerCka | null> {
-  const cells = cellsOf(run, combo).filter((c) => c.status === 'done' && c.hasFeatures);
-  const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => cells.some((c) => c.learner === l));
+  const cells = cellsOf(run, combo).filter((c) => c.record.status === 'done' && c.hasFeatures);
+  const learners = unique(combo.rows.map((r) => r.learner)).filter((l) => cells.some((c) => c.record.identity.learner.name === l));
   if (learners.length < 2) return null;
   const values = learners.map(() => learners.map((): number[] => []));
-  for (const seed of unique(cells.map((c) => c.seed))) {
-    const features = await seedFeatures(run, cells.filter((c) => c.seed === seed), warnings);
+  for (const seed of unique(cells.map((c) => c.record.identity.seed))) {
+    const features = await seedFeatures(run, cells.filter((c) => c.record.identity.seed === seed), warnings);
     if (features.size === 0) continue;
     const rows = Math.min(...[...features.values()].map((f) => f.shape[0]));
     if ([...features.values()].some((f) => f.shape[0] !== rows)) {
@@ -52,12 +52,12 @@ export async function learnerCka(run: StoredRun, combo: Combination, warnings: s
 /** The 2-D test features of one seed's cells, by learner; unreadable files become warnings. */
 async function seedFeatures(run: StoredRun, cells: readonly StoredCell[], warnings: string[]): Promise<Map<string, NpyArray>> {
   const features = new Map<string, NpyArray>();
-  for (const c of cells) {
-    const path = join(run.outDir, 'cells', c.id, 'test_features.npy');
+  for (const { record } of cells) {
+    const path = cellArrayPath(run.outDir, record.id, TEST_FEATURES);
     try {
       const array = await readNpy(path);
       if (array.shape.length !== 2) throw new Error(`${path}: expected a 2-D array [rows, features], got shape (${array.shape.join(', ')})`);
-      features.set(c.learner, array);
+      features.set(record.identity.learner.name, array);
     } catch (error) {
       warnings.push((error as Error).message);
     }

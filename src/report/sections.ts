@@ -5,19 +5,19 @@ import { isReliable, type Comparison } from './comparisons.js';
 import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
 import type { StoredCell } from './load.js';
-import type { ResultRow } from './results-table.js';
+import type { ScoreRow } from '../results/results-table.js';
 import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */
 export const FEW_SEEDS = 10;
 
 /** Mean ± CI of one learner's metric at each severity. */
-export function learnerSummaries(rows: readonly ResultRow[], learner: string, levels: readonly number[]): Summary[] {
+export function learnerSummaries(rows: readonly ScoreRow[], learner: string, levels: readonly number[]): Summary[] {
   return levels.map((s) => summarise([...bySeed(rows, (r) => r.learner === learner && r.severity === s).values()]));
 }
 
 /** The learner × severity table of a metric, with an optional chance row. */
-export function scoreTable(rows: readonly ResultRow[], chance: readonly ResultRow[]): string[] {
+export function scoreTable(rows: readonly ScoreRow[], chance: readonly ScoreRow[]): string[] {
   const levels = severities(rows);
   const body = unique(rows.map((r) => r.learner)).map((l) => [l, ...learnerSummaries(rows, l, levels).map(meanCi)]);
   if (chance.length > 0) {
@@ -38,7 +38,7 @@ export function comparisonTable(comparisons: readonly Comparison[]): string[] {
  * Normalised area, drop from clean, CE and relative CE of each learner's mean curve
  * (definitions in src/probe/robustness.ts), then one line naming why any figure is n/a.
  */
-export function robustnessTable(rows: readonly ResultRow[], baseline: string | null): string[] {
+export function robustnessTable(rows: readonly ScoreRow[], baseline: string | null): string[] {
   const levels = severities(rows);
   const curve = (learner: string): CurvePoint[] =>
     learnerSummaries(rows, learner, levels).map((s, i) => ({ severity: levels[i], score: s.mean }));
@@ -97,7 +97,7 @@ export function verdict(target: string, noise: Noise, baseline: string, comparis
  * (Agarwal et al. 2021, NeurIPS), for runs with many seeds. The bootstrap stream is
  * seeded from a fixed name, so the same results give the same table.
  */
-export function iqmTable(rows: readonly ResultRow[], streamName: string): string[] {
+export function iqmTable(rows: readonly ScoreRow[], streamName: string): string[] {
   const levels = severities(rows);
   return table(['learner', ...levels.map((s) => `severity ${s}`)], unique(rows.map((r) => r.learner)).map((learner) => [
     learner, ...levels.map((s) => {
@@ -110,10 +110,12 @@ export function iqmTable(rows: readonly ResultRow[], streamName: string): string
 
 /** Final-epoch angle between each rule's update and the true gradient, per learner and layer, over seeds. */
 export function alignmentTable(cells: readonly StoredCell[]): string[] {
-  const measured = cells.filter((c) => c.status === 'done' && Object.keys(c.finalAlignmentDeg).length > 0);
-  const layers = unique(measured.flatMap((c) => Object.keys(c.finalAlignmentDeg)));
-  if (layers.length === 0) return [];
-  return table(['learner', ...layers.map((l) => `layer ${l} (degrees)`)], unique(measured.map((c) => c.learner)).map((learner) => [
-    learner, ...layers.map((layer) => meanCi(summarise(measured.filter((c) => c.learner === learner).map((c) => c.finalAlignmentDeg[layer] ?? NaN)))),
+  const measured = cells.filter((c) => c.record.status === 'done' && (c.log.at(-1)?.alignmentDeg.length ?? 0) > 0);
+  const layers = Math.max(0, ...measured.map((c) => c.log.at(-1)?.alignmentDeg.length ?? 0));
+  if (layers === 0) return [];
+  const learnerOf = (c: StoredCell) => c.record.identity.learner.name;
+  const finalAngle = (c: StoredCell, layer: number) => c.log.at(-1)?.alignmentDeg[layer] ?? NaN;
+  return table(['learner', ...Array.from({ length: layers }, (_, i) => `layer ${i + 1} (degrees)`)], unique(measured.map(learnerOf)).map((learner) => [
+    learner, ...Array.from({ length: layers }, (_, layer) => meanCi(summarise(measured.filter((c) => learnerOf(c) === learner).map((c) => finalAngle(c, layer))))),
   ]));
 }

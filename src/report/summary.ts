@@ -29,21 +29,21 @@ export function summaryMarkdown(input: SummaryInput): string {
     if (multi) lines.push(`## Combination ${combo.index}: ${run.varyKeys.map((k) => `\`${k}\` = ${combo.values[k]}`).join(', ')}`, '');
     lines.push(...combinationBlock(input, combo, multi ? combo.index : null));
   }
-  const failed = run.cells.filter((c) => c.status === 'failed');
+  const failed = run.cells.map((c) => c.record).filter((record) => record.status === 'failed');
   if (failed.length > 0) {
     lines.push('## Failed cells', '', ...table(['cell', 'learner', 'seed', ...run.varyKeys, 'reason'],
-      failed.map((c) => [c.id, c.learner, String(c.seed), ...run.varyKeys.map((k) => c.vary[k] ?? ''), c.reason || 'no reason recorded'])), '');
+      failed.map(({ id, identity, reason }) => [id, identity.learner.name, String(identity.seed), ...run.varyKeys.map((k) => identity.vary[k] ?? ''), reason || 'no reason recorded'])), '');
   }
   if (input.warnings.length > 0) lines.push('## Warnings', '', ...input.warnings.map((w) => `- ${w}`), '');
   return lines.join('\n');
 }
 
 function preamble({ run, comparisons }: SummaryInput): string[] {
-  const cellIds = unique([...run.rows.map((r) => r.cell), ...run.cells.map((c) => c.id)]);
-  const failed = run.cells.filter((c) => c.status === 'failed').length;
+  const cellIds = unique([...run.rows.map((r) => r.cell), ...run.cells.map((c) => c.record.id)]);
+  const failed = run.cells.filter((c) => c.record.status === 'failed').length;
   const seeds = unique(run.rows.map((r) => r.seed)).sort((a, b) => a - b);
   const lines = [
-    `Rebuilt by \`crosswise report\` from ${run.rows.length} result rows of ${cellIds.length} cells (${cellIds.length - failed} with results, ${failed} failed); seeds ${seeds.join(', ')}.`,
+    `From ${run.rows.length} result rows of ${cellIds.length} cells (${cellIds.length - failed} with results, ${failed} failed); seeds ${seeds.join(', ')}.`,
     run.baseline == null ? 'No baseline learner is set, so there are no paired comparisons.' : `Baseline learner: \`${run.baseline}\`.`,
     '',
     'Scores are R² for continuous targets and accuracy for categorical ones. Each cell shows the mean over seeds ± the half-width of its 95% confidence interval (Student t), with n seeds.',

@@ -1,7 +1,5 @@
 /** Short text forms of numbers and durations for the terminal screens. */
 
-const EIGHTHS = ' ▁▂▃▄▅▆▇█';
-
 /** A duration as `45s`, `3m12s` or `1h04m`; `--` when unknown. */
 export function formatDuration(seconds: number | null): string {
   if (seconds == null || !Number.isFinite(seconds) || seconds < 0) return '--';
@@ -43,12 +41,32 @@ export function horizontalBar(fraction: number, width: number): string {
   return ('█'.repeat(full) + partial).padEnd(width, ' ');
 }
 
+/** `text` cut to `width` characters, its last one an ellipsis when something was cut. */
+export function cut(text: string, width: number): string {
+  if (text.length <= width) return text;
+  return width <= 0 ? '' : `${text.slice(0, width - 1)}…`;
+}
+
+/** Items joined by `separator` into as few lines of at most `width` characters as fit; an over-long item is cut. */
+export function wrapItems(items: readonly string[], width: number, separator = '  '): string[] {
+  const lines: string[] = [];
+  for (const item of items) {
+    const last = lines.length - 1;
+    if (last >= 0 && lines[last].length + separator.length + item.length <= width) lines[last] += separator + item;
+    else lines.push(cut(item, width));
+  }
+  return lines;
+}
+
 /**
- * One character of a column `rows` tall, for row `row` counted from the bottom (0),
- * of a vertical bar filled to `fraction` of its height with eighth blocks.
+ * A bar `width` cells long for `fraction` in 0..1 in half-cell steps, growing to the right
+ * or, mirrored, to the left (there is no left-aligned eighth block, so halves keep both
+ * directions at one resolution); values outside 0..1 are clamped.
  */
-export function verticalBarCell(fraction: number, row: number, rows: number): string {
+export function halfBar(fraction: number, width: number, direction: 'right' | 'left'): string {
   const f = Number.isFinite(fraction) ? Math.min(1, Math.max(0, fraction)) : 0;
-  const eighths = Math.round(f * rows * 8) - row * 8;
-  return EIGHTHS[Math.min(8, Math.max(0, eighths))];
+  const halves = Math.round(f * width * 2);
+  const full = '█'.repeat(Math.floor(halves / 2));
+  if (direction === 'right') return (full + (halves % 2 === 1 ? '▌' : '')).padEnd(width, ' ');
+  return ((halves % 2 === 1 ? '▐' : '') + full).padStart(width, ' ');
 }

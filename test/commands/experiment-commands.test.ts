@@ -5,6 +5,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { clusterCommand } from '../../src/commands/cluster.js';
 import { planCommand } from '../../src/commands/plan.js';
 import { schemaCommand } from '../../src/commands/schema.js';
+import { readCellRecord } from '../../src/results/cell-record.js';
 import { configFolder, spawnWithFake } from '../experiment/helpers.js';
 
 const CONFIG = `name: commands
@@ -76,8 +77,8 @@ describe('experiment commands', () => {
     expect(run.code).toBe(0);
     const cells = readdirSync(join(dir, 'out', 'cells'));
     expect(cells).toHaveLength(1);
-    const record = JSON.parse(readFileSync(join(dir, 'out', 'cells', cells[0], 'cell.json'), 'utf8')) as { index: number; learner: string; seed: number };
-    expect([record.index, record.learner, record.seed]).toEqual([3, 'untrained', 2]);
+    const record = readCellRecord(join(dir, 'out'), cells[0]);
+    expect([record.index, record.identity.learner.name, record.identity.seed]).toEqual([3, 'untrained', 2]);
     const wrong = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '8']);
     expect(wrong.code).toBe(1);
     expect(wrong.stderr.trim()).toBe("crosswise cell: --index: expected an integer from 0 to 7, got '8'");

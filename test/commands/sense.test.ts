@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { senseCommand } from '../../src/commands/sense.js';
+import { checkConfigFile } from '../../src/experiment/config.js';
 
 // A closet: the agent at (2,1) facing east has just stepped forward from (1,1); a buzzer
 // (solid, blue) stands one cell ahead at (3,1). Every expected value below is worked by hand.
@@ -93,6 +94,34 @@ describe('crosswise sense --json on a hand-made closet', () => {
     const r = await senseJson('--at', '1,1,north', '--action', 'forward');
     expect(r.latents.bumped).toBe(true);
     expect(r.touch.values[3]).toBe(1);
+  });
+});
+
+describe('crosswise sense --config', () => {
+  it("uses the config's world and sense sizes: 24 bands and a 3 × 2 view", async () => {
+    writeFileSync(join(dir, 'c.yaml'), [
+      'name: wide-ears', 'world: closet.yaml',
+      'senses: { sight: { width: 3, depth: 2 }, sound: { bands: 24, min_hz: 200, max_hz: 4000 } }',
+      'learners: [{ name: floor, objective: untrained, input: [sight] }]', '',
+    ].join('\n'));
+    expect(await senseCommand(['--config', join(dir, 'c.yaml'), '--at', '2,1,east', '--json'])).toBe(0);
+    const r = JSON.parse(out.join('\n'));
+    expect(r.sight.shape).toEqual([2, 3, 3]);
+    expect(r.sound.left_db).toHaveLength(24);
+    // min_hz and max_hz are the centres of the first and last band, not band edges.
+    expect([r.sound.bands_hz[0], r.sound.bands_hz[23]]).toEqual([200, 4000]);
+  });
+
+  it('prints the config problems as the loader words them and exits 1', async () => {
+    writeFileSync(join(dir, 'c.yaml'), 'name: x\nworld: closet.yaml\nsenses: { sound: { bandz: 24 } }\nlearners: [{ name: a, objective: untrained, input: [sight] }]\n');
+    expect(await senseCommand(['--config', join(dir, 'c.yaml'), '--at', '2,1,east'])).toBe(1);
+    expect(err).toEqual(checkConfigFile(join(dir, 'c.yaml')));
+    expect(err[0]).toMatch(/c\.yaml:3:\d+: senses\.sound\.bandz: .*did you mean 'bands'/);
+  });
+
+  it('takes a world file or --config, not both', async () => {
+    expect(await senseCommand([join(dir, 'closet.yaml'), '--config', join(dir, 'c.yaml'), '--at', '2,1,east'])).toBe(1);
+    expect(err[0]).toMatch(/^crosswise sense: give a world file or --config, not both/);
   });
 });
 

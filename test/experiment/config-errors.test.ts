@@ -175,7 +175,7 @@ describe('config validation', () => {
       .replace('input: [sight]\nnoise', 'input: [sight]\n    <<: *shared\nnoise');
     const dir = configFolder(text);
     const learners = loadSweep(join(dir, 'config.yaml')).combinations[0].settings.learners;
-    expect(learners.map((learner) => [learner.encoder.hidden, learner.rule])).toEqual([
+    expect(learners.map(({ spec }) => [spec.encoder.hidden, spec.rule])).toEqual([
       [[12], 'feedback-alignment'],
       [[12], 'feedback-alignment'],
     ]);

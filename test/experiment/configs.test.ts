@@ -23,7 +23,7 @@ describe('shipped configs', () => {
   it('quickstart has at least 5 learners, 3 seeds, 4 probe targets and sight gaussian noise at severities 0–5', () => {
     const sweep = loadSweep(join(CONFIGS, 'quickstart.yaml'));
     const settings = sweep.combinations[0].settings;
-    expect(settings.learners.map((l) => l.name)).toEqual(['sound-from-sight', 'touch-from-sight-and-motor', 'sight-autoencoder', 'sight-forecaster', 'untrained']);
+    expect(settings.learners.map((l) => l.spec.name)).toEqual(['sound-from-sight', 'touch-from-sight-and-motor', 'sight-autoencoder', 'sight-forecaster', 'untrained']);
     expect(sweep.seeds.length).toBeGreaterThanOrEqual(3);
     expect(settings.probe.targets.length).toBeGreaterThanOrEqual(4);
     expect(settings.noise).toEqual([{ channel: 'sight', kind: 'gaussian', severities: [0, 1, 2, 3, 4, 5] }]);

@@ -3,6 +3,8 @@
 // epoch, and that fails like a diverging learner when its name says so.
 import { createHash } from 'node:crypto';
 import type { CellWork } from '../../src/experiment/cell-work.js';
+import { noiseParameter } from '../../src/noise/severity.js';
+import type { Measurement } from '../../src/results/results-table.js';
 
 const EPOCH_MS = Number(process.env.FAKE_EPOCH_MS ?? '20');
 
@@ -25,13 +27,13 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
     onEpoch(entry);
   }
   const rows = cell.probe.targets.flatMap((target) =>
-    cell.noise.flatMap((noise) => noise.severities.map((severity) => ({
-      learner: cell.learner.name,
-      seed: cell.seed,
+    cell.noise.flatMap((noise) => noise.severities.map((severity, i): Measurement => ({
       target,
       channel: noise.channel,
       kind: noise.kind,
       severity,
+      parameter: noiseParameter(noise, i),
+      measure: 'score',
       metric: 'accuracy',
       value: unit(`${cell.id}/${target}/${noise.channel}/${noise.kind}/${severity}`),
     }))));

@@ -5,7 +5,8 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
-import { decodeNpy } from '../../src/report/npy.js';
+import { decodeNpy } from '../../src/results/npy.js';
+import { parseResultsCsv } from '../../src/results/results-table.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 const crosswise = (...args: string[]) => promisify(execFile)(process.execPath, [join(ROOT, 'bin/crosswise.js'), ...args], { cwd: ROOT });
@@ -37,6 +38,9 @@ describe('the production cell pipeline', () => {
     // 2 learners × (wall_ahead: accuracy + chance, nearest_distance_m: r2, cka) × 2 severities, plus the header.
     expect(results.length).toBe(1 + 2 * 4 * 2);
     expect(existsSync(join(dir, 'sweep', 'summary.md'))).toBe(true);
+    // The parameter column holds σ of the severity table (src/noise/severity.ts): 0 clean, 1 at severity 3.
+    const table = parseResultsCsv(results.join('\n'));
+    expect([...new Set(table.rows.map((r) => `${r.severity}:${r.parameter}:${r.measure}`))]).toEqual(['0:0:score', '3:1:score']);
     const id = results[1].split(',')[0];
     const scores = (out: string) => readFileSync(join(dir, out, 'cells', id, 'scores.csv'), 'utf8');
     expect(scores('alone')).toBe(scores('sweep'));

@@ -6,6 +6,7 @@ import { loadSweep } from '../../src/experiment/config.js';
 import { runSweep } from '../../src/experiment/runner.js';
 import { planCells } from '../../src/experiment/plan.js';
 import type { RunEvent } from '../../src/experiment/events.js';
+import { readCellRecord } from '../../src/results/cell-record.js';
 
 const CONFIG = `name: runner
 world: world.yaml
@@ -45,7 +46,13 @@ describe('crosswise run (with a test double for the cell work)', () => {
     expect(results).toBe(readFileSync(join(two, 'out', 'results.csv'), 'utf8'));
     // 8 cells × 5 targets × 3 severities, plus the header.
     expect(results.trim().split('\n')).toHaveLength(8 * 5 * 3 + 1);
-    expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,metric,value,collect.steps');
+    expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,parameter,measure,metric,value,collect.steps');
+  });
+
+  it('writes the same summary.md and comparisons.csv whatever order the cells finished in', () => {
+    for (const file of ['summary.md', 'comparisons.csv']) {
+      expect(readFileSync(join(one, 'out', file), 'utf8')).toBe(readFileSync(join(two, 'out', file), 'utf8'));
+    }
   });
 
   it('writes config.resolved.yaml, and cell.json and train.csv for every cell', () => {
@@ -77,8 +84,8 @@ describe('crosswise run (with a test double for the cell work)', () => {
     const run = await spawnWithFake(['run', join(dir, 'config.yaml'), '--jobs', '2']);
     expect(run.code).toBe(3);
     const out = join(dir, 'out');
-    const records = cellFolders(out).map((id) => JSON.parse(readFileSync(join(out, 'cells', id, 'cell.json'), 'utf8')) as { learner: string; status: string; reason: string });
-    expect(records.filter((r) => r.status === 'done').map((r) => r.learner)).toEqual(Array(4).fill('sound-from-sight'));
+    const records = cellFolders(out).map((id) => readCellRecord(out, id));
+    expect(records.filter((r) => r.status === 'done').map((r) => r.identity.learner.name)).toEqual(Array(4).fill('sound-from-sight'));
     expect(records.filter((r) => r.status === 'failed').map((r) => r.reason)).toEqual(Array(4).fill('LearnerDivergedError: loss became NaN at epoch 1'));
     expect(readFileSync(join(out, 'results.csv'), 'utf8').trim().split('\n')).toHaveLength(4 * 15 + 1);
     expect(run.stdout).toMatch(/sweep done: 4 done, 4 failed/);

@@ -2,7 +2,7 @@ import { join } from 'node:path';
 import { writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { loadSweep } from '../../src/experiment/config.js';
-import { canonicalJson, planCells } from '../../src/experiment/plan.js';
+import { planCells } from '../../src/experiment/plan.js';
 import { cartesian, matchVaryPath } from '../../src/experiment/vary.js';
 import { configFolder } from './helpers.js';
 
@@ -75,15 +75,33 @@ describe('sweep expansion', () => {
     expect(cells().map((cell) => cell.id).some((id) => before.includes(id))).toBe(false);
   });
 
+  it('keeps ids when only output-only settings change: save_features and align_every', () => {
+    const first = plan(CONFIG).cells().map((cell) => cell.id);
+    const output = CONFIG.replace('target: [sound] }', 'target: [sound], save_features: true, train: { align_every: 7 } }');
+    const cells = plan(output).cells();
+    expect(cells.map((cell) => cell.id)).toEqual(first);
+    expect(cells[0].output).toEqual({ saveFeatures: true, alignEvery: 7 });
+  });
+
+  it('gives two identically configured learners under different names different ids', () => {
+    const twins = CONFIG.replace('{ name: sight-autoencoder, objective: reconstruct, input: [sight] }',
+      '{ name: sound-from-sight-twin, objective: predict, input: [sight], target: [sound] }');
+    const cells = plan(twins).cells();
+    expect(cells[0].learner).toEqual({ ...cells[1].learner, name: 'sound-from-sight' });
+    expect(cells[0].id).not.toBe(cells[1].id);
+  });
+
   it('fills every default into the resolved settings in module spelling', () => {
     const settings = plan(CONFIG).sweep.combinations[0].settings;
     expect(settings.collect).toEqual({ policy: 'wander', steps: 1000, episodeSteps: 200, split: { train: 0.7, validation: 0.15, test: 0.15 } });
     expect(settings.senses).toEqual({ sight: { width: 5, depth: 4 }, sound: { bands: 16, minHz: 100, maxHz: 8000 } });
     expect(settings.learners[1]).toEqual({
-      name: 'sight-autoencoder', objective: 'reconstruct', input: ['sight'], target: [], offset: 0, supervisedTargets: [],
-      encoder: { hidden: [64], activation: 'relu' }, rule: 'backprop',
-      train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1, alignEvery: 50 },
-      saveFeatures: false,
+      spec: {
+        name: 'sight-autoencoder', objective: 'reconstruct', input: ['sight'], target: [], offset: 0, supervisedTargets: [],
+        encoder: { hidden: [64], activation: 'relu' }, rule: 'backprop',
+        train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1 },
+      },
+      output: { saveFeatures: false, alignEvery: 50 },
     });
     expect(settings.probe.baseline).toBe('sound-from-sight');
   });
@@ -105,9 +123,5 @@ describe('vary paths', () => {
   it('forms the cartesian product with the first list varying slowest', () => {
     expect(cartesian([[1, 2], ['a', 'b']])).toEqual([[1, 'a'], [1, 'b'], [2, 'a'], [2, 'b']]);
     expect(cartesian([])).toEqual([[]]);
-  });
-
-  it('writes JSON with sorted keys so equal settings hash equally', () => {
-    expect(canonicalJson({ b: 1, a: [{ d: 2, c: 3 }] })).toBe('{"a":[{"c":3,"d":2}],"b":1}');
   });
 });

@@ -39,7 +39,7 @@ function relativeError(a: number[], b: number[]): number {
 
 function setup(): { tower: Tower; x: number[][]; y: number[][]; batch: Batch } {
   const rng = createRng(3, 'test');
-  const tower = createTower({ inputWidth: 3, hidden: [4], outputWidth: 2, extraWidth: 0 }, 'tanh', rng);
+  const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4], outputWidth: 2, extraWidth: 0 }, 'tanh', { encoder: rng, head: rng });
   // Biases start at zero; give them values so their gradients are exercised too.
   for (const v of towerVariables(tower)) v.assign(tf.tidy(() => tf.add(v, tf.tensor(Float32Array.from({ length: v.size }, () => 0.3 * normal(rng)), v.shape))));
   const x = Array.from({ length: 5 }, () => Array.from({ length: 3 }, () => normal(rng)));
@@ -65,7 +65,8 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     await initBackend(backend);
     const { tower: unused, batch } = setup();
     tf.dispose(towerVariables(unused));
-    const tower = createTower({ inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'sigmoid', createRng(4, 'test'));
+    const rng = createRng(4, 'test');
+    const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'sigmoid', { encoder: rng, head: rng });
     const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
     const feedback = [tower.encoder[1].W, tower.head!.W] as tf.Tensor2D[]; // [B_2, B_head] = [W_2, W_head]
     const [bp, fa] = tf.tidy(() => [
@@ -73,6 +74,48 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
       RULE_REGISTRY['feedback-alignment'].gradients([tower], [feedback], batch, loss).grads,
     ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync()))));
     expect(relativeError(fa, bp)).toBeLessThan(1e-6);
+    tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
+  });
+
+  // Direct feedback alignment (Nøkland 2016, eq. 3) sends the output error e to hidden layer l
+  // as δ_l = (e·D_l) ⊙ f′(a_l). By the chain rule backprop gives the last hidden layer
+  // δ_k = (e·W_headᵀ) ⊙ f′(a_k), so D_k = W_headᵀ must reproduce backprop's gradients there,
+  // while every earlier layer still gets its error straight from the output.
+  it('equal direct feedback alignment in the last hidden layer when its D is the head\'s Wᵀ', async () => {
+    await initBackend(backend);
+    const { tower: unused, batch } = setup();
+    tf.dispose(towerVariables(unused));
+    const rng = createRng(5, 'test');
+    const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 0 }, 'tanh', { encoder: rng, head: rng });
+    const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const [bp, dfa] = tf.tidy(() => {
+      const feedback = [tf.tensor2d(Float32Array.from({ length: 8 }, () => normal(rng)), [2, 4]), tf.transpose(tower.head!.W) as tf.Tensor2D]; // [D_1 random, D_2 = W_headᵀ]
+      return [
+        trueGradients([tower], batch, loss).grads,
+        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [feedback], batch, loss).grads,
+      ].map((gs) => gs.map((g) => Array.from(g.dataSync())));
+    });
+    // Variables in order: W_1, b_1, W_2, b_2, W_head, b_head.
+    for (const i of [2, 3, 4, 5]) expect(relativeError(dfa[i], bp[i])).toBeLessThan(1e-6);
+    expect(relativeError(dfa[0], bp[0])).toBeGreaterThan(0.1); // layer 1's random D_1 is not backprop
+    tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
+  });
+
+  it('equal direct feedback alignment for every weight of a one-hidden-layer network when D = the head\'s Wᵀ', async () => {
+    await initBackend(backend);
+    const { tower, batch } = setup();
+    const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const [bp, dfa, random] = tf.tidy(() => {
+      const D = tf.transpose(tower.head!.W) as tf.Tensor2D; // [outputs 2, hidden 4]
+      const R = tf.tensor2d(Float32Array.from({ length: 8 }, (_, i) => Math.sin(i + 1)), [2, 4]); // any other D
+      return [
+        trueGradients([tower], batch, loss).grads,
+        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [[D]], batch, loss).grads,
+        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [[R]], batch, loss).grads,
+      ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync())));
+    });
+    expect(relativeError(dfa, bp)).toBeLessThan(1e-6);
+    expect(relativeError(random, bp)).toBeGreaterThan(0.1); // the check tells the rule's wiring apart
     tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
   });
 });

@@ -67,8 +67,7 @@ export function learnerSpec(overrides: SpecOverrides): LearnerSpec {
     supervisedTargets: ['heading', 'x'],
     encoder: { hidden: [16, 8], activation: 'relu' },
     rule: 'backprop',
-    train: { optimizer: 'adam', learningRate: 0.01, batch: 32, epochs: 5, patience: 100, temperature: 0.5, alignEvery: 5 },
-    saveFeatures: false,
+    train: { optimizer: 'adam', learningRate: 0.01, batch: 32, epochs: 5, patience: 100, temperature: 0.5 },
   };
   return { ...base, ...overrides, train: { ...base.train, ...overrides.train } };
 }

@@ -59,9 +59,10 @@ describe('untrained', () => {
     const features = encoder.features({ sight }, n);
     encoder.dispose();
     // Reference: standardise with train-split statistics, then relu(x·W) with W from
-    // the documented init stream (biases start at 0), all in float64.
+    // the documented stream of an encoder reading sight (12 wide) with hidden [5] and relu
+    // (src/random.ts; biases start at 0), all in float64.
     const size = 12;
-    const W = heNormal(createRng(4, 'init', spec.name), size, 5);
+    const W = heNormal(createRng(4, 'init', 'encoder', 'sight', 12, '5', 'relu'), size, 5);
     const mean = new Float64Array(size);
     const sq = new Float64Array(size);
     split.train.forEach((t) => { for (let i = 0; i < size; i++) mean[i] += data.channels.sight[t * size + i] / split.train.length; });
@@ -154,6 +155,11 @@ describe('failures and resources', () => {
   it('rejects a spec that lacks what its objective needs', async () => {
     await expect(trainLearner(learnerSpec({ name: 'x', target: [] }), data, split, { seed: 1 }))
       .rejects.toThrow("learner 'x': objective 'predict' needs at least one target channel");
+  });
+
+  it('rejects a patience below 1, which the config schema also forbids', async () => {
+    await expect(trainLearner(learnerSpec({ name: 'x', train: { patience: 0 } }), data, split, { seed: 1 }))
+      .rejects.toThrow("learner 'x': patience must be a positive integer, got 0");
   });
 });
 

@@ -15,8 +15,7 @@ function spec(name: string, objective: LearnerSpec['objective']): LearnerSpec {
   return {
     name, objective, input: ['sight'], target: [], offset: 0, supervisedTargets: [...trained],
     encoder: { hidden: [64], activation: 'relu' }, rule: 'backprop',
-    train: { optimizer: 'adam', learningRate: 0.003, batch: 128, epochs: 8, patience: 8, temperature: 0.1, alignEvery: 50 },
-    saveFeatures: false,
+    train: { optimizer: 'adam', learningRate: 0.003, batch: 128, epochs: 8, patience: 8, temperature: 0.1 },
   };
 }
 

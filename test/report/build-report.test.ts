@@ -3,15 +3,17 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildReport, type ReportFiles } from '../../src/report/build-report.js';
-import { parseCsv } from '../../src/report/csv.js';
-import { writeFixture } from './fixture.js';
+import { parseCsv } from '../../src/results/csv.js';
+import { fixtureCells, writeFixture } from './fixture.js';
+import { testCellId } from './stored-cells.js';
 
 let dir = '';
 let files: ReportFiles;
+let failedId = '';
 
 beforeAll(async () => {
   dir = await mkdtemp(join(tmpdir(), 'report-'));
-  await writeFixture(dir, { features: true });
+  ({ failedId } = writeFixture(dir, { features: true }));
   files = await buildReport(dir);
 });
 afterAll(async () => { await rm(dir, { recursive: true, force: true }); });
@@ -56,7 +58,7 @@ describe('summary.md (from the fixture test data)', () => {
 
   it('lists the failed cell with its reason', async () => {
     const text = await readFile(files.summaryPath, 'utf8');
-    expect(text).toContain('| forec-1 | sight-forecaster | 1 | loss became NaN at epoch 2 |');
+    expect(text).toContain(`| ${failedId} | sight-forecaster | 1 | loss became NaN at epoch 2 |`);
   });
 
   it('reports CKA between learners: 1 for a scaled copy (Kornblith et al. 2019, isotropic scaling)', async () => {
@@ -69,7 +71,7 @@ describe('comparisons.csv (from the fixture test data)', () => {
   it('holds the paired differences, t-test p and Holm p computed by hand', async () => {
     const records = parseCsv(await readFile(files.comparisonsPath, 'utf8'), 'comparisons.csv');
     const header = records[0].fields;
-    expect(header).toEqual(['learner', 'baseline', 'target', 'channel', 'kind', 'severity', 'metric',
+    expect(header).toEqual(['learner', 'baseline', 'target', 'channel', 'kind', 'severity', 'measure', 'family', 'metric',
       'mean_diff', 'ci_low', 'ci_high', 'p', 'p_holm', 'd_z', 'n_seeds']);
     const row = (learner: string, severity: string): Record<string, string> => {
       const r = records.find((x) => x.fields[0] === learner && x.fields[2] === 'x' && x.fields[5] === severity)!;
@@ -93,8 +95,10 @@ describe('comparisons.csv (from the fixture test data)', () => {
     expect(Number(row('untrained', '1').p_holm)).toBeCloseTo(3 * p2(10), 6);
     expect(Number(sound.p_holm)).toBeCloseTo(2 * p2(8), 6);
     expect(Number(row('sound-from-sight', '0').p_holm)).toBeCloseTo(p2(2), 6);
+    // A p that was not computed is an empty field, never the text NaN.
     const accuracy = records.find((x) => x.fields[2] === 'wall_ahead')!.fields;
-    expect(accuracy.slice(10, 12)).toEqual(['NaN', 'NaN']);
+    expect(accuracy.slice(header.indexOf('p'), header.indexOf('p_holm') + 1)).toEqual(['', '']);
+    expect(sound.measure).toBe('score');
   });
 });
 
@@ -129,10 +133,10 @@ describe('plots (from the fixture test data)', () => {
 });
 
 describe('buildReport errors', () => {
-  it('fails on a directory without results with a one-line error naming the file', async () => {
+  it('fails on a folder where no sweep ran with a one-line error naming the file', async () => {
     const empty = await mkdtemp(join(tmpdir(), 'report-empty-'));
     try {
-      await expect(buildReport(empty)).rejects.toThrow(`${join(empty, 'results.csv')}: not found (no results to report; run the sweep first)`);
+      await expect(buildReport(empty)).rejects.toThrow(`${join(empty, 'plan.csv')}: not found (no sweep was run in this folder; run it first)`);
       expect(await readdir(empty)).toEqual([]);
     } finally {
       await rm(empty, { recursive: true, force: true });
@@ -144,12 +148,13 @@ describe('buildReport with damaged cell files', () => {
   it('warns about a bad train.csv and a bad cell.json, naming the file, and still reports', async () => {
     const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
     try {
-      await writeFixture(damaged);
-      await writeFile(join(damaged, 'cells', 'untra-1', 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
-      await writeFile(join(damaged, 'cells', 'untra-2', 'cell.json'), '{ not json');
+      writeFixture(damaged);
+      const [one, two] = fixtureCells().filter((c) => c.learner === 'untrained').map(testCellId);
+      await writeFile(join(damaged, 'cells', one, 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
+      await writeFile(join(damaged, 'cells', two, 'cell.json'), '{ not json');
       const report = await buildReport(damaged);
-      expect(report.warnings).toContain(`${join(damaged, 'cells', 'untra-1', 'train.csv')}:2: epoch: expected a positive integer, got 'first' (training curve left out)`);
-      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', 'untra-2', 'cell.json')}: not valid JSON`))).toBe(true);
+      expect(report.warnings).toContain(`${join(damaged, 'cells', one, 'train.csv')}:2: epoch: expected 1, got 'first' (training curve left out)`);
+      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', two, 'cell.json')}: not valid JSON`))).toBe(true);
       expect(await readFile(report.summaryPath, 'utf8')).toContain('## Warnings');
     } finally {
       await rm(damaged, { recursive: true, force: true });

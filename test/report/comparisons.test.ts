@@ -1,14 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { compareWithBaseline, holmFamilySize } from '../../src/report/comparisons.js';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ScoreRow } from '../../src/results/results-table.js';
+
+// σ of the gaussian row of the severity table (src/noise/severity.ts), by severity.
+const GAUSSIAN_SIGMA = [0, 0.25, 0.5, 1, 2, 4];
 
 // Test data: learners a (baseline) and b, three seeds, one target, two noises that share
 // the clean (severity 0) score and differ at severity 1.
-function row(learner: string, seed: number, channel: string, severity: number, value: number): ResultRow {
+function row(learner: string, seed: number, channel: string, severity: number, value: number): ScoreRow {
   return { cell: `${learner}${seed}`, learner, objective: 'predict', rule: 'backprop', seed, target: 'x', channel,
-    kind: 'gaussian', severity, metric: 'r2', value, vary: {} };
+    kind: 'gaussian', severity, parameter: GAUSSIAN_SIGMA[severity], measure: 'score', metric: 'r2', value, vary: {} };
 }
-const rows: ResultRow[] = [];
+const rows: ScoreRow[] = [];
 for (const seed of [1, 2, 3]) {
   for (const channel of ['sight', 'sound']) {
     rows.push(row('a', seed, channel, 0, 0.5 + 0.1 * seed), row('b', seed, channel, 0, 0.55 + 0.1 * seed + 0.01 * seed));

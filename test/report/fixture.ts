@@ -1,7 +1,6 @@
-import { mkdir, writeFile } from 'node:fs/promises';
-import { join } from 'node:path';
-import { encodeNpy } from '../../src/report/npy.js';
-import { formatResultsCsv, type ResultRow } from '../../src/report/results-table.js';
+import type { EpochLog } from '../../src/learn/spec.js';
+import type { Measurement } from '../../src/results/results-table.js';
+import { testCellId, writeRun, type TestCell } from './stored-cells.js';
 
 /**
  * Test data (invented, not measurements): three learners, three seeds, one continuous
@@ -15,44 +14,48 @@ export const SCORES: Readonly<Record<string, Readonly<Record<number, readonly [n
   untrained: { 1: [0.3, 0.1], 2: [0.3, 0.2], 3: [0.2, 0.1] },
 };
 
-const META: Readonly<Record<string, readonly [string, string]>> = {
-  'sound-from-sight': ['predict', 'feedback-alignment'],
-  'sight-autoencoder': ['reconstruct', 'backprop'],
-  untrained: ['untrained', 'backprop'],
+const META: Readonly<Record<string, Pick<TestCell, 'objective' | 'rule'>>> = {
+  'sound-from-sight': { objective: 'predict', rule: 'feedback-alignment' },
+  'sight-autoencoder': { objective: 'reconstruct', rule: 'backprop' },
+  untrained: { objective: 'untrained', rule: 'backprop' },
 };
 
-/** Writes the fixture output directory and returns the rows written. */
-export async function writeFixture(dir: string, options: { features?: boolean } = {}): Promise<ResultRow[]> {
-  const rows: ResultRow[] = [];
-  const learners = Object.keys(SCORES);
-  for (const learner of learners) {
-    for (const seed of [1, 2, 3]) {
-      const cell = `${learner.slice(0, 5)}-${seed}`;
-      const base = { cell, learner, objective: META[learner][0], rule: META[learner][1], seed, channel: 'sight', kind: 'gaussian', vary: {} };
-      for (const severity of [0, 1]) {
-        rows.push({ ...base, target: 'x', severity, metric: 'r2', value: SCORES[learner][seed][severity] });
-        rows.push({ ...base, target: 'wall_ahead', severity, metric: 'accuracy', value: 0.9 - 0.1 * severity - 0.01 * seed });
-        rows.push({ ...base, target: 'wall_ahead', severity, metric: 'chance', value: 0.6 });
-        rows.push({ ...base, target: '-', severity, metric: 'cka', value: 1 - 0.2 * severity });
-      }
-      const cellDir = join(dir, 'cells', cell);
-      await mkdir(cellDir, { recursive: true });
-      await writeFile(join(cellDir, 'cell.json'), JSON.stringify({ learner, seed, status: 'done', reason: '' }));
-      await writeFile(join(cellDir, 'train.csv'), META[learner][1] === 'feedback-alignment'
-        // Alignment angles (columns named as the runner names them): layer 1 ends at 60 + seed degrees, layer 2 at 0.
-        ? `epoch,train_loss,validation_loss,seconds,alignment_deg_1,alignment_deg_2\n1,1.0,1.2,0.1,89,0\n2,0.8,0.9,0.1,${60 + seed},0\n`
-        : 'epoch,train_loss,validation_loss,seconds\n1,1.0,1.2,0.1\n2,0.8,0.9,0.1\n3,0.7,0.8,0.1\n');
-      if (options.features === true) {
-        // [4 rows, 2 features]: every learner sees the same rows; untrained is a scaled copy (CKA 1).
-        const f = learner === 'sight-autoencoder' ? [1, 0, 0, 1, 1, 1, 2, 0] : [1, 2, 3, 4, 5, 6, 7, 9];
-        await writeFile(join(cellDir, 'test_features.npy'), encodeNpy(Float32Array.from(f, (v) => (learner === 'untrained' ? 3 * v : v)), [4, 2]));
-      }
+const epoch = (n: number, trainLoss: number, validationLoss: number, alignmentDeg: number[] = []): EpochLog =>
+  ({ epoch: n, trainLoss, validationLoss, seconds: 0.1, alignmentDeg });
+
+function measurements(learner: string, seed: number): Measurement[] {
+  return [0, 1].flatMap((severity): Measurement[] => {
+    const at = { channel: 'sight', kind: 'gaussian', severity, parameter: [0, 0.25][severity], measure: 'score' } as const; // σ from the severity table
+    return [
+      { ...at, target: 'x', metric: 'r2', value: SCORES[learner][seed][severity] },
+      { ...at, target: 'wall_ahead', metric: 'accuracy', value: 0.9 - 0.1 * severity - 0.01 * seed },
+      { ...at, target: 'wall_ahead', metric: 'chance', value: 0.6 },
+      { ...at, target: '-', metric: 'cka', value: 1 - 0.2 * severity },
+    ];
+  });
+}
+
+/** The fixture's cells in plan order (seeds, then learners); the forecaster's one cell failed. */
+export function fixtureCells(options: { features?: boolean } = {}): TestCell[] {
+  const cells: TestCell[] = [];
+  for (const seed of [1, 2, 3]) {
+    for (const learner of Object.keys(SCORES)) {
+      const fa = META[learner].rule === 'feedback-alignment';
+      // Feedback alignment's layer 1 ends at 60 + seed degrees, layer 2 at 0.
+      const log = fa ? [epoch(1, 1, 1.2, [89, 0]), epoch(2, 0.8, 0.9, [60 + seed, 0])] : [epoch(1, 1, 1.2), epoch(2, 0.8, 0.9), epoch(3, 0.7, 0.8)];
+      // [4 rows, 2 features]: every learner sees the same rows; untrained is a scaled copy (CKA 1).
+      const f = learner === 'sight-autoencoder' ? [1, 0, 0, 1, 1, 1, 2, 0] : [1, 2, 3, 4, 5, 6, 7, 9];
+      const testFeatures = options.features === true ? { data: Float32Array.from(f, (v) => (learner === 'untrained' ? 3 * v : v)), shape: [4, 2] } : undefined;
+      cells.push({ learner, ...META[learner], seed, rows: measurements(learner, seed), log, ...(testFeatures == null ? {} : { testFeatures }) });
     }
+    if (seed === 1) cells.push({ learner: 'sight-forecaster', objective: 'forecast', rule: 'backprop', seed, reason: 'loss became NaN at epoch 2', rows: [], log: [epoch(1, 1, 1.1)] });
   }
-  const failed = join(dir, 'cells', 'forec-1');
-  await mkdir(failed, { recursive: true });
-  await writeFile(join(failed, 'cell.json'), JSON.stringify({ learner: 'sight-forecaster', seed: 1, status: 'failed', reason: 'loss became NaN at epoch 2' }));
-  await writeFile(join(dir, 'results.csv'), formatResultsCsv(rows, []));
-  await writeFile(join(dir, 'config.resolved.yaml'), 'name: fixture-run\nprobe:\n  baseline: sight-autoencoder\nvary: {}\n');
-  return rows;
+  return cells;
+}
+
+/** Writes the fixture output folder; returns the id of its failed cell. */
+export function writeFixture(dir: string, options: { features?: boolean } = {}): { failedId: string } {
+  const cells = fixtureCells(options);
+  writeRun(dir, cells, { name: 'fixture-run', baseline: 'sight-autoencoder' });
+  return { failedId: testCellId(cells.find((c) => c.reason != null) as TestCell) };
 }

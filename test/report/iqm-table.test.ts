@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ScoreRow } from '../../src/results/results-table.js';
 import { iqmTable } from '../../src/report/sections.js';
 
 // Test data: one learner, ten seeds scoring 0.1, 0.2, …, 1.0 at severity 0.
-const rows: ResultRow[] = Array.from({ length: 10 }, (_, i) => ({
+const rows: ScoreRow[] = Array.from({ length: 10 }, (_, i) => ({
   cell: `c${i}`, learner: 'a', objective: 'predict', rule: 'backprop', seed: i + 1, target: 'x', channel: 'sight',
-  kind: 'gaussian', severity: 0, metric: 'r2', value: (i + 1) / 10, vary: {},
+  kind: 'gaussian', severity: 0, parameter: 0, measure: 'score', metric: 'r2', value: (i + 1) / 10, vary: {},
 }));
 
 describe('iqmTable', () => {

@@ -23,13 +23,13 @@ describe('crosswise report <DIR>', () => {
     expect(err.mock.calls).toEqual([['crosswise report: /nonexistent/crosswise-run: no such directory']]);
   });
 
-  it('exits 1 with one line for a directory without results', async () => {
+  it('exits 1 with one line for a folder where no sweep ran', async () => {
     const dir = await mkdtemp(join(tmpdir(), 'report-cmd-'));
     dirs.push(dir);
     const { err } = capture();
     expect(await reportCommand([dir])).toBe(1);
     expect(err.mock.calls.length).toBe(1);
-    expect(String(err.mock.calls[0][0])).toMatch(/^crosswise report: .*results\.csv: not found/);
+    expect(String(err.mock.calls[0][0])).toMatch(/^crosswise report: .*plan\.csv: not found/);
   });
 
   it('exits 1 without exactly one argument', async () => {
@@ -41,9 +41,9 @@ describe('crosswise report <DIR>', () => {
   it('rebuilds the report and points to the summary', async () => {
     const dir = await mkdtemp(join(tmpdir(), 'report-cmd-'));
     dirs.push(dir);
-    await writeFixture(dir);
+    writeFixture(dir);
     const { out } = capture();
     expect(await reportCommand([dir])).toBe(0);
-    expect(out.mock.calls[0][0]).toBe(`summary: ${join(dir, 'summary.md')}`);
+    expect(out.mock.calls.slice(0, 2).map((call) => call[0])).toEqual([`results: ${join(dir, 'results.csv')}`, `summary: ${join(dir, 'summary.md')}`]);
   });
 });

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import type { ResultRow } from '../../src/report/results-table.js';
+import type { ScoreRow } from '../../src/results/results-table.js';
 import { robustnessTable } from '../../src/report/sections.js';
 
 // Test data: one seed per learner so each mean is the value itself.
-function rows(scores: Readonly<Record<string, readonly number[]>>): ResultRow[] {
+function rows(scores: Readonly<Record<string, readonly number[]>>): ScoreRow[] {
   return Object.entries(scores).flatMap(([learner, values]) => values.map((value, severity) => ({
     cell: learner, learner, objective: 'predict', rule: 'backprop', seed: 1, target: 'x', channel: 'sight',
-    kind: 'gaussian', severity, metric: 'r2', value, vary: {},
+    kind: 'gaussian', severity, parameter: severity, measure: 'score' as const, metric: 'r2' as const, value, vary: {},
   })));
 }
 

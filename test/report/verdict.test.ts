@@ -6,7 +6,7 @@ import { verdict } from '../../src/report/sections.js';
 function comparison(learner: string, severity: number, meanDiff: number, pHolm: number, n: number): Comparison {
   const half = 0.05;
   return { learner, severity, meanDiff, pHolm, n, ciLow: meanDiff - half, ciHigh: meanDiff + half, p: pHolm, t: NaN, dz: NaN,
-    sdDiff: NaN, note: '', combination: 1, vary: {}, baseline: 'base', target: 'x', channel: 'sight', kind: 'gaussian', metric: 'r2' };
+    sdDiff: NaN, note: '', combination: 1, vary: {}, baseline: 'base', target: 'x', channel: 'sight', kind: 'gaussian', measure: 'score', family: 'primary', metric: 'r2' };
 }
 const noise = { channel: 'sight', kind: 'gaussian' };
 

@@ -70,8 +70,8 @@ describe('Dashboard', () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={2} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
     await mounted(events);
-    events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score('a', 1, 0, 0.5)] });
-    events.emit({ type: 'cell-done', cell: cell(1, 'a', 2), worker: 1, seconds: 1, scores: [score('a', 2, 0, 0.7)] });
+    events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score(0, 0.5)] });
+    events.emit({ type: 'cell-done', cell: cell(1, 'a', 2), worker: 1, seconds: 1, scores: [score(0, 0.7)] });
     const frame = await waitFor(() => app.lastFrame() ?? '', '2 seeds');
     expect(frame.split('\n')).toContain('a                   0.60±0.05');
     app.unmount();
@@ -81,7 +81,7 @@ describe('Dashboard', () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
     await mounted(events);
-    events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score('a', 1, 0, 0.5), score('a', 1, 0, 0.25, 'heading')] });
+    events.emit({ type: 'cell-done', cell: cell(0, 'a', 1), worker: 1, seconds: 1, scores: [score(0, 0.5), score(0, 0.25, 'heading')] });
     await waitFor(() => app.lastFrame() ?? '', 'wall_ahead (accuracy) ·');
     app.stdin.write('t');
     const frame = await waitFor(() => app.lastFrame() ?? '', 'heading (accuracy) ·');

@@ -1,152 +1,166 @@
-import { render } from 'ink-testing-library';
+import { renderToString } from 'ink';
 import { describe, expect, it } from 'vitest';
-import { SoundPanel } from '../../src/tui/components/sound-panel.js';
+import { ExploreScreen } from '../../src/tui/components/explore-screen.js';
 import { initialExploreState, reduceExplore, type ExploreState } from '../../src/tui/explore/explore-state.js';
-import { exploreView } from '../../src/tui/explore/explore-view.js';
-import { noisySenses } from '../../src/tui/explore/noisy-senses.js';
+import { exploreView, type TerminalSize } from '../../src/tui/explore/explore-view.js';
+import { loadWorld } from '../../src/world/parse.js';
 import { BELL_AHEAD, bellRoom } from './worlds.js';
 
-const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD)], 7, true);
+const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD)], 7, false);
 const press = (state: ExploreState, ...keys: string[]) => keys.reduce(reduceExplore, state);
+const screen = (state: ExploreState, size: TerminalSize) =>
+  renderToString(<ExploreScreen view={exploreView(state, size)} />, { columns: size.columns }).split('\n');
 
-/** 16 band centres equally spaced in mel from 100 Hz to 8 kHz, mel = 2595·log10(1 + f/700) (O'Shaughnessy 1987). */
-const BANDS_HZ = Array.from({ length: 16 }, (_, b) => {
-  const mel = (f: number) => 2595 * Math.log10(1 + f / 700);
-  const m = mel(100) + ((mel(8000) - mel(100)) * b) / 15;
-  return 700 * (10 ** (m / 2595) - 1);
-});
-
-/**
- * The bell heard at distance dM by the near ear, plus the 20 dB floor, in dB: 60 dB at 1 m,
- * −20·log10(d) (inverse-square law), a spectrum −3·(2·log2(f/1 kHz)/8)² dB (half power at
- * ±4 octaves, the bell's 8-octave bandwidth), the far ear lower by the head shadow
- * 20·|sin az|·r/(1 + r), r = (f / 1500 Hz)² (the world module's documented ILD model), and
- * sources adding in power.
- */
-function expectedDb(hz: number, dM: number, shadowSin: number): number {
-  const shape = -3 * ((2 * Math.log2(hz / 1000)) / 8) ** 2;
-  const r = (hz / 1500) ** 2;
-  const bell = 60 - 20 * Math.log10(dM) + shape - 20 * shadowSin * (r / (1 + r));
-  return 10 * Math.log10(10 ** (20 / 10) + 10 ** (bell / 10));
-}
-
-const lines = (node: React.ReactElement) => {
-  const app = render(node);
-  const out = (app.lastFrame() ?? '').split('\n');
-  app.unmount();
-  return out;
-};
-
-describe('explore view: sound', () => {
-  it('hears the bell 2 m straight ahead equally in both ears at the level the laws give', () => {
-    const { sound } = exploreView(start());
-    BANDS_HZ.forEach((hz, b) => {
-      expect(sound.leftDb[b]).toBeCloseTo(expectedDb(hz, 2, 0), 2);
-      expect(sound.rightDb[b]).toBeCloseTo(expectedDb(hz, 2, 0), 2);
-    });
-  });
-
-  it('shadows the right ear when the bell is on the left (facing east), more at high frequency', () => {
-    const { sound } = exploreView(press(start(), 'd', 't'));
-    BANDS_HZ.forEach((hz, b) => {
-      expect(sound.leftDb[b]).toBeCloseTo(expectedDb(hz, 2, 0), 2);
-      expect(sound.rightDb[b]).toBeCloseTo(expectedDb(hz, 2, 1), 2);
-    });
-  });
-
-  it('draws that pose as two spectra on a 20–80 dB scale', () => {
-    // Two rows per ear = 16 eighths over 60 dB. Top band, 8 kHz: near ear 52.3 dB →
-    // (52.3 − 20) / 60 · 16 = 8.6 → 9 eighths (a full lower cell, ▁ above); far ear
-    // 52.3 − 19.3 = 33.0 dB, 33.2 dB with the floor added in power → 3.5 → 4 eighths (▄).
-    // Lowest band, 100 Hz: 51.9 dB near, 51.8 dB far → 8.5 → 9 and 8 eighths.
-    expect(lines(<SoundPanel {...exploreView(press(start(), 'd', 't')).sound} />)).toEqual([
-      'sound · dB 20–80 per column · Hz',
-      '  ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁ ▁▁',
-      'L ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██ ██',
-      '     ▁▁ ▁▁',
-      'R ██ ██ ██ ██ ██ ▇▇ ▇▇ ▆▆ ▅▅ ▅▅ ▅▅ ▄▄ ▄▄ ▄▄ ▄▄ ▄▄',
-      '  100   400   812   1.4k  2.2k  3.2k  4.7k  6.7k',
-      '     238   589   1.1k  1.7k  2.6k  3.9k  5.6k  8.0k',
-    ]);
-  });
-
-  it('falls to the 20 dB floor in every band while the bell is silent (step 1)', () => {
-    const { sound } = exploreView(press(start(), '.'));
-    for (const db of [...sound.leftDb, ...sound.rightDb]) expect(db).toBeCloseTo(20, 6);
-  });
-});
-
-describe('explore view: noise', () => {
-  it('leaves every channel clean at severity 0', () => {
-    const s = start();
-    const a = noisySenses(s);
-    const b = noisySenses(press(s, 'k'));
-    for (const c of ['sight', 'sound', 'touch', 'motor'] as const) expect(b[c]).toEqual(a[c]);
-  });
-
-  it('corrupts only the chosen channel, the same way on every redraw of one state', () => {
-    const clean = noisySenses(start());
-    const s = press(start(), '+', '+', '+');
-    const noisy = noisySenses(s);
-    expect(noisy.sight).not.toEqual(clean.sight);
-    expect(noisy.sight).toEqual(noisySenses(s).sight);
-    for (const c of ['sound', 'touch', 'motor'] as const) expect(noisy[c]).toEqual(clean[c]);
-  });
-
-  it('names the kind, severity and parameter of each channel', () => {
-    expect(exploreView(press(start(), '+', '+', '+', 'n', 'k', 'k', 'k', '+')).noise).toEqual([
-      { text: 'sight gaussian 3 σ 1', selected: false },
-      { text: 'sound masking 1 SNR 20dB', selected: true },
-      { text: 'touch gaussian 0 clean', selected: false },
-      { text: 'motor gaussian 0 clean', selected: false },
+describe('explore screen at 80×24', () => {
+  it('fits 24 rows: facing east with the bell on the left, the left ear louder in every band above 100 Hz', () => {
+    // Facing east after `d`, `t` waits to step 4, when the bell (period 4) rings again. The
+    // left ear hears the bell at 2 m straight to the side; the right ear is shadowed more at
+    // high frequency (52 dB left vs 33 dB right at 8 kHz). Bars span 20–80 dB in 5 dB halves:
+    // 52 dB → (52 − 20) / 60 · 12 = 6.4 → 6 halves = three full cells; 33 dB → 2.6 → 3 halves.
+    // The motor panel finds no room at this size and the footer says so.
+    expect(screen(press(start(), 'd', 't', 'l'), { columns: 80, rows: 24 })).toEqual([
+      'bell-room · step 4 · x 2 y 3 facing east · stay: stayed',
+      '##########              sight · ahead is up           sound dB   left│right   dB',
+      '##. EE. ##                                             100  52    ███│███     52',
+      '##. . . ##                                             238  53   ▐███│███▌    53',
+      '##. ◑ . ##              ░░░░░░░░▒▒▒▒                   400  54   ▐███│███     52',
+      '##########              ░░░░▒▒▒▒▒▒▒▒▒▒▒▒               589  54   ▐███│███     51',
+      '                                 ◓                     812  54   ▐███│███     49',
+      '◓◑◒◐ you                touch                         1.1k  54   ▐███│██▌     47',
+      'underlined: seen        whisker L           0.00      1.4k  54   ▐███│██▌     45',
+      '# wall  . boards        whisker F           0.00      1.7k  54   ▐███│██      42',
+      'E bell (on)             whisker R  ████████ 1.00      2.2k  54   ▐███│██      40',
+      'sound bars 20–80 dB     bump                0.00      2.6k  54   ▐███│██      39',
+      '                        footfall 1          0.00      3.2k  53   ▐███│█▌      37',
+      '                        footfall 2          0.00      3.9k  53   ▐███│█▌      36',
+      '                        footfall 3          0.00      4.7k  53   ▐███│█▌      35',
+      '                        footfall 4          0.00      5.6k  53   ▐███│█▌      34',
+      '                        ground truth                  6.7k  53   ▐███│█▌      34',
+      '                        x 2 y 3 east                  8.0k  52    ███│█▌      33',
+      '                        under boards                  noise · n k + -',
+      '                        ahead boards                  > sight gaussian 0 clean',
+      '                        nearest bell                    sound gaussian 0 clean',
+      '                        2.0 m at -90° (left)            touch gaussian 0 clean',
+      '                        emitter in view no              motor gaussian 0 clean',
+      '? keys · q quit · no room for: motor',
     ]);
   });
 });
 
-describe('explore view: map and text', () => {
-  it('marks the agent with its heading, the bell as sounding, and reports the pose', () => {
-    const v = exploreView(start());
-    expect(v.map.map((row) => row.map((c) => c.glyph).join(''))).toEqual(['#####', '#.E.#', '#...#', '#.^.#', '#####']);
-    expect(v.map[1][2].mark).toBe('sounding');
-    expect(v.map[2][2].mark).toBe('view');
-    expect(v.status).toBe('bell-room · step 0 · x 2 y 3 facing north · stay: stayed');
-    expect(v.legend).toEqual(['^>v< you · reverse: in view', 'sounding: E bell', 'silent: –']);
+describe('explore screen at 120×40', () => {
+  it('draws the map two characters per cell and keeps every panel, the ground truth beside the sight', () => {
+    // One step forward (step 1): the bell is silent, every band at the 20 dB floor, the
+    // footfall bars show the boards' texture 0.1 0.2 0.3 0.4, and the wall is ahead.
+    expect(screen(press(start(), 'w', 'l'), { columns: 120, rows: 40 })).toEqual([
+      'bell-room · step 1 · x 2 y 2 facing north · forward: moved',
+      '##########                    sight · ahead is up         ground truth',
+      '##. EE. ##                                                x 2 y 2 north',
+      '##. ◓ . ##                                                under boards',
+      '##. . . ##                    ░░░░░░░░    ░░░░░░░░        ahead boards wall',
+      '##########                    ░░░░▒▒▒▒████▒▒▒▒░░░░        nearest bell',
+      '                                       ◓                  1.0 m at 0° (ahead)',
+      '◓◑◒◐ you  underlined: seen    sound dB   left│right   dB  emitter in view yes',
+      '# wall  . boards               100  20       │        20  motor · last command',
+      'E bell (off)                   238  20       │        20  forward    ████████ 1.00',
+      'sound bars 20–80 dB            400  20       │        20  back                0.00',
+      '                               589  20       │        20  turn-left           0.00',
+      '                               812  20       │        20  turn-right          0.00',
+      '                              1.1k  20       │        20  stay                0.00',
+      '                              1.4k  20       │        20',
+      '                              1.7k  20       │        20',
+      '                              2.2k  20       │        20',
+      '                              2.6k  20       │        20',
+      '                              3.2k  20       │        20',
+      '                              3.9k  20       │        20',
+      '                              4.7k  20       │        20',
+      '                              5.6k  20       │        20',
+      '                              6.7k  20       │        20',
+      '                              8.0k  20       │        20',
+      '                              touch',
+      '                              whisker L           0.00',
+      '                              whisker F  ████████ 1.00',
+      '                              whisker R           0.00',
+      '                              bump                0.00',
+      '                              footfall 1 ▊        0.10',
+      '                              footfall 2 █▋       0.20',
+      '                              footfall 3 ██▍      0.30',
+      '                              footfall 4 ███▎     0.40',
+      '                              noise · n k + -',
+      '                              > sight gaussian 0 clean',
+      '                                sound gaussian 0 clean',
+      '                                touch gaussian 0 clean',
+      '                                motor gaussian 0 clean',
+      '? keys · q quit',
+    ]);
+  });
+});
+
+describe('explore screen at any size', () => {
+  const worlds = ['greenhouse', 'workshop', 'cave'].map((name) => loadWorld(`worlds/${name}.yaml`));
+  const sizes: TerminalSize[] = [{ columns: 60, rows: 20 }, { columns: 80, rows: 24 }, { columns: 100, rows: 30 }, { columns: 120, rows: 40 }, { columns: 200, rows: 60 }];
+  it.each(sizes)('never draws more rows than $rows or a line longer than $columns, with help and ground truth on', (size) => {
+    for (let w = 0; w < worlds.length; w++) {
+      const state = press(initialExploreState(worlds, 1, false), ...Array<string>(w).fill('g'), 'l', '?');
+      const lines = screen(state, size);
+      expect(lines.length).toBeLessThanOrEqual(size.rows);
+      for (const line of lines) expect(line.length).toBeLessThanOrEqual(size.columns);
+    }
+  });
+});
+
+describe('explore view: the map', () => {
+  it('draws the agent as a circle dark on its facing side, bold, and underlines the cells it sees', () => {
+    const v = exploreView(start(), { columns: 80, rows: 24 });
+    // 80×24 leaves the 5×5 room room for two characters per cell: solid cells doubled, open cells followed by a space.
+    expect(v.map.map((row) => row.map((c) => c.text).join(''))).toEqual(['##########', '##. EE. ##', '##. . . ##', '##. ◓ . ##', '##########']);
+    expect(v.map[3][2]).toEqual({ text: '◓ ', bold: true });
+    // From (2, 3) facing north the agent sees rows y 0..2; the solid bell hides the wall behind it at (2, 0).
+    const seen = v.map.map((row) => row.map((c) => (c.underline === true ? 'u' : '-')).join(''));
+    expect(seen).toEqual(['uu-uu', 'uuuuu', 'uuuuu', '-----', '-----']);
   });
 
-  it('shows a 22×14 window of a larger map, centred on the agent but kept inside the map', () => {
-    const wide = ['#'.repeat(30), `#${'.'.repeat(27)}E#`, ...Array<string>(2).fill(`#${'.'.repeat(28)}#`), '#'.repeat(30)];
+  it('draws a sounding emitter bold and a silent one dim', () => {
+    expect(exploreView(start(), { columns: 80, rows: 24 }).map[1][2]).toMatchObject({ text: 'EE', bold: true, dim: false });
+    expect(exploreView(press(start(), '.'), { columns: 80, rows: 24 }).map[1][2]).toMatchObject({ text: 'EE', bold: false, dim: true });
+  });
+
+  it('shows a window of a map wider than the terminal allows, centred on the agent but kept inside the map', () => {
+    const wide = ['#'.repeat(60), `#${'.'.repeat(57)}E#`, ...Array<string>(2).fill(`#${'.'.repeat(58)}#`), '#'.repeat(60)];
     const at = (x: number) => initialExploreState([bellRoom(wide, `{ x: ${x}, y: 2, heading: east }`)], 1, false);
-    // Agent at x 20: the window would start at 20 − 11 = 9 but must end by column 29, so it starts at 8.
-    const right = exploreView(at(20));
-    expect(right.map.map((row) => row.map((c) => c.glyph).join(''))[2]).toBe('............>........#');
-    expect(right.legend).toContain('map x 8–29 y 0–4 of 30×5');
+    // At 80 columns the panels take 54 (26 + 28 with gaps), leaving 26 map columns, one per cell.
+    // Agent at x 50: the window would start at 50 − 13 = 37 but must end by column 59, so it starts at 34.
+    const right = exploreView(at(50), { columns: 80, rows: 24 });
+    expect(right.map[2].map((c) => c.text).join('')).toBe('................◑........#');
+    expect(right.mapKey).toContain('x 34–59 y 0–4 of 60×5');
     // Agent at x 3: the window starts at column 0.
-    expect(exploreView(at(3)).map[2].map((c) => c.glyph).join('')).toBe('#..>..................');
+    expect(exploreView(at(3), { columns: 80, rows: 24 }).map[2].map((c) => c.text).join('')).toBe('#..◑......................');
   });
+});
 
-  it('shows the bell as silent once the clock moves on', () => {
-    expect(exploreView(press(start(), 'a')).map[1][2].mark).toBe('silent');
-  });
-
-  it('shows the ground truth on demand', () => {
-    expect(exploreView(start()).truth).toBeNull();
-    expect(exploreView(press(start(), 'l')).truth).toEqual([
-      'ground truth',
-      'x 2 y 3 north',
-      'under boards',
-      'ahead boards',
-      'nearest bell 2.0 m at 0°',
-      'emitter in view yes',
-      'moved no bumped no',
-    ]);
+describe('explore view: panels', () => {
+  it('names the kind, severity and parameter of each channel and marks the one the keys change', () => {
+    const v = exploreView(press(start(), '+', '+', '+', 'n', 'k', 'k', 'k', '+'), { columns: 120, rows: 40 });
+    const noise = v.columns.flatMap((c) => c.panels).find((p) => p.kind === 'text' && p.title.startsWith('noise'));
+    expect(noise).toEqual({ kind: 'text', title: 'noise · n k + -', lines: [
+      { text: '  sight gaussian 3 σ 1', bold: false },
+      { text: '> sound masking 1 SNR 20dB', bold: true },
+      { text: '  touch gaussian 0 clean', bold: false },
+      { text: '  motor gaussian 0 clean', bold: false },
+    ] });
   });
 
   it('uses no colour and only shade characters for sight in monochrome mode', () => {
-    const v = exploreView(press(start(), 'c'));
-    for (const block of v.sight.rows.flat()) {
-      expect(block.color).toBeUndefined();
-      expect(block.text).toMatch(/^[ ░▒▓█]{4}$/);
-    }
+    const v = exploreView(start(), { columns: 120, rows: 40 });
+    const sight = v.columns.flatMap((c) => c.panels).find((p) => p.kind === 'sight');
+    expect(sight?.kind === 'sight' && sight.rows.flat().every((b) => b.color == null && /^[ ░▒▓█]{4}$/.test(b.text))).toBe(true);
     expect(v.map.flat().every((c) => c.color == null)).toBe(true);
+  });
+
+  it('splits a sound panel with more bands than rows into parts side by side', () => {
+    const state = initialExploreState([bellRoom(BELL_AHEAD)], 7, false, { sight: { width: 5, depth: 4 }, sound: { bands: 40, minHz: 100, maxHz: 8000 } });
+    const panels = exploreView(state, { columns: 200, rows: 30 }).columns.flatMap((c) => c.panels);
+    // 30 rows less the status and footer leave 28: a part is a header and 27 bands, so 40 bands make 27 + 13.
+    const sound = panels.filter((p) => p.kind === 'text' && p.title.startsWith('sound'));
+    expect(sound.map((p) => (p.kind === 'text' ? p.lines.length : 0))).toEqual([27, 13]);
   });
 });

@@ -2,10 +2,9 @@ import { render } from 'ink-testing-library';
 import { describe, expect, it } from 'vitest';
 import { BarList } from '../../src/tui/components/bar-list.js';
 import { HelpLine } from '../../src/tui/components/help-line.js';
-import { EXPLORE_KEYS } from '../../src/tui/explore/explore-state.js';
 import { MapPanel } from '../../src/tui/components/map-panel.js';
 import { SightPanel } from '../../src/tui/components/sight-panel.js';
-import { SoundPanel } from '../../src/tui/components/sound-panel.js';
+import { TextPanel } from '../../src/tui/components/text-panel.js';
 import { ResultsTable } from '../../src/tui/components/results-table.js';
 
 const lines = (node: React.ReactElement) => {
@@ -14,24 +13,6 @@ const lines = (node: React.ReactElement) => {
   app.unmount();
   return out;
 };
-
-describe('SoundPanel', () => {
-  it('draws one column per band per ear, scaled between floor and ceiling, labels staggered under the columns', () => {
-    // 40 dB range over 2 rows = 16 eighths, so 2.5 dB per eighth: 20 dB → 0, 30 → 4 eighths,
-    // 40 → 8, 45 → 10 (a full lower cell and a quarter upper cell), 60 → 16; 10 dB clamps to empty.
-    expect(lines(
-      <SoundPanel title="sound" bandLabels={['100', '250', '1.0k', '8k']} leftDb={[20, 30, 40, 60]} rightDb={[60, 45, 20, 10]} floorDb={20} ceilingDb={60} height={2} />,
-    )).toEqual([
-      'sound',
-      '           ██',
-      'L    ▄▄ ██ ██',
-      '  ██ ▂▂',
-      'R ██ ██',
-      '  100   1.0k',
-      '     250   8k',
-    ]);
-  });
-});
 
 describe('BarList', () => {
   it('draws a labelled bar of eighth blocks per quantity with its value', () => {
@@ -52,31 +33,36 @@ describe('BarList', () => {
 });
 
 describe('SightPanel', () => {
-  it('draws the given blocks row by row under its title', () => {
-    expect(lines(<SightPanel title="sight" rows={[[{ text: '░░' }, { text: '▓▓' }], [{ text: '██' }, { text: '  ' }]]} />)).toEqual([
+  it('draws the given blocks row by row under its title, then the agent line', () => {
+    expect(lines(<SightPanel title="sight" rows={[[{ text: '░░' }, { text: '▓▓' }], [{ text: '██' }, { text: '  ' }]]} agent="  ◓" />)).toEqual([
       'sight',
       '░░▓▓',
       '██',
+      '  ◓',
     ]);
   });
 });
 
 describe('MapPanel', () => {
-  it('shows every glyph in place whatever its mark', () => {
-    const row = [{ glyph: '#', mark: 'plain' as const }, { glyph: '>', mark: 'agent' as const }, { glyph: '.', mark: 'view' as const }, { glyph: 'F', mark: 'sounding' as const }];
-    expect(lines(<MapPanel rows={[row, row]} />)).toEqual(['#>.F', '#>.F']);
+  it('shows every cell\'s text in place whatever its attributes', () => {
+    const row = [{ text: '##' }, { text: '◑ ', bold: true }, { text: '. ', underline: true }, { text: 'F ', bold: true, underline: true }, { text: 'W ', dim: true }];
+    expect(lines(<MapPanel rows={[row, row]} />)).toEqual(['##◑ . F W', '##◑ . F W']);
+  });
+});
+
+describe('TextPanel', () => {
+  it('draws its title and lines as given', () => {
+    expect(lines(<TextPanel title="noise" lines={[{ text: '> sight clean', bold: true }, { text: '  sound clean' }]} />)).toEqual([
+      'noise',
+      '> sight clean',
+      '  sound clean',
+    ]);
   });
 });
 
 describe('HelpLine', () => {
   it('lists key and action pairs separated by two spaces', () => {
     expect(lines(<HelpLine keys={[['q', 'quit'], ['?', 'help']]} />)).toEqual(['q quit  ? help']);
-  });
-
-  it('fits the explore keys on one line of an 80-column terminal', () => {
-    const help = lines(<HelpLine keys={EXPLORE_KEYS} />);
-    expect(help).toEqual(['↑↓←→ wasd move  . stay  t tick  n k +- noise  g world  c colour  l truth  q quit']);
-    expect(help[0].length).toBeLessThanOrEqual(80);
   });
 });
 

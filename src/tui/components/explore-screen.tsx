@@ -1,38 +1,41 @@
 import { Box, Text } from 'ink';
-import { EXPLORE_KEYS } from '../explore/explore-state.js';
-import type { ExploreView } from '../explore/explore-view.js';
+import { COLUMN_GAP } from '../explore/layout.js';
+import type { ExploreView, PanelView } from '../explore/explore-view.js';
+import { BAR_LABEL_WIDTH, BAR_WIDTH } from '../explore/explore-view.js';
 import { BarList } from './bar-list.js';
-import { HelpLine } from './help-line.js';
 import { MapPanel } from './map-panel.js';
-import { NoiseList } from './noise-list.js';
 import { SightPanel } from './sight-panel.js';
-import { SoundPanel } from './sound-panel.js';
+import { TextPanel } from './text-panel.js';
 
+function Panel({ panel }: { readonly panel: PanelView }) {
+  switch (panel.kind) {
+    case 'sight': return <SightPanel title={panel.title} rows={panel.rows} agent={panel.agent} />;
+    case 'bars': return <BarList title={panel.title} bars={panel.bars} labelWidth={BAR_LABEL_WIDTH} barWidth={BAR_WIDTH} />;
+    case 'text': return <TextPanel title={panel.title} lines={panel.lines} />;
+  }
+}
 
-/** The whole explore screen: status, map, every sense, noise settings and keys. */
+/** The whole explore screen: status, map and its key, columns of panels, and the keys. */
 export function ExploreScreen({ view }: { readonly view: ExploreView }) {
   return (
     <Box flexDirection="column">
       <Text wrap="truncate-end">{view.status}</Text>
-      <Box gap={2}>
-        <Box flexShrink={0}><MapPanel rows={view.map} /></Box>
-        <Box flexDirection="column" flexShrink={0}>
-          <SightPanel title={view.sight.title} rows={view.sight.rows} />
-          <BarList title="touch" bars={view.touch} labelWidth={10} barWidth={8} />
-        </Box>
-        <Box flexDirection="column" flexShrink={0}>
-          <NoiseList noise={view.noise} />
-          <BarList title="motor · last command" bars={view.motor} labelWidth={10} barWidth={8} />
-          {view.legend.map((line) => <Text key={line}>{line}</Text>)}
-        </Box>
+      <Box gap={COLUMN_GAP}>
+        {view.mapWidth > 0 ? (
+          <Box flexDirection="column" width={view.mapWidth} flexShrink={0}>
+            <MapPanel rows={view.map} />
+            {view.mapKey.length > 0 ? (
+              <Box flexDirection="column" marginTop={1}>{view.mapKey.map((line, i) => <Text key={i} wrap="truncate-end">{line}</Text>)}</Box>
+            ) : null}
+          </Box>
+        ) : null}
+        {view.columns.map((column, i) => (
+          <Box key={i} flexDirection="column" width={column.width} flexShrink={0}>
+            {column.panels.map((panel, j) => <Panel key={j} panel={panel} />)}
+          </Box>
+        ))}
       </Box>
-      <Box gap={2}>
-        <Box flexShrink={0}><SoundPanel {...view.sound} /></Box>
-        {view.truth == null ? null : (
-          <Box flexDirection="column" flexShrink={0}>{view.truth.map((line) => <Text key={line}>{line}</Text>)}</Box>
-        )}
-      </Box>
-      {view.help ? <HelpLine keys={EXPLORE_KEYS} /> : <Text dimColor>? keys · q quit</Text>}
+      {view.footer.map((line, i) => <Text key={i} dimColor wrap="truncate-end">{line}</Text>)}
     </Box>
   );
 }

@@ -1,40 +1,38 @@
 import { Box, Text } from 'ink';
 
-/** How a map cell stands out: the agent, a cell the agent sees, a sounding or silent emitter. */
-export type MapMark = 'agent' | 'view' | 'sounding' | 'silent' | 'plain';
-
-/** One map cell: its glyph and how it is marked. */
+/** One map cell as drawn: its text (one or two characters) and how it stands out. */
 export interface MapCell {
-  readonly glyph: string;
-  readonly mark: MapMark;
-  /** An ink colour for the glyph; absent without colour. */
+  readonly text: string;
+  /** An ink colour for the text; absent without colour. */
   readonly color?: string;
+  readonly bold?: boolean;
+  readonly dim?: boolean;
+  readonly underline?: boolean;
 }
 
-/** Consecutive cells of one mark, drawn as one piece of text. */
-function runs(row: readonly MapCell[]): { text: string; mark: MapMark; color?: string }[] {
-  const out: { text: string; mark: MapMark; color?: string }[] = [];
+type Style = Omit<MapCell, 'text'>;
+
+const sameStyle = (a: Style, b: Style) => a.color === b.color && a.bold === b.bold && a.dim === b.dim && a.underline === b.underline;
+
+/** Consecutive cells of one style, drawn as one piece of text. */
+function runs(row: readonly MapCell[]): MapCell[] {
+  const out: MapCell[] = [];
   for (const cell of row) {
     const last = out[out.length - 1];
-    if (last != null && last.mark === cell.mark && last.color === cell.color) last.text += cell.glyph;
-    else out.push({ text: cell.glyph, mark: cell.mark, color: cell.color });
+    if (last != null && sameStyle(last, cell)) out[out.length - 1] = { ...last, text: last.text + cell.text };
+    else out.push(cell);
   }
   return out;
 }
 
-/**
- * The world map; marks use text attributes only (bold, reverse video, dim), so they
- * survive a terminal without colour.
- */
+/** The world map; its marks are text attributes (bold, dim, underline), so they survive a terminal without colour. */
 export function MapPanel({ rows }: { readonly rows: readonly (readonly MapCell[])[] }) {
   return (
     <Box flexDirection="column">
       {rows.map((row, y) => (
-        <Text key={y}>
+        <Text key={y} wrap="truncate-end">
           {runs(row).map((run, i) => (
-            <Text key={i} color={run.color} bold={run.mark === 'agent' || run.mark === 'sounding'} inverse={run.mark === 'view' || run.mark === 'agent'} dimColor={run.mark === 'silent'}>
-              {run.text}
-            </Text>
+            <Text key={i} color={run.color} bold={run.bold} dimColor={run.dim} underline={run.underline}>{run.text}</Text>
           ))}
         </Text>
       ))}

@@ -1,4 +1,5 @@
-import type { CellLabel, RunEvent, ScoreRow } from '../../experiment/events.js';
+import type { CellLabel, RunEvent } from '../../experiment/events.js';
+import { isScore, type Measurement } from '../../results/results-table.js';
 
 /** What one worker is doing right now. */
 export interface WorkerActivity {
@@ -95,19 +96,19 @@ export function rowLabel(cell: CellLabel): string {
 }
 
 /** The view name a score belongs to: its target and metric. */
-export function viewOf(score: ScoreRow): string {
+export function viewOf(score: Measurement): string {
   return `${score.target} (${score.metric})`;
 }
 
 /** The noise condition a score belongs to. */
-export function noiseOf(score: ScoreRow): string {
+export function noiseOf(score: Measurement): string {
   return `${score.channel} ${score.kind}`;
 }
 
-function addScores(state: RunState, row: string, scores: readonly ScoreRow[]): RunState {
+function addScores(state: RunState, row: string, measurements: readonly Measurement[]): RunState {
   let { views, noises } = state;
   const series = [...state.scores];
-  for (const score of scores) {
+  for (const score of measurements.filter(isScore)) {
     const view = viewOf(score);
     const noise = noiseOf(score);
     if (!views.includes(view)) views = [...views, view];

@@ -1,6 +1,7 @@
 import { useApp, useInput, type Key } from 'ink';
 import { useEffect, useMemo, useReducer } from 'react';
 import { ExploreScreen } from '../components/explore-screen.js';
+import { useTerminalSize } from '../use-terminal-size.js';
 import { reduceExplore, type ExploreKey, type ExploreState } from './explore-state.js';
 import { exploreView } from './explore-view.js';
 
@@ -14,14 +15,15 @@ export function keyName(input: string, key: Key): ExploreKey {
   return input;
 }
 
-/** The explore root: owns the state and the keys; everything below only displays. */
+/** The explore root: owns the state, the keys and the terminal size; everything below only displays. */
 export function ExploreApp({ initial }: { readonly initial: ExploreState }) {
   const [state, dispatch] = useReducer(reduceExplore, initial);
   const { exit } = useApp();
+  const size = useTerminalSize();
   useInput((input, key) => dispatch(keyName(input, key)));
   useEffect(() => {
     if (state.quit) exit();
   }, [state.quit, exit]);
-  const view = useMemo(() => exploreView(state), [state]);
+  const view = useMemo(() => exploreView(state, size), [state, size]);
   return <ExploreScreen view={view} />;
 }

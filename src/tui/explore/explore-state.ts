@@ -1,22 +1,18 @@
 import { NOISE_CHANNELS } from '../../noise/corrupt.js';
+import type { ChannelNoise } from '../../noise/explore-sample.js';
 import { MAX_SEVERITY } from '../../noise/severity.js';
 import { NOISE_KINDS, type NoiseKind } from '../../noise/spec.js';
-import { CHANNELS, type ChannelName } from '../../senses/channel.js';
+import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName, type SenseSettings } from '../../senses/channel.js';
 import { emitterIsOn } from '../../world/emitter.js';
 import { step } from '../../world/movement.js';
 import { type Action, type Pose, type Transition, type World } from '../../world/types.js';
-
-/** The corruption applied to one channel on screen. */
-export interface ChannelNoise {
-  readonly kind: NoiseKind;
-  /** 0 is clean; 1..MAX_SEVERITY index the noise module's severity table. */
-  readonly severity: number;
-}
 
 /** Everything the explore screen shows is derived from this. */
 export interface ExploreState {
   readonly worlds: readonly World[];
   readonly worldIndex: number;
+  /** Sense sizes for every world (a config's `senses:`, or the defaults). */
+  readonly settings: SenseSettings;
   readonly seed: number;
   readonly pose: Pose;
   /** The world clock: steps taken since the world was entered; emitters cycle on it. */
@@ -50,10 +46,12 @@ function entered(state: Omit<ExploreState, 'pose' | 'stepIndex' | 'action' | 'tr
 }
 
 /** The first state: the first world at its start pose, clock at 0, every channel clean. */
-export function initialExploreState(worlds: readonly World[], seed: number, colour: boolean): ExploreState {
+export function initialExploreState(
+  worlds: readonly World[], seed: number, colour: boolean, settings: SenseSettings = DEFAULT_SENSE_SETTINGS,
+): ExploreState {
   if (worlds.length === 0) throw new Error('explore needs at least one world');
   const noise = Object.fromEntries(CHANNELS.map((c) => [c, CLEAN])) as Record<ChannelName, ChannelNoise>;
-  return entered({ worlds, seed, noise, noiseChannel: 'sight', colour, help: false, latents: false, quit: false, worldIndex: 0 }, 0);
+  return entered({ worlds, settings, seed, noise, noiseChannel: 'sight', colour, help: false, latents: false, quit: false, worldIndex: 0 }, 0);
 }
 
 const MOVES: Readonly<Record<string, Action>> = {
@@ -64,10 +62,11 @@ const MOVES: Readonly<Record<string, Action>> = {
   ' ': 'stay', '.': 'stay',
 };
 
-/** The keys as the help line lists them; `reduceExplore` is their meaning. */
+/** The keys as the help lines list them; `reduceExplore` is their meaning (Esc arrives as q). */
 export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
-  ['↑↓←→ wasd', 'move'], ['.', 'stay'], ['t', 'tick'], ['n k +-', 'noise'],
-  ['g', 'world'], ['c', 'colour'], ['l', 'truth'], ['q', 'quit'],
+  ['↑↓ ws', 'forward, back'], ['←→ ad', 'turn'], ['. space', 'stay one step'], ['t', 'stay until an emitter switches'],
+  ['n', 'next channel'], ['k', 'noise kind'], ['+ -', 'severity'], ['g', 'next world'],
+  ['c', 'colour'], ['l', 'ground truth'], ['?', 'keys'], ['q Esc', 'quit'],
 ];
 
 /** The state after one key; keys it does not know leave the state unchanged. */

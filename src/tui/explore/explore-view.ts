@@ -1,58 +1,141 @@
-import { latentsAt } from '../../collect/latents.js';
-import { severityParameter } from '../../noise/severity.js';
-import { bandCentresHz } from '../../senses/mel.js';
-import { CHANNELS, DEFAULT_SENSE_SETTINGS } from '../../senses/channel.js';
-import { sceneFor } from '../../senses/scene.js';
+import { exploreSample, type ChannelNoise, type ExploreSample } from '../../noise/explore-sample.js';
+import { CHANNELS } from '../../senses/channel.js';
 import { TOUCH_NAMES } from '../../senses/touch.js';
-import { visibleCell } from '../../senses/sight.js';
-import { ACTIONS, HEADINGS, type Heading, type World } from '../../world/types.js';
-import { emitterIsOn } from '../../world/emitter.js';
+import { ACTIONS, HEADINGS, type World } from '../../world/types.js';
 import type { LabelledBar } from '../components/bar-list.js';
 import type { MapCell } from '../components/map-panel.js';
 import type { SightBlock } from '../components/sight-panel.js';
-import type { SoundPanelProps } from '../components/sound-panel.js';
-import { formatFixed, formatHz } from '../format.js';
-import type { ChannelNoise, ExploreState } from './explore-state.js';
-import { noisySenses } from './noisy-senses.js';
-import { inkColour, sightBlocks } from './sight-blocks.js';
+import type { TextLine } from '../components/text-panel.js';
+import { cut, formatFixed, wrapItems } from '../format.js';
+import { EXPLORE_KEYS, type ExploreState } from './explore-state.js';
+import { placeBlocks } from './layout.js';
+import { AGENT_GLYPHS, mapKeyItems, mapRows, mapWindow } from './map-view.js';
+import { sightBlocks } from './sight-blocks.js';
+import { soundBarRange, soundParts } from './sound-view.js';
 
-/** Every panel's props for one explore state, already formatted. */
-export interface ExploreView {
-  readonly status: string;
-  readonly map: readonly (readonly MapCell[])[];
-  readonly legend: readonly string[];
-  readonly sight: { readonly title: string; readonly rows: readonly (readonly SightBlock[])[] };
-  readonly sound: SoundPanelProps;
-  readonly touch: readonly LabelledBar[];
-  readonly motor: readonly LabelledBar[];
-  readonly noise: readonly { readonly text: string; readonly selected: boolean }[];
-  readonly truth: readonly string[] | null;
-  readonly help: boolean;
+/** The terminal's size in character cells. */
+export interface TerminalSize {
+  readonly columns: number;
+  readonly rows: number;
 }
 
-const SETTINGS = DEFAULT_SENSE_SETTINGS;
-const ARROWS: Readonly<Record<Heading, string>> = { north: '^', east: '>', south: 'v', west: '<' };
-const DB_SPAN = 60;
+/** One panel, ready to draw. */
+export type PanelView =
+  | { readonly kind: 'sight'; readonly title: string; readonly rows: readonly (readonly SightBlock[])[]; readonly agent: string }
+  | { readonly kind: 'bars'; readonly title: string; readonly bars: readonly LabelledBar[] }
+  | { readonly kind: 'text'; readonly title: string; readonly lines: readonly TextLine[] };
 
-/** The explore screen's content for a state. */
-export function exploreView(state: ExploreState): ExploreView {
+/** A column of panels right of the map. */
+export interface ColumnView {
+  readonly width: number;
+  readonly panels: readonly PanelView[];
+}
+
+/** The whole explore screen for one state and terminal size, every line cut to fit. */
+export interface ExploreView {
+  readonly status: string;
+  /** Terminal columns of the map's column (0 when there is no room for it). */
+  readonly mapWidth: number;
+  readonly map: readonly (readonly MapCell[])[];
+  /** The key to the map, under it; empty when it went to a column or did not fit. */
+  readonly mapKey: readonly string[];
+  readonly columns: readonly ColumnView[];
+  readonly footer: readonly string[];
+}
+
+/** Labels of the touch and motor bars and the width of their bars. */
+export const BAR_LABEL_WIDTH = 10;
+export const BAR_WIDTH = 8;
+const BAR_PANEL_WIDTH = BAR_LABEL_WIDTH + 1 + BAR_WIDTH + 1 + 4;
+/** The map keeps at least this many columns (or the whole map when it is narrower). */
+const MIN_MAP_COLUMNS = 20;
+const TRUTH_WIDTH = 28;
+/** The map's column is at least this wide when there is room, so the key under a small map wraps sensibly. */
+const KEY_WIDTH = 28;
+const SIGHT_MAX_COLUMNS = 28;
+
+interface Panel {
+  readonly id: string;
+  readonly width: number;
+  readonly view: PanelView;
+  readonly follows?: string;
+}
+
+const height = (view: PanelView) => 1 + (view.kind === 'sight' ? view.rows.length + 1 : view.kind === 'bars' ? view.bars.length : view.lines.length);
+
+/** The explore screen's content for a state on a terminal of the given size. */
+export function exploreView(state: ExploreState, size: TerminalSize): ExploreView {
   const world = state.worlds[state.worldIndex];
-  const senses = noisySenses(state);
+  const sample = exploreSample({ ...state, world });
+  const footerKeys = state.help
+    ? wrapItems(EXPLORE_KEYS.map(([key, action]) => `${key} ${action}`), size.columns)
+    : ['? keys · q quit'];
+  const panelRows = Math.max(1, size.rows - 1 - footerKeys.length);
+  const panels = panelsInOrder(state, world, sample, panelRows);
+  const placement = placeBlocks(panels.map((p) => ({ id: p.id, width: p.width, height: height(p.view), follows: p.follows })), {
+    columns: size.columns, height: panelRows, minMapColumns: Math.min(world.width, MIN_MAP_COLUMNS), wantedMapColumns: Math.max(2 * world.width, KEY_WIDTH),
+  });
+  const cellWidth = placement.mapColumns >= 2 * world.width ? 2 : 1;
+  const window = mapWindow(world, state.pose, Math.floor(placement.mapColumns / cellWidth), panelRows);
+  const byId = new Map(panels.map((p) => [p.id, p.view]));
+  const columns = placement.columns.map((c) => ({ width: c.width, height: c.height, panels: c.ids.map((id) => byId.get(id) as PanelView) }));
+  const { floorDb, ceilingDb } = soundBarRange(world.ambientDb);
+  const keyItems = [...mapKeyItems(world, sample, window), `sound bars ${floorDb}–${ceilingDb} dB`];
+  const mapKey = wrapItems(keyItems, placement.mapColumns);
+  const keyUnderMap = window.height > 0 && window.height + 1 + mapKey.length <= panelRows;
+  const keyColumn = keyUnderMap ? undefined : columns.find((c) => c.height + 1 + wrapItems(keyItems, c.width).length <= panelRows);
+  if (keyColumn != null) keyColumn.panels = [...keyColumn.panels, { kind: 'text', title: 'key', lines: wrapItems(keyItems, keyColumn.width).map((text) => ({ text })) }];
+  const hidden = [...placement.hidden, ...(keyUnderMap || keyColumn != null ? [] : ['key'])];
+  return {
+    status: cut(statusLine(state, world), size.columns),
+    mapWidth: placement.mapColumns,
+    map: mapRows(world, state.pose, sample, window, cellWidth, state.colour),
+    mapKey: keyUnderMap ? mapKey : [],
+    columns: columns.map(({ width, panels: p }) => ({ width, panels: p })),
+    footer: [...footerKeys.slice(0, -1), cut(footerKeys[footerKeys.length - 1] + (hidden.length > 0 ? ` · no room for: ${hidden.join(', ')}` : ''), size.columns)],
+  };
+}
+
+function statusLine(state: ExploreState, world: World): string {
   const { pose, transition } = state;
   const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : 'stayed';
   const noisy = CHANNELS.filter((c) => state.noise[c].severity > 0);
+  return `${world.name} · step ${state.stepIndex} · x ${pose.x} y ${pose.y} facing ${pose.heading} · ${state.action}: ${outcome}`
+    + (noisy.length > 0 ? ` · noisy: ${noisy.join(', ')}` : '');
+}
+
+/** Every panel, most important first; the ground truth only when asked for. */
+function panelsInOrder(state: ExploreState, world: World, sample: ExploreSample, rows: number): Panel[] {
+  const sound = soundParts(sample.senses.sound, sample.bandsHz, world.ambientDb, rows);
+  const noise = CHANNELS.map((c) => ({ text: `${c === state.noiseChannel ? '>' : ' '} ${c.padEnd(5)} ${noiseText(state.noise[c], sample.noiseParameter[c])}`, bold: c === state.noiseChannel }));
+  const truth = state.latents ? truthLines(world, sample) : null;
+  return [
+    sightPanel(state, sample, rows),
+    ...sound.map((part, i) => ({
+      id: soundId(i), follows: i === 0 ? undefined : soundId(i - 1), width: part.title.length,
+      view: { kind: 'text' as const, title: part.title, lines: part.lines.map((text) => ({ text })) },
+    })),
+    { id: 'touch', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'touch', bars: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), sample.senses.touch[i])) } },
+    ...(truth == null ? [] : [{ id: 'ground truth', width: TRUTH_WIDTH, view: { kind: 'text' as const, title: 'ground truth', lines: truth.map((text) => ({ text: cut(text, TRUTH_WIDTH) })) } }]),
+    { id: 'noise', width: Math.max(...noise.map((n) => n.text.length)), view: { kind: 'text', title: 'noise · n k + -', lines: noise } },
+    { id: 'motor', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'motor · last command', bars: ACTIONS.map((action, i) => bar(action, sample.senses.motor[i])) } },
+  ];
+}
+
+const soundId = (part: number) => (part === 0 ? 'sound' : `sound ${part + 1}`);
+
+/** The egocentric view with the agent under its middle column; far rows are dropped when the terminal is too short. */
+function sightPanel(state: ExploreState, sample: ExploreSample, rows: number): Panel {
+  const { width, depth } = state.settings.sight;
+  const blockWidth = [4, 2, 1].find((w) => w * width <= SIGHT_MAX_COLUMNS) ?? 1;
+  const blocks = sightBlocks(sample.senses.sight, width, depth, state.colour, blockWidth);
+  const title = 'sight · ahead is up';
+  const shown = blocks.slice(Math.max(0, blocks.length - Math.max(1, rows - 2)));
+  const middle = Math.floor(width / 2) * blockWidth + Math.floor((blockWidth - 1) / 2);
   return {
-    status: `${world.name} · step ${state.stepIndex} · x ${pose.x} y ${pose.y} facing ${pose.heading} · ${state.action}: ${outcome}`
-      + (noisy.length > 0 ? ` · noisy: ${noisy.join(', ')}` : ''),
-    map: mapCells(state, world),
-    legend: legend(state, world),
-    sight: { title: 'sight · far row on top', rows: sightBlocks(senses.sight, SETTINGS.sight.width, SETTINGS.sight.depth, state.colour) },
-    sound: soundProps(senses.sound, world),
-    touch: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), senses.touch[i])),
-    motor: ACTIONS.map((action, i) => bar(action, senses.motor[i])),
-    noise: CHANNELS.map((c) => ({ text: `${c.padEnd(5)} ${noiseText(state.noise[c])}`, selected: c === state.noiseChannel })),
-    truth: state.latents ? truthLines(state, world) : null,
-    help: state.help,
+    id: 'sight',
+    width: Math.max(title.length, width * blockWidth),
+    view: { kind: 'sight', title, rows: shown, agent: ' '.repeat(middle) + AGENT_GLYPHS.north },
   };
 }
 
@@ -68,101 +151,23 @@ function touchLabel(name: string): string {
   return name === 'bump_force' ? 'bump' : name;
 }
 
-function noiseText(noise: ChannelNoise): string {
+function noiseText(noise: ChannelNoise, parameter: number): string {
   if (noise.severity === 0) return `${noise.kind} 0 clean`;
-  const p = severityParameter(noise.kind, noise.severity);
-  const detail = { gaussian: `σ ${p}`, dropout: `p ${p}`, blackout: `p ${p}`, masking: `SNR ${p}dB` }[noise.kind];
+  const detail = { gaussian: `σ ${parameter}`, dropout: `p ${parameter}`, blackout: `p ${parameter}`, masking: `SNR ${parameter}dB` }[noise.kind];
   return `${noise.kind} ${noise.severity} ${detail}`;
 }
 
-/** The largest piece of map shown at once, in cells; bigger maps scroll with the agent. */
-export const MAP_WINDOW = { width: 22, height: 14 } as const;
-
-/** The first cell of a window of `size` cells centred on `at` and kept inside 0..extent. */
-function windowStart(at: number, size: number, extent: number): number {
-  return Math.max(0, Math.min(at - Math.floor(size / 2), extent - size));
-}
-
-/** The map window around the agent: first column and row, and its size. */
-export function mapWindow(state: ExploreState, world: World): { x0: number; y0: number; width: number; height: number } {
-  const width = Math.min(MAP_WINDOW.width, world.width);
-  const height = Math.min(MAP_WINDOW.height, world.height);
-  return { x0: windowStart(state.pose.x, width, world.width), y0: windowStart(state.pose.y, height, world.height), width, height };
-}
-
-function mapCells(state: ExploreState, world: World): MapCell[][] {
-  const scene = sceneFor(world, SETTINGS);
-  const seen = new Set<number>();
-  for (let k = 0; k < SETTINGS.sight.width * SETTINGS.sight.depth; k++) seen.add(visibleCell(scene, state.pose, k));
-  const { x0, y0, width, height } = mapWindow(state, world);
-  const rows: MapCell[][] = [];
-  for (let y = y0; y < y0 + height; y++) {
-    const row: MapCell[] = [];
-    for (let x = x0; x < x0 + width; x++) row.push(mapCell(state, world, x, y, seen.has(y * world.width + x)));
-    rows.push(row);
-  }
-  return rows;
-}
-
-function mapCell(state: ExploreState, world: World, x: number, y: number, seen: boolean): MapCell {
-  const i = y * world.width + x;
-  const e = world.emitterAt[i];
-  const material = world.materials[world.material[i]];
-  const color = state.colour ? inkColour(...(e >= 0 ? world.emitters[e].colour : material.colour)) : undefined;
-  if (x === state.pose.x && y === state.pose.y) return { glyph: ARROWS[state.pose.heading], mark: 'agent' };
-  if (e >= 0) return { glyph: world.emitters[e].glyph, mark: emitterIsOn(world.emitters[e], state.stepIndex) ? 'sounding' : 'silent', color };
-  return { glyph: material.glyph, mark: seen ? 'view' : 'plain', color };
-}
-
-const LEGEND_WIDTH = 28;
-
-/** Emitters as `F fan, W tap`, or just their glyphs when names would not fit the column. */
-function emitterList(label: string, emitters: readonly World['emitters'][number][]): string {
-  if (emitters.length === 0) return `${label} –`;
-  const named = `${label} ${emitters.map((e) => `${e.glyph} ${e.name}`).join(', ')}`;
-  return named.length <= LEGEND_WIDTH ? named : `${label} ${emitters.map((e) => e.glyph).join(' ')}`;
-}
-
-function legend(state: ExploreState, world: World): string[] {
-  const { x0, y0, width, height } = mapWindow(state, world);
-  const cropped = width < world.width || height < world.height;
-  return [
-    `${HEADINGS.map((h) => ARROWS[h]).join('')} you · reverse: in view`,
-    ...(cropped ? [`map x ${x0}–${x0 + width - 1} y ${y0}–${y0 + height - 1} of ${world.width}×${world.height}`] : []),
-    emitterList('sounding:', world.emitters.filter((e) => emitterIsOn(e, state.stepIndex))),
-    emitterList('silent:', world.emitters.filter((e) => !emitterIsOn(e, state.stepIndex))),
-  ];
-}
-
-function soundProps(sound: Float32Array, world: World): SoundPanelProps {
-  const bands = SETTINGS.sound.bands;
-  const floorDb = Math.floor(world.ambientDb / 10) * 10;
-  return {
-    title: `sound · dB ${floorDb}–${floorDb + DB_SPAN} per column · Hz`,
-    bandLabels: [...bandCentresHz(SETTINGS)].map(formatHz),
-    leftDb: [...sound.subarray(0, bands)],
-    rightDb: [...sound.subarray(bands, 2 * bands)],
-    floorDb,
-    ceilingDb: floorDb + DB_SPAN,
-    height: 2,
-  };
-}
-
-function truthLines(state: ExploreState, world: World): string[] {
-  const t = latentsAt(world, state.pose, state.transition, SETTINGS);
+function truthLines(world: World, sample: ExploreSample): string[] {
+  const t = sample.latents;
   const material = (i: number) => world.materials[i].name;
-  const yes = (v: number) => (v === 1 ? 'yes' : 'no');
   const azimuth = Math.round(t.nearest_azimuth_deg);
-  const nearest = world.emitters.length === 0
-    ? 'no emitters'
-    : `nearest ${world.emitters[t.nearest_emitter].name} ${t.nearest_distance_m.toFixed(1)} m at ${azimuth > 0 ? '+' : ''}${azimuth}°`;
+  const side = azimuth === 0 ? 'ahead' : Math.abs(azimuth) === 180 ? 'behind' : azimuth > 0 ? 'right' : 'left';
   return [
-    'ground truth',
     `x ${t.x} y ${t.y} ${HEADINGS[t.heading]}`,
     `under ${material(t.material_under)}`,
     `ahead ${material(t.material_ahead)}${t.wall_ahead === 1 ? ' wall' : ''}`,
-    nearest,
-    `emitter in view ${yes(t.emitter_in_view)}`,
-    `moved ${yes(t.moved)} bumped ${yes(t.bumped)}`,
+    `nearest ${world.emitters[t.nearest_emitter].name}`,
+    `${t.nearest_distance_m.toFixed(1)} m at ${azimuth > 0 ? '+' : ''}${azimuth}° (${side})`,
+    `emitter in view ${t.emitter_in_view === 1 ? 'yes' : 'no'}`,
   ];
 }

@@ -1,8 +1,6 @@
 import type { SightBlock } from '../components/sight-panel.js';
 
 const SHADES = ' ░▒▓█';
-/** Characters per sight cell on screen: two square-ish cells need four columns. */
-export const BLOCK_WIDTH = 4;
 
 /**
  * Encodes a linear light value for display with the sRGB transfer function
@@ -31,10 +29,10 @@ export function shadeOf(r: number, g: number, b: number): string {
 }
 
 /**
- * The sight channel [depth, width, 3] (row 0 nearest) as rows of blocks, far row first:
- * coloured full blocks, or shade characters without colour.
+ * The sight channel [depth, width, 3] (row 0 nearest) as rows of blocks `blockWidth`
+ * characters wide, far row first: coloured full blocks, or shade characters without colour.
  */
-export function sightBlocks(sight: Float32Array, width: number, depth: number, colour: boolean): SightBlock[][] {
+export function sightBlocks(sight: Float32Array, width: number, depth: number, colour: boolean, blockWidth: number): SightBlock[][] {
   const rows: SightBlock[][] = [];
   for (let d = depth - 1; d >= 0; d--) {
     const row: SightBlock[] = [];
@@ -42,8 +40,8 @@ export function sightBlocks(sight: Float32Array, width: number, depth: number, c
       const at = 3 * (d * width + w);
       const [r, g, b] = [sight[at], sight[at + 1], sight[at + 2]];
       row.push(colour
-        ? { text: '█'.repeat(BLOCK_WIDTH), color: inkColour(r, g, b) }
-        : { text: shadeOf(r, g, b).repeat(BLOCK_WIDTH) });
+        ? { text: '█'.repeat(blockWidth), color: inkColour(r, g, b) }
+        : { text: shadeOf(r, g, b).repeat(blockWidth) });
     }
     rows.push(row);
   }

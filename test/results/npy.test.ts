@@ -2,8 +2,8 @@ import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { writeFileAtomic } from '../../src/report/atomic.js';
-import { decodeNpy, encodeNpy, readNpy } from '../../src/report/npy.js';
+import { writeFileAtomic } from '../../src/results/atomic-file.js';
+import { decodeNpy, encodeNpy, readNpy } from '../../src/results/npy.js';
 
 const ascii = (bytes: Uint8Array): string => String.fromCharCode(...bytes);
 const hex = (bytes: Uint8Array): string => Buffer.from(bytes).toString('hex');

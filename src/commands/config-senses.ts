@@ -1,0 +1,11 @@
+import { loadSweep } from '../experiment/config.js';
+import type { SenseSettings } from '../senses/channel.js';
+
+/**
+ * The world file and sense settings a config uses (its first combination when `vary`
+ * changes them); throws the loader's ConfigError when the config is invalid.
+ */
+export function configWorldAndSenses(configPath: string): { readonly worldPath: string; readonly senses: SenseSettings } {
+  const { settings } = loadSweep(configPath).combinations[0];
+  return { worldPath: settings.worldPath, senses: settings.senses };
+}

@@ -1,4 +1,5 @@
 import { benchCollection } from '../bench/collection.js';
+import { probeSecondsPerCell } from '../bench/probe.js';
 import type { BenchResult } from '../bench/result.js';
 import { benchSweep } from '../bench/sweep.js';
 import { benchTorchReference } from '../bench/torch-reference.js';
@@ -22,6 +23,12 @@ async function bench({ json, quick, backend }: { json: boolean; quick: boolean; 
   const sections: [string, () => Promise<BenchResult[]>][] = [
     ['collection', () => benchCollection({ quick })],
     ['training', () => benchTraining({ quick, backend })],
+    ['probe', async () => [{
+      name: 'probe_s_per_cell',
+      value: await probeSecondsPerCell({ repeats: quick ? 1 : 3, backend }),
+      unit: 's',
+      detail: `one quickstart encoder: 5 targets × 6 sight gaussian severities, 20 000 steps, median of ${quick ? 1 : 3}`,
+    }]],
     ['PyTorch reference', () => benchTorchReference({ quick })],
   ];
   // The sweep figure runs the whole quickstart; --quick leaves it out to stay under a minute.

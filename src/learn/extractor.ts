@@ -32,8 +32,13 @@ export function createExtractor(
       for (let start = 0; start < n; start += CHUNK_ROWS) {
         const rows = Math.min(CHUNK_ROWS, n - start);
         const chunk = x.data.subarray(start * x.cols, (start + rows) * x.cols);
-        const features = tf.tidy(() => encode(encoder, tf.tensor2d(chunk, [rows, x.cols])).dataSync());
-        out.set(features, start * featureSize);
+        // The tensor, not its values, leaves tidy: tidy walks a returned typed array element by element.
+        const features = tf.tidy(() => encode(encoder, tf.tensor2d(chunk, [rows, x.cols])));
+        try {
+          out.set(features.dataSync(), start * featureSize);
+        } finally {
+          features.dispose();
+        }
       }
       return out;
     },

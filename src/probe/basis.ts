@@ -1,5 +1,6 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
-import type { LinearModel } from './ridge.js';
+import { columnStatistics } from '../stats/columns.js';
+import type { LinearModel } from './linear.js';
 
 /**
  * The coordinates every read-out works in: features standardised with the training
@@ -22,24 +23,24 @@ export interface FeatureBasis {
   readonly eigen: Float64Array; // [d]
 }
 
-/** The standardise-and-rotate basis fitted on n training rows of d features. */
-export function featureBasis(features: Float32Array, n: number, d: number): FeatureBasis {
-  if (n < 1 || features.length !== n * d) throw new Error(`featureBasis: expected ${n}×${d} features, got ${features.length} values`);
-  const mean = new Float64Array(d);
-  const scale = new Float64Array(d);
-  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += features[i * d + j];
-  for (let j = 0; j < d; j++) mean[j] /= n;
-  // Σ((x − μ)²/n) here, not stats/columns.ts's (Σ(x − μ)²)/n: the two differ in the last
-  // bits, and switching would move every stored R² in its last digits.
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < d; j++) scale[j] += (features[i * d + j] - mean[j]) ** 2 / n;
-  }
-  // A spread below a millionth of the mean is float32 rounding, not signal: a constant feature.
-  for (let j = 0; j < d; j++) {
-    const std = Math.sqrt(scale[j]);
-    scale[j] = std > 1e-6 * Math.abs(mean[j]) && std > 0 ? 1 / std : 0;
-  }
-  const gram = standardisedGram(features, n, d, mean, scale);
+/** Rows in basis coordinates, each distinct vector stored once. */
+export interface BasisRows {
+  readonly z: Float64Array; // [distinct, d]
+  /** For each row, the row of z that holds its vector. */
+  readonly index: Int32Array; // [n]
+}
+
+/**
+ * The standardise-and-rotate basis fitted on the training rows, given as m distinct rows
+ * of d features and how often each occurs (once each when `counts` is left out): every
+ * statistic is that of the rows with repeats, n = Σ counts of them.
+ */
+export function featureBasis(features: Float32Array, m: number, d: number, counts?: Int32Array): FeatureBasis {
+  if (m < 1 || features.length !== m * d) throw new Error(`featureBasis: expected ${m}×${d} features, got ${features.length} values`);
+  if (counts !== undefined && counts.length !== m) throw new Error(`featureBasis: expected ${m} counts, got ${counts.length}`);
+  const weights = counts ?? new Int32Array(m).fill(1);
+  const { mean, scale } = columnMoments(features, m, d, weights);
+  const gram = standardisedGram(features, m, d, weights, mean, scale);
   const evd = new EigenvalueDecomposition(gram, { assumeSymmetric: true });
   const vectors = evd.eigenvectorMatrix;
   const rotation = new Float64Array(d * d);
@@ -50,14 +51,25 @@ export function featureBasis(features: Float32Array, n: number, d: number): Feat
   return { d, mean, scale, rotation, eigen };
 }
 
-/** ZᵀZ/n of the standardised features, accumulated in float64. */
-function standardisedGram(features: Float32Array, n: number, d: number, mean: Float64Array, scale: Float64Array): Matrix {
+/**
+ * Column mean and 1/std (population form) of weighted rows; scale 0 marks a constant
+ * column, one whose spread is below a millionth of its mean (float32 rounding, not signal).
+ */
+function columnMoments(features: Float32Array, m: number, d: number, weights: Int32Array): { mean: Float64Array; scale: Float64Array } {
+  const { mean, std } = columnStatistics(features, d, { kind: 'zero-relative', tolerance: 1e-6 }, undefined, weights);
+  return { mean, scale: std.map((s) => (s > 0 ? 1 / s : 0)) };
+}
+
+/** ZᵀZ/n of the standardised features of weighted rows, accumulated in float64. */
+function standardisedGram(features: Float32Array, m: number, d: number, weights: Int32Array, mean: Float64Array, scale: Float64Array): Matrix {
+  let n = 0;
+  for (const w of weights) n += w;
   const gram = new Float64Array(d * d);
   const row = new Float64Array(d);
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < m; i++) {
     for (let j = 0; j < d; j++) row[j] = (features[i * d + j] - mean[j]) * scale[j];
     for (let j = 0; j < d; j++) {
-      const a = row[j] / n;
+      const a = (weights[i] * row[j]) / n;
       if (a === 0) continue;
       for (let k = j; k < d; k++) gram[j * d + k] += a * row[k];
     }
@@ -92,30 +104,41 @@ export function toBasis(basis: FeatureBasis, features: Float32Array, n: number):
 }
 
 /**
- * The same linear function of raw features written in another basis: with v = diag(s)·R·W
- * the raw weights, z·W + b = x·v + b − μ·v, and z'·W' + b' equals it for W' = R'ᵀ·diag(1/s')·v,
- * b' = b − μ·v + μ'·v (R' is orthogonal). A feature constant in `to` gets no weight.
+ * The same linear function written on raw features: with v = diag(s)·R·W,
+ * z·W + b = ((x − μ)·diag(s))·R·W + b = x·v + (b − μ·v), so test rows need no projection.
  */
-export function changeBasis(model: LinearModel, from: FeatureBasis, to: FeatureBasis): LinearModel {
+export function onRawFeatures(model: LinearModel, basis: FeatureBasis): LinearModel {
   const { d, k } = model;
-  if (from.d !== d || to.d !== d) throw new Error(`changeBasis: a ${d}-feature model needs ${d}-feature bases, got ${from.d} and ${to.d}`);
-  const raw = new Float64Array(d * k); // [d, k], v / s' once finished
+  if (basis.d !== d) throw new Error(`onRawFeatures: a ${d}-feature model needs a ${d}-feature basis, got ${basis.d}`);
+  const weights = new Float64Array(d * k); // [d, k]
   const intercept = Float64Array.from(model.intercept);
   for (let j = 0; j < d; j++) {
     for (let m = 0; m < d; m++) {
-      const a = from.scale[j] * from.rotation[j * d + m];
-      if (a !== 0) for (let c = 0; c < k; c++) raw[j * k + c] += a * model.weights[m * k + c];
+      const a = basis.scale[j] * basis.rotation[j * d + m];
+      if (a !== 0) for (let c = 0; c < k; c++) weights[j * k + c] += a * model.weights[m * k + c];
     }
-    for (let c = 0; c < k; c++) {
-      intercept[c] += (to.mean[j] - from.mean[j]) * raw[j * k + c];
-      raw[j * k + c] = to.scale[j] > 0 ? raw[j * k + c] / to.scale[j] : 0;
-    }
+    for (let c = 0; c < k; c++) intercept[c] -= basis.mean[j] * weights[j * k + c];
   }
-  const weights = new Float64Array(d * k);
+  return { d, k, weights, intercept };
+}
+
+/**
+ * The same linear function written in another basis: on raw features first (x·v + c),
+ * then in `to`, where z'·W' + b' = x·v + c for W' = R'ᵀ·diag(1/s')·v and b' = c + μ'·v
+ * (R' is orthogonal). A feature constant in `to` gets no weight.
+ */
+export function changeBasis(model: LinearModel, from: FeatureBasis, to: FeatureBasis): LinearModel {
+  const { d, k } = model;
+  if (to.d !== d) throw new Error(`changeBasis: a ${d}-feature model needs a ${d}-feature basis, got ${to.d}`);
+  const raw = onRawFeatures(model, from);
+  const weights = new Float64Array(d * k); // [d, k]
+  const intercept = Float64Array.from(raw.intercept);
   for (let j = 0; j < d; j++) {
-    for (let m = 0; m < d; m++) {
-      const r = to.rotation[j * d + m];
-      for (let c = 0; c < k; c++) weights[m * k + c] += r * raw[j * k + c];
+    for (let c = 0; c < k; c++) {
+      const v = raw.weights[j * k + c];
+      intercept[c] += to.mean[j] * v;
+      const scaled = to.scale[j] > 0 ? v / to.scale[j] : 0;
+      for (let m = 0; m < d; m++) weights[m * k + c] += to.rotation[j * d + m] * scaled;
     }
   }
   return { d, k, weights, intercept };

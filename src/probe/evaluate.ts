@@ -5,10 +5,10 @@ import { checkNoiseEntries } from '../noise/validate.js';
 import { channelReference } from '../noise/reference.js';
 import { noiseParameter } from '../noise/severity.js';
 import type { NoiseSpec } from '../noise/spec.js';
-import type { ChannelName } from '../senses/channel.js';
-import { featureBasis, toBasis } from './basis.js';
 import { preparedCka, prepareCka } from './cka.js';
-import { chanceLevel, fitProbe, scoreProbe, takeRows, testLabels, type SplitFeatures, type TestLabels } from './probe.js';
+import { encodeDistinct, type RowInputs } from './distinct.js';
+import { chanceLevel, evenSubsample, fitProbe, fitRows, scoreProbe, type FitRows, type FittedProbe } from './probe.js';
+import { takeRows } from './rows.js';
 import { probeTarget } from './targets.js';
 
 /** At most this many clean test rows are returned for comparing learners of one seed (CKA). */
@@ -64,77 +64,94 @@ interface Condition {
 /**
  * Probes a frozen encoder: fits one read-out per target on clean training features
  * (penalty chosen on validation), then scores it on test features at every noise
- * channel, kind and severity. Severity 0 is computed once. A channel the encoder does
- * not read leaves its features unchanged, so its rows repeat the clean scores: a real
- * result (immunity), not a skipped one.
+ * channel, kind and severity. The three clean splits go through the encoder in one
+ * call, and all corrupted severities of a noise setting in one more, each distinct
+ * input once. Severity 0 is computed once. A channel the encoder does not read leaves
+ * its features unchanged, so its rows repeat the clean scores: a real result
+ * (immunity), not a skipped one.
  */
 export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
-  const { encoder, data, split, seed } = args;
+  const { encoder, data, split } = args;
   const targets = args.targets.map(probeTarget);
   checkNoiseEntries(args.noise);
   for (const name of ['train', 'validation', 'test'] as const) {
     if (split[name].length === 0) throw new Error(`evaluateEncoder: the ${name} split has no rows`);
   }
   const d = encoder.featureSize;
-  const extract = (rows: Int32Array, replaced?: { channel: ChannelName; values: Float32Array }): Float32Array => {
-    const inputs: Partial<Record<ChannelName, Float32Array>> = {};
-    for (const channel of encoder.input) {
-      inputs[channel] = replaced?.channel === channel ? replaced.values : takeRows(data.channels[channel], data.channelSize[channel], rows);
-    }
-    return encoder.features(inputs, rows.length);
+  const testInputs = inputsOf(encoder, data, split.test);
+  const [train, validation, test] = encodeDistinct(encoder, data.channelSize, [inputsOf(encoder, data, split.train), inputsOf(encoder, data, split.validation), testInputs]);
+  const trainSplit = { steps: split.train, encoded: train };
+  const validationSplit = { steps: split.validation, encoded: validation };
+  const all = fitRows(trainSplit, validationSplit, d);
+  const subsamples = new Map<number, FitRows>(); // one per path size, shared by every target that needs it
+  const pathRows = (limit: number): FitRows => {
+    if (!subsamples.has(limit)) subsamples.set(limit, fitRows(evenSubsample(trainSplit, limit, d), validationSplit, d));
+    return subsamples.get(limit) as FitRows;
   };
-  const trainFeatures = extract(split.train);
-  const basis = featureBasis(trainFeatures, split.train.length, d);
-  const inBasis = (rows: Int32Array, features: Float32Array): SplitFeatures => ({ rows, features, z: toBasis(basis, features, rows.length), basis });
-  const train = inBasis(split.train, trainFeatures);
-  const validation = inBasis(split.validation, extract(split.validation));
-  const test = inBasis(split.test, extract(split.test));
+  const probes = targets.map((target) => fitProbe(target, data, all, pathRows));
 
-  const labels = targets.map((target) => testLabels(fitProbe(target, data, train, validation), data, split.test));
+  const labels = targets.map((target) => target.labels(data, split.test));
   const chance = targets.map((target) => (target.kind === 'categorical' ? chanceLevel(target, data, split.train, split.test) : NaN));
   const nTest = split.test.length;
-  const cleanCka = prepareCka(test.features, nTest, d);
-  const measure = (features: Float32Array, z: Float64Array): Condition => ({
-    scores: labels.map((l) => scoreProbe(l, features, z, basis)),
+  const cleanFeatures = takeRows(test.features, d, test.index); // [nTest, d]
+  const cleanCka = prepareCka(cleanFeatures, nTest, d);
+  const measure = (features: Float32Array): Condition => ({
+    scores: probes.map((probe, t) => scoreProbe(probe, features, labels[t])),
     cka: preparedCka(cleanCka, prepareCka(features, nTest, d)),
   });
-  const clean = measure(test.features, test.z);
+  const clean = measure(cleanFeatures);
 
   const rows: EvaluationRow[] = [];
   for (const spec of args.noise) {
-    const size = data.channelSize[spec.channel];
-    const reference = channelReference(data.channels[spec.channel], size, split.train, spec.channel);
-    const testValues = takeRows(data.channels[spec.channel], size, split.test);
-    const reads = encoder.input.includes(spec.channel);
+    const corrupted = encoder.input.includes(spec.channel) ? corruptedFeatures(args, spec, testInputs) : [];
     spec.severities.forEach((severity, i) => {
-      const parameter = noiseParameter(spec, i);
-      let condition = clean;
-      if (severity > 0 && reads) {
-        const rng = noiseRng(seed, spec.channel, spec.kind, severity);
-        const values = corruptChannel(testValues, size, spec.kind, parameter, reference, rng);
-        const features = extract(split.test, { channel: spec.channel, values });
-        condition = measure(features, toBasis(basis, features, nTest));
-      }
-      rows.push(...conditionRows({ channel: spec.channel, kind: spec.kind, severity, parameter }, condition, labels, chance));
+      const features = corrupted[i];
+      const at = { channel: spec.channel, kind: spec.kind, severity, parameter: noiseParameter(spec, i) };
+      rows.push(...conditionRows(at, features === undefined ? clean : measure(features), probes, chance));
     });
   }
   const testFeatureRows = Math.min(nTest, TEST_FEATURE_ROWS);
   return {
     rows,
-    testFeatures: test.features.slice(0, testFeatureRows * d),
+    testFeatures: cleanFeatures.slice(0, testFeatureRows * d),
     testFeatureRows,
     featureSize: d,
-    probes: labels.map(({ probe }) => ({
-      target: probe.target.name, metric: probe.target.metric, alpha: probe.readout.alpha, validationScore: probe.readout.validationScore,
-    })),
+    probes: probes.map(({ target, readout }) => ({ target: target.name, metric: target.metric, alpha: readout.alpha, validationScore: readout.validationScore })),
   };
+}
+
+/** The encoder's input channels at the given steps. */
+function inputsOf(encoder: FeatureExtractor, data: Dataset, steps: Int32Array): RowInputs {
+  return { n: steps.length, channels: Object.fromEntries(encoder.input.map((c) => [c, takeRows(data.channels[c], data.channelSize[c], steps)])) };
+}
+
+/**
+ * Test features [nTest, d] at each severity of one noise setting, from one encoder call
+ * (undefined at severity 0, the clean features). The draws depend only on the seed,
+ * channel, kind and severity, so every learner of a seed sees the same corrupted inputs.
+ */
+function corruptedFeatures(args: EvaluationArgs, spec: NoiseSpec, test: RowInputs): (Float32Array | undefined)[] {
+  const { encoder, data, split, seed } = args;
+  const size = data.channelSize[spec.channel];
+  const reference = channelReference(data.channels[spec.channel], size, split.train, spec.channel);
+  const clean = test.channels[spec.channel] as Float32Array;
+  const noisy = spec.severities.filter((severity) => severity > 0); // severities never repeat (checkNoiseSpec)
+  const encoded = encodeDistinct(encoder, data.channelSize, noisy.map((severity) => {
+    const parameter = noiseParameter(spec, spec.severities.indexOf(severity));
+    const values = corruptChannel(clean, size, spec.kind, parameter, reference, noiseRng(seed, spec.channel, spec.kind, severity));
+    return { n: test.n, channels: { ...test.channels, [spec.channel]: values } };
+  }));
+  return spec.severities.map((severity) => {
+    const e = encoded[noisy.indexOf(severity)];
+    return e === undefined ? undefined : takeRows(e.features, encoder.featureSize, e.index);
+  });
 }
 
 type NoiseLevel = Pick<EvaluationRow, 'channel' | 'kind' | 'severity' | 'parameter'>;
 
-function conditionRows(at: NoiseLevel, condition: Condition, labels: readonly TestLabels[], chance: readonly number[]): EvaluationRow[] {
+function conditionRows(at: NoiseLevel, condition: Condition, probes: readonly FittedProbe[], chance: readonly number[]): EvaluationRow[] {
   const rows: EvaluationRow[] = [];
-  labels.forEach(({ probe }, t) => {
+  probes.forEach((probe, t) => {
     rows.push({ target: probe.target.name, ...at, metric: probe.target.metric, value: condition.scores[t] });
     if (probe.target.kind === 'categorical') rows.push({ target: probe.target.name, ...at, metric: 'chance', value: chance[t] });
   });

@@ -1,4 +1,5 @@
-import type { LinearModel } from './ridge.js';
+import type { BasisRows } from './basis.js';
+import type { LinearModel } from './linear.js';
 import { addScaled, dot } from './vector.js';
 
 /**
@@ -27,9 +28,8 @@ const MAX_ITERATIONS = 200;
  * logit instead of two halves the work, and the tighter bound doubles the step.
  */
 export function fitLogistic(
-  z: Float64Array, // [n, d], centred on these rows
+  rows: BasisRows, // n rows, centred on them with repeats, each distinct vector stored once
   classes: Int32Array, // [n], 0..classCount−1
-  n: number,
   eigen: Float64Array, // [d], diag of ZᵀZ/n
   classCount: number,
   alpha: number,
@@ -37,22 +37,41 @@ export function fitLogistic(
   tolerance = TOLERANCE,
 ): LinearModel {
   const d = eigen.length;
-  if (n < 1 || z.length !== n * d || classes.length !== n) throw new Error(`fitLogistic: expected z ${n}×${d} and ${n} labels`);
+  const { z, index } = rows;
+  const n = index.length;
+  if (n < 1 || z.length % d !== 0 || classes.length !== n) throw new Error(`fitLogistic: expected ${n} rows of ${d} features and ${n} labels`);
   if (!(alpha > 0)) throw new Error(`logistic penalty α must be > 0, got ${alpha}`);
+  const counts = classCounts(index, classes, z.length / d, classCount);
   const problem: Problem = classCount === 2
-    ? { z, classes, n, d, eigen, logits: 1, penalty: alpha / 2, bound: 0.25, tolerance }
-    : { z, classes, n, d, eigen, logits: classCount, penalty: alpha, bound: 0.5, tolerance };
+    ? { z, counts, n, d, eigen, classCount, logits: 1, penalty: alpha / 2, bound: 0.25, tolerance }
+    : { z, counts, n, d, eigen, classCount, logits: classCount, penalty: alpha, bound: 0.5, tolerance };
   const theta = minimise(problem, start === undefined ? new Float64Array(problem.logits * (d + 1)) : fromModel(start, problem.logits));
   return toModel(theta, d, classCount);
 }
 
+/**
+ * How often each distinct vector occurs with each class, its total last:
+ * [distinct, classCount + 1]. The summed cross-entropy of the rows is then a sum over
+ * distinct vectors, Σ_u (m_u·log Σ_c exp η_uc − Σ_c n_uc·η_uc), with the same minimiser.
+ */
+function classCounts(index: Int32Array, classes: Int32Array, distinct: number, classCount: number): Float64Array {
+  const stride = classCount + 1;
+  const counts = new Float64Array(distinct * stride);
+  for (let i = 0; i < index.length; i++) {
+    counts[index[i] * stride + classes[i]] += 1;
+    counts[index[i] * stride + classCount] += 1;
+  }
+  return counts;
+}
+
 /** The penalised cross-entropy to minimise: `logits` = 1 is the two-class (sigmoid) form. */
 interface Problem {
-  readonly z: Float64Array; // [n, d]
-  readonly classes: Int32Array; // [n]
+  readonly z: Float64Array; // [distinct, d]
+  readonly counts: Float64Array; // [distinct, classCount + 1], see classCounts
   readonly n: number;
   readonly d: number;
   readonly eigen: Float64Array; // [d], diag of ZᵀZ/n
+  readonly classCount: number;
   readonly logits: number;
   /** λ in (λ/2)‖W‖². */
   readonly penalty: number;
@@ -96,22 +115,28 @@ function minimise(problem: Problem, theta0: Float64Array): Float64Array {
   }
   return x;
 }
+
 /**
- * Gradient of the penalised mean cross-entropy at θ, written into g. Class-major rows
- * keep the inner loops over the d features long; `scratch` holds one row's logits.
+ * Gradient of the penalised mean cross-entropy at θ, written into g: each distinct vector
+ * once, with the logit residual m_u·p_u − n_u that sums those of all its rows. Class-major
+ * rows keep the inner loops over the d features long; `scratch` holds one vector's logits.
  */
 function gradient(problem: Problem, theta: Float64Array, g: Float64Array, scratch: Float64Array): void {
-  const { z, classes, n, d, logits: L, penalty } = problem;
+  const { z, counts, n, d, classCount, logits: L, penalty } = problem;
   const stride = d + 1;
+  const countStride = classCount + 1;
   g.fill(0);
-  for (let i = 0; i < n; i++) {
-    const row = i * d;
+  for (let u = 0; u < z.length / d; u++) {
+    const row = u * d;
+    const at = u * countStride;
+    const total = counts[at + classCount];
+    if (total === 0) continue;
     for (let c = 0; c < L; c++) scratch[c] = theta[c * stride + d] + dot(z, row, theta, c * stride, d);
-    // p − onehot(y): the gradient of cross-entropy with respect to the logits
-    if (L === 1) scratch[0] = 1 / (1 + Math.exp(-scratch[0])) - classes[i];
+    // m·p − counts: the gradient of the summed cross-entropy with respect to the logits
+    if (L === 1) scratch[0] = total / (1 + Math.exp(-scratch[0])) - counts[at + 1];
     else {
       softmaxInPlace(scratch);
-      scratch[classes[i]] -= 1;
+      for (let c = 0; c < L; c++) scratch[c] = total * scratch[c] - counts[at + c];
     }
     for (let c = 0; c < L; c++) {
       addScaled(g, c * stride, scratch[c] / n, z, row, d);

@@ -1,21 +1,21 @@
+import type { BasisRows } from './basis.js';
+import { predictLinear, type LinearModel } from './linear.js';
 import { accuracy, argmaxRows, fitLogistic, TOLERANCE } from './logistic.js';
-import { predictLinear, r2Score, ridgeFromMoments, ridgeMoments, type LinearModel } from './ridge.js';
+import { r2Score, ridgeFromMoments, ridgeMoments } from './ridge.js';
+import { takeRows } from './rows.js';
 import type { TargetLabels } from './targets.js';
 
 /** Rows in basis coordinates with their labels. */
 export interface LabelledRows {
-  readonly z: Float64Array; // [n, d]
-  readonly n: number;
+  readonly rows: BasisRows;
   readonly labels: TargetLabels;
 }
 
-/** A read-out fitted on training rows with its penalty chosen on validation rows. */
+/** A read-out fitted on training rows, in basis coordinates, with its penalty chosen on validation rows. */
 export interface Readout {
   readonly alpha: number;
   readonly validationScore: number;
   readonly model: LinearModel;
-  /** The metric on labelled rows (R² or accuracy). */
-  score(rows: LabelledRows): number;
 }
 
 /** One kind of linear read-out and its penalty grid. */
@@ -29,11 +29,11 @@ export interface ReadoutKind {
    */
   readonly selectionRows: number;
   /** Fits along the α grid and keeps the best model on validation (iterative fits may stop early: refit the choice). */
-  fit(train: LabelledRows, validation: LabelledRows, eigen: Float64Array): Readout;
-  /** Fits at one α, starting from `start` when the solver is iterative. */
-  refit(train: LabelledRows, alpha: number, eigen: Float64Array, start?: LinearModel): LinearModel;
-  /** The metric of a model on labelled rows. */
-  score(model: LinearModel, rows: LabelledRows): number;
+  path(train: LabelledRows, validation: LabelledRows, eigen: Float64Array): Readout;
+  /** Fits at one α to full precision, starting from `start` when the solver is iterative. */
+  refit(train: LabelledRows, alpha: number, eigen: Float64Array, start: LinearModel): LinearModel;
+  /** The metric of predictions [n, k] of n labelled rows: R² or accuracy. */
+  score(predictions: Float64Array, labels: TargetLabels): number;
 }
 
 /** Decades from 10^hi down to 10^lo, written exactly (1e-5, not 9.999…e-6). */
@@ -50,17 +50,28 @@ const ridge: ReadoutKind = {
   metric: 'r2',
   alphas: decades(3, -6),
   selectionRows: Infinity, // the whole path costs one pass over the rows
-  fit(train, validation, eigen) {
+  path(train, validation, eigen) {
     const y = continuous(train.labels);
-    const moments = ridgeMoments(train.z, y.values, train.n, y.outputs, eigen);
-    return choosePenalty(this.alphas, validation, (alpha) => ridgeFromMoments(moments, alpha), scoreRegression, Infinity);
+    const moments = ridgeMoments(train.rows, y.values, y.outputs, eigen);
+    return choosePenalty(this.alphas, validation, (alpha) => ridgeFromMoments(moments, alpha), this.score, Infinity);
   },
   refit(train, alpha, eigen) {
     const y = continuous(train.labels);
-    return ridgeFromMoments(ridgeMoments(train.z, y.values, train.n, y.outputs, eigen), alpha);
+    return ridgeFromMoments(ridgeMoments(train.rows, y.values, y.outputs, eigen), alpha);
   },
-  score: scoreRegression,
+  score(predictions, labels) {
+    const y = continuous(labels);
+    return r2Score(y.values, predictions, y.values.length / y.outputs, y.outputs);
+  },
 };
+
+/**
+ * Path fits stop at ½gᵀM⁻¹g < 1e-5 nats, ten times coarser than a final fit: they only
+ * rank penalties by validation accuracy, whose step (one row in 3000, 3e-4) no such
+ * remainder can move; the refit at the chosen α runs to the full tolerance (measured:
+ * this halves the path's iterations).
+ */
+const PATH_TOLERANCE = 10 * TOLERANCE;
 
 /**
  * Multinomial logistic regression scored by accuracy. Chosen over a one-vs-rest ridge
@@ -72,35 +83,29 @@ const ridge: ReadoutKind = {
  * cost the most iterations and rarely help once accuracy has stopped rising (common
  * practice, as early exits on regularisation paths). The path runs on at most 3000
  * training rows: validation accuracy ranks penalties about as well from a few thousand
- * rows, and each fit on all rows costs as much as the whole subsample path (common
- * practice); the chosen α is then refitted once on every training row.
+ * rows (common practice); the chosen α is then refitted once on every training row.
  */
-/**
- * Path fits stop at ½gᵀM⁻¹g < 1e-5 nats, ten times coarser than a final fit: they only
- * rank penalties by validation accuracy, whose step (one row in 3000, 3e-4) no such
- * remainder can move; the refit at the chosen α runs to the full tolerance (measured:
- * this halves the path's iterations).
- */
-const PATH_TOLERANCE = 10 * TOLERANCE;
-
 const logistic: ReadoutKind = {
   metric: 'accuracy',
   alphas: decades(0, -4),
   selectionRows: 3000,
-  fit(train, validation, eigen) {
+  path(train, validation, eigen) {
     const y = categorical(train.labels);
     let previous: LinearModel | undefined;
     const fitAt = (alpha: number): LinearModel => {
-      previous = fitLogistic(train.z, y.classes, train.n, eigen, y.classCount, alpha, previous, PATH_TOLERANCE);
+      previous = fitLogistic(train.rows, y.classes, eigen, y.classCount, alpha, previous, PATH_TOLERANCE);
       return previous;
     };
-    return choosePenalty(this.alphas, validation, fitAt, scoreClassification, 2);
+    return choosePenalty(this.alphas, validation, fitAt, this.score, 2);
   },
   refit(train, alpha, eigen, start) {
     const y = categorical(train.labels);
-    return fitLogistic(train.z, y.classes, train.n, eigen, y.classCount, alpha, start);
+    return fitLogistic(train.rows, y.classes, eigen, y.classCount, alpha, start);
   },
-  score: scoreClassification,
+  score(predictions, labels) {
+    const y = categorical(labels);
+    return accuracy(argmaxRows(predictions, y.classes.length, predictions.length / y.classes.length), y.classes);
+  },
 };
 
 /** The read-out for each kind of target. */
@@ -116,35 +121,28 @@ function choosePenalty(
   alphas: readonly number[],
   validation: LabelledRows,
   fitAt: (alpha: number) => LinearModel,
-  scoreOf: (model: LinearModel, rows: LabelledRows) => number,
+  score: ReadoutKind['score'],
   patience: number,
 ): Readout {
-  let best = { alpha: NaN, validationScore: NaN, model: undefined as LinearModel | undefined };
+  let best: Readout | undefined;
   let sinceBest = 0;
   for (const alpha of alphas) {
     const model = fitAt(alpha);
-    const validationScore = scoreOf(model, validation);
-    const better = best.model === undefined || validationScore > best.validationScore || (Number.isNaN(best.validationScore) && !Number.isNaN(validationScore));
-    if (better) best = { alpha, validationScore, model };
+    const candidate = { alpha, model, validationScore: scoreRows(model, validation, score) };
+    const better = best === undefined || candidate.validationScore > best.validationScore || (Number.isNaN(best.validationScore) && !Number.isNaN(candidate.validationScore));
+    if (better) best = candidate;
     sinceBest = better ? 0 : sinceBest + 1;
     if (sinceBest >= patience) break;
   }
-  return readoutAt(best.alpha, best.model as LinearModel, best.validationScore, scoreOf);
+  if (best === undefined) throw new Error('choosePenalty: the penalty grid is empty');
+  return best;
 }
 
-/** A read-out of a model fitted at α, scored by `scoreOf`. */
-export function readoutAt(alpha: number, model: LinearModel, validationScore: number, scoreOf: ReadoutKind['score']): Readout {
-  return { alpha, validationScore, model, score: (rows) => scoreOf(model, rows) };
-}
-
-function scoreRegression(model: LinearModel, rows: LabelledRows): number {
-  const y = continuous(rows.labels);
-  return r2Score(y.values, predictLinear(model, rows.z, rows.n), rows.n, y.outputs);
-}
-
-function scoreClassification(model: LinearModel, rows: LabelledRows): number {
-  const y = categorical(rows.labels);
-  return accuracy(argmaxRows(predictLinear(model, rows.z, rows.n), rows.n, model.k), y.classes);
+/** The metric of a model on labelled rows: predictions once per distinct vector, then one per row. */
+export function scoreRows(model: LinearModel, labelled: LabelledRows, score: ReadoutKind['score']): number {
+  const { z, index } = labelled.rows;
+  const distinct = predictLinear(model, z, z.length / model.d); // [distinct, k]
+  return score(takeRows(distinct, model.k, index), labelled.labels);
 }
 
 function continuous(labels: TargetLabels): Extract<TargetLabels, { kind: 'continuous' }> {

@@ -1,13 +1,5 @@
-/**
- * A fitted linear regression in basis coordinates: ŷ = z·W + b.
- * The intercept is not penalised; it is the training mean of y because z is centred.
- */
-export interface LinearModel {
-  readonly d: number;
-  readonly k: number;
-  readonly weights: Float64Array; // [d, k]
-  readonly intercept: Float64Array; // [k]
-}
+import type { BasisRows } from './basis.js';
+import type { LinearModel } from './linear.js';
 
 /** What a ridge path needs from the training rows: the projections zᵀy/n and the mean of y. */
 export interface RidgeMoments {
@@ -18,17 +10,25 @@ export interface RidgeMoments {
   readonly yMean: Float64Array; // [k]
 }
 
-/** The training moments of a ridge fit in a basis where ZᵀZ/n = diag(eigen). */
-export function ridgeMoments(z: Float64Array, y: Float64Array, n: number, k: number, eigen: Float64Array): RidgeMoments {
+/**
+ * The training moments of a ridge fit in a basis where ZᵀZ/n = diag(eigen), from n
+ * labelled rows whose vectors `rows` stores once each: zᵀ(y − ȳ)/n = Σ_u z_u·Σ_{i∈u}(y_i − ȳ)/n.
+ */
+export function ridgeMoments(rows: BasisRows, y: Float64Array, k: number, eigen: Float64Array): RidgeMoments {
   const d = eigen.length;
-  if (n < 1 || z.length !== n * d || y.length !== n * k) throw new Error(`ridgeMoments: expected z ${n}×${d} and y ${n}×${k}`);
+  const { z, index } = rows;
+  const n = index.length;
+  const distinct = z.length / d;
+  if (n < 1 || !Number.isInteger(distinct) || y.length !== n * k) throw new Error(`ridgeMoments: expected ${n} labelled rows of ${d} features and ${k} outputs`);
   const yMean = new Float64Array(k);
   for (let i = 0; i < n; i++) for (let c = 0; c < k; c++) yMean[c] += y[i * k + c] / n;
+  const residualSums = new Float64Array(distinct * k); // [distinct, k]: Σ (y − ȳ) over the rows of each vector
+  for (let i = 0; i < n; i++) for (let c = 0; c < k; c++) residualSums[index[i] * k + c] += y[i * k + c] - yMean[c];
   const zy = new Float64Array(d * k);
-  for (let i = 0; i < n; i++) {
+  for (let u = 0; u < distinct; u++) {
     for (let j = 0; j < d; j++) {
-      const a = z[i * d + j] / n;
-      for (let c = 0; c < k; c++) zy[j * k + c] += a * (y[i * k + c] - yMean[c]);
+      const a = z[u * d + j] / n;
+      for (let c = 0; c < k; c++) zy[j * k + c] += a * residualSums[u * k + c];
     }
   }
   return { d, k, eigen, zy, yMean };
@@ -49,21 +49,6 @@ export function ridgeFromMoments(m: RidgeMoments, alpha: number): LinearModel {
     for (let c = 0; c < k; c++) weights[j * k + c] = zy[j * k + c] / (eigen[j] + alpha);
   }
   return { d, k, weights, intercept: Float64Array.from(m.yMean) };
-}
-
-/** Predictions z·W + b for n rows. */
-export function predictLinear(model: LinearModel, z: Float64Array, n: number): Float64Array {
-  const { d, k, weights, intercept } = model;
-  const out = new Float64Array(n * k); // [n, k]
-  for (let i = 0; i < n; i++) {
-    for (let c = 0; c < k; c++) out[i * k + c] = intercept[c];
-    for (let j = 0; j < d; j++) {
-      const a = z[i * d + j];
-      if (a === 0) continue;
-      for (let c = 0; c < k; c++) out[i * k + c] += a * weights[j * k + c];
-    }
-  }
-  return out;
 }
 
 /**

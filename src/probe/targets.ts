@@ -5,24 +5,17 @@ export type TargetLabels =
   | { readonly kind: 'continuous'; readonly values: Float64Array /* [n, outputs] */; readonly outputs: number }
   | { readonly kind: 'categorical'; readonly classes: Int32Array /* [n] */; readonly classCount: number };
 
-/** A target's labels on the rows where it is defined; `keep` lists their positions in the given rows. */
-export interface DefinedLabels {
-  readonly keep: Int32Array;
-  readonly labels: TargetLabels;
-}
-
 /** How one latent becomes probe labels. */
 export interface ProbeTarget {
   readonly name: LatentName;
   readonly kind: 'continuous' | 'categorical';
   readonly metric: 'r2' | 'accuracy';
   /**
-   * Labels for the given dataset rows. A step where the latent is NaN (or, for a class,
-   * negative) has no value and is left out of fitting, validation and scoring for this
-   * target only (the collector defines every latent at every step, since a world file
-   * needs at least one emitter; datasets built elsewhere may not).
+   * Labels for the given dataset rows. The collector defines every latent at every step
+   * (a world file needs at least one emitter), so a NaN value, or a negative class, is
+   * refused with the target and step it was found at.
    */
-  labels(data: Dataset, rows: ArrayLike<number>): DefinedLabels;
+  labels(data: Dataset, rows: ArrayLike<number>): TargetLabels;
 }
 
 /** Continuous latents read out as themselves (one ridge output). */
@@ -30,9 +23,10 @@ function scalarTarget(name: LatentName): ProbeTarget {
   return {
     name, kind: 'continuous', metric: 'r2',
     labels(data, rows) {
-      const keep = definedPositions(data.latents[name], rows, (v) => !Number.isNaN(v));
-      const values = Float64Array.from(keep, (p) => data.latents[name][rows[p]]);
-      return { keep, labels: { kind: 'continuous', values, outputs: 1 } };
+      const latent = definedLatent(data, name, rows, (v) => !Number.isNaN(v));
+      const values = new Float64Array(rows.length);
+      for (let i = 0; i < rows.length; i++) values[i] = latent[rows[i]];
+      return { kind: 'continuous', values, outputs: 1 };
     },
   };
 }
@@ -45,15 +39,14 @@ function angleTarget(name: LatentName): ProbeTarget {
   return {
     name, kind: 'continuous', metric: 'r2',
     labels(data, rows) {
-      const latent = data.latents[name];
-      const keep = definedPositions(latent, rows, (v) => !Number.isNaN(v));
-      const values = new Float64Array(keep.length * 2);
-      keep.forEach((p, i) => {
-        const radians = (latent[rows[p]] * Math.PI) / 180;
+      const latent = definedLatent(data, name, rows, (v) => !Number.isNaN(v));
+      const values = new Float64Array(rows.length * 2);
+      for (let i = 0; i < rows.length; i++) {
+        const radians = (latent[rows[i]] * Math.PI) / 180;
         values[2 * i] = Math.sin(radians);
         values[2 * i + 1] = Math.cos(radians);
-      });
-      return { keep, labels: { kind: 'continuous', values, outputs: 2 } };
+      }
+      return { kind: 'continuous', values, outputs: 2 };
     },
   };
 }
@@ -63,18 +56,21 @@ function classTarget(name: LatentName): ProbeTarget {
   return {
     name, kind: 'categorical', metric: 'accuracy',
     labels(data, rows) {
-      const latent = data.latents[name];
-      const keep = definedPositions(latent, rows, (v) => v >= 0);
-      const classes = Int32Array.from(keep, (p) => latent[rows[p]]);
-      return { keep, labels: { kind: 'categorical', classes, classCount: classCount(data, name) } };
+      const latent = definedLatent(data, name, rows, (v) => v >= 0);
+      const classes = new Int32Array(rows.length);
+      for (let i = 0; i < rows.length; i++) classes[i] = latent[rows[i]];
+      return { kind: 'categorical', classes, classCount: classCount(data, name) };
     },
   };
 }
 
-function definedPositions(latent: Float32Array, rows: ArrayLike<number>, defined: (v: number) => boolean): Int32Array {
-  const keep: number[] = [];
-  for (let p = 0; p < rows.length; p++) if (defined(latent[rows[p]])) keep.push(p);
-  return Int32Array.from(keep);
+/** The latent's values, after checking that it is defined on every given row. */
+function definedLatent(data: Dataset, name: LatentName, rows: ArrayLike<number>, defined: (v: number) => boolean): Float32Array {
+  const latent = data.latents[name];
+  for (let i = 0; i < rows.length; i++) {
+    if (!defined(latent[rows[i]])) throw new Error(`probe target '${name}' has no value at step ${rows[i]} (${latent[rows[i]]}); every latent must be defined at every step`);
+  }
+  return latent;
 }
 
 /** Every latent as a probe target: azimuth as [sin, cos], the rest by LATENT_KIND. */

@@ -19,7 +19,9 @@ export interface ColumnStatistics {
 
 /**
  * Mean and population std of each column of a row-major [n, cols] array, over the given
- * rows (all rows when none are given), with constant columns treated by `rule`.
+ * rows (all rows when none are given), with constant columns treated by `rule`. With
+ * `weights`, the r-th picked row counts weights[r] times (a row standing for its repeats),
+ * and the divisor is Σ weights.
  *
  * Two passes in float64: the mean, then the squared deviations around it. The one-pass
  * Σx² − n·x̄² cancels catastrophically for large means such as dB levels near 60 (Chan,
@@ -31,6 +33,7 @@ export function columnStatistics(
   cols: number,
   rule: ConstantColumnRule,
   rows?: ArrayLike<number>,
+  weights?: ArrayLike<number>,
 ): ColumnStatistics {
   if (!Number.isInteger(cols) || cols < 0 || (cols === 0 ? values.length !== 0 : values.length % cols !== 0)) {
     throw new Error(`columnStatistics: ${values.length} values are not rows of ${cols} columns`);
@@ -38,24 +41,29 @@ export function columnStatistics(
   if (cols === 0) return { mean: new Float64Array(0), std: new Float64Array(0) };
   const n = values.length / cols;
   const picked = rows ?? { length: n };
-  const count = picked.length;
+  if (weights != null && weights.length !== picked.length) throw new Error(`columnStatistics: ${weights.length} weights for ${picked.length} rows`);
+  const weightOf = (r: number): number => (weights == null ? 1 : weights[r]);
+  let count = 0;
+  for (let r = 0; r < picked.length; r++) count += weightOf(r);
   const rowAt = (r: number): number => {
     const row = rows == null ? r : rows[r];
     if (rows != null && !(Number.isInteger(row) && row >= 0 && row < n)) throw new Error(`columnStatistics: row ${row} is outside 0..${n - 1}`);
     return row * cols;
   };
   const mean = new Float64Array(cols);
-  for (let r = 0; r < count; r++) {
+  for (let r = 0; r < picked.length; r++) {
     const at = rowAt(r);
-    for (let c = 0; c < cols; c++) mean[c] += values[at + c];
+    const w = weightOf(r);
+    for (let c = 0; c < cols; c++) mean[c] += w * values[at + c];
   }
   for (let c = 0; c < cols; c++) mean[c] /= Math.max(count, 1);
   const sumSq = new Float64Array(cols);
-  for (let r = 0; r < count; r++) {
+  for (let r = 0; r < picked.length; r++) {
     const at = rowAt(r);
+    const w = weightOf(r);
     for (let c = 0; c < cols; c++) {
       const d = values[at + c] - mean[c];
-      sumSq[c] += d * d;
+      sumSq[c] += w * d * d;
     }
   }
   const std = new Float64Array(cols);

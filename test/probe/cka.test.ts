@@ -53,6 +53,15 @@ describe('linearCka (Kornblith et al. 2019, ICML)', () => {
     expect(linearCka(flat(X), flat(Y), n, d, 4)).toBeCloseTo(kernelCka(X, Y), 6);
   });
 
+  it('agrees with the kernel form when rows repeat (each distinct row counted as often as it occurs), to 1e-9', () => {
+    // Rounded to float32 first, so that both routes see the same numbers.
+    const float32 = (m: Matrix) => new Matrix(m.to2DArray().map((row) => row.map(Math.fround)));
+    const repeated = float32(new Matrix(Array.from({ length: n }, (_, i) => X.getRow(i % 7)))); // 7 distinct rows, as a grid world's views repeat
+    const Y = float32(repeated.mmul(gaussianMatrix(d, 4, 8)).add(gaussianMatrix(n, 4, 9))); // every row distinct
+    expect(linearCka(flat(repeated), flat(Y), n, d, 4)).toBeCloseTo(kernelCka(repeated, Y), 9);
+    expect(linearCka(flat(Y), flat(repeated), n, 4, d)).toBeCloseTo(kernelCka(repeated, Y), 9);
+  });
+
   it('is NaN when one side is constant (nothing to compare)', () => {
     expect(linearCka(flat(X), new Float32Array(n * 2).fill(3), n, d, 2)).toBeNaN();
   });

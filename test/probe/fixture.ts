@@ -1,4 +1,5 @@
 import type { Dataset, DatasetSplit, LatentName } from '../../src/collect/dataset.js';
+import type { BasisRows } from '../../src/probe/basis.js';
 import type { FeatureExtractor } from '../../src/learn/spec.js';
 import { createRng, normal, randomInt, type Rng } from '../../src/random.js';
 import { CHANNELS, type ChannelName } from '../../src/senses/channel.js';
@@ -9,16 +10,25 @@ import { CHANNELS, type ChannelName } from '../../src/senses/channel.js';
  * dB; touch: movement and floor; motor: a one-hot action), so a linear read-out of a
  * linear encoder can recover exactly what its channels carry. Steps come in episodes
  * of 20; episodes go 14:3:3 to train, validation and test.
+ *
+ * With `poses`, every step revisits one of that many poses drawn up front, as an agent in
+ * a grid does: the pose's latents and its sight row repeat exactly, except the nearest
+ * emitter, drawn afresh each step, so one view can carry different labels.
  */
-export function fixtureDataset(steps: number, seed: number): { data: Dataset; split: DatasetSplit } {
+export function fixtureDataset(steps: number, seed: number, poses?: number): { data: Dataset; split: DatasetSplit } {
   const rng = createRng(seed, 'fixture');
   const latents = Object.fromEntries(LATENTS.map((name) => [name, new Float32Array(steps)])) as Record<LatentName, Float32Array>;
   const channelSize: Record<ChannelName, number> = { sight: 11, sound: 8, touch: 5, motor: 5 };
   const channels = Object.fromEntries(CHANNELS.map((c) => [c, new Float32Array(steps * channelSize[c])])) as Record<ChannelName, Float32Array>;
-  for (let t = 0; t < steps; t++) {
+  const revisited = Array.from({ length: poses ?? 0 }, () => {
     const l = drawLatents(rng);
+    return { l, sight: sightOf(l, rng) };
+  });
+  for (let t = 0; t < steps; t++) {
+    const pose = poses == null ? undefined : revisited[randomInt(rng, poses)];
+    const l = pose === undefined ? drawLatents(rng) : { ...pose.l, nearest_emitter: randomInt(rng, 2) };
     for (const name of LATENTS) latents[name][t] = l[name];
-    channels.sight.set(sightOf(l, rng), t * 11);
+    channels.sight.set(pose === undefined ? sightOf(l, rng) : pose.sight, t * 11);
     channels.sound.set(soundOf(l, rng), t * 8);
     channels.touch.set([l.moved, l.bumped, ...oneHot(l.material_under, 3)], t * 5);
     channels.motor.set(oneHot(l.moved === 1 ? 0 : 2 + randomInt(rng, 3), 5), t * 5);
@@ -40,14 +50,13 @@ const LATENTS: readonly LatentName[] = [
 ];
 
 function drawLatents(rng: Rng): Record<LatentName, number> {
-  const heard = rng() < 0.9; // one step in ten has no emitter: its nearest_* latents are NaN
   const moved = rng() < 0.6 ? 1 : 0;
   return {
     x: 1 + randomInt(rng, 9), y: 1 + randomInt(rng, 7), heading: randomInt(rng, 4),
     material_under: randomInt(rng, 3), material_ahead: randomInt(rng, 3), wall_ahead: rng() < 0.3 ? 1 : 0,
-    nearest_emitter: heard ? randomInt(rng, 2) : NaN,
-    nearest_distance_m: heard ? 0.5 + 4.5 * rng() : NaN,
-    nearest_azimuth_deg: heard ? -180 + 360 * rng() : NaN,
+    nearest_emitter: randomInt(rng, 2),
+    nearest_distance_m: 0.5 + 4.5 * rng(),
+    nearest_azimuth_deg: -180 + 360 * rng(),
     emitter_in_view: rng() < 0.2 ? 1 : 0, moved, bumped: moved === 0 && rng() < 0.3 ? 1 : 0,
   };
 }
@@ -62,10 +71,8 @@ function soundOf(l: Record<LatentName, number>, rng: Rng): number[] {
   const levels: number[] = [];
   for (const side of [-1, 1]) {
     for (let band = 0; band < 4; band++) {
-      const source = Number.isNaN(l.nearest_distance_m)
-        ? 20
-        : 60 - 20 * Math.log10(l.nearest_distance_m) + side * (band + 1) * Math.sin((l.nearest_azimuth_deg * Math.PI) / 180)
-          + 2 * Math.cos((l.nearest_azimuth_deg * Math.PI) / 180) + 4 * l.nearest_emitter * (band % 2);
+      const source = 60 - 20 * Math.log10(l.nearest_distance_m) + side * (band + 1) * Math.sin((l.nearest_azimuth_deg * Math.PI) / 180)
+        + 2 * Math.cos((l.nearest_azimuth_deg * Math.PI) / 180) + 4 * l.nearest_emitter * (band % 2);
       levels.push(source + 0.2 * normal(rng));
     }
   }
@@ -109,4 +116,9 @@ export function linearEncoder(data: Dataset, input: readonly ChannelName[], feat
     dispose() {},
   };
   return { encoder, calls };
+}
+
+/** n rows in basis coordinates stored one by one: row i is z's row i. */
+export function everyRow(z: Float64Array, n: number): BasisRows {
+  return { z, index: Int32Array.from({ length: n }, (_, i) => i) };
 }

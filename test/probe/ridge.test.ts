@@ -2,7 +2,9 @@ import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { createRng, normal } from '../../src/random.js';
 import { featureBasis, toBasis } from '../../src/probe/basis.js';
-import { predictLinear, r2Score, ridgeFromMoments, ridgeMoments } from '../../src/probe/ridge.js';
+import { predictLinear } from '../../src/probe/linear.js';
+import { r2Score, ridgeFromMoments, ridgeMoments } from '../../src/probe/ridge.js';
+import { everyRow } from './fixture.js';
 
 const n = 80;
 const d = 5;
@@ -28,7 +30,7 @@ function design(X: Float32Array, rows: number, mean: number[], std: number[]): M
 
 function ourPredictions(train: { X: Float32Array; Y: Float64Array }, query: Float32Array, rows: number, alpha: number): Float64Array {
   const basis = featureBasis(train.X, n, d);
-  const model = ridgeFromMoments(ridgeMoments(toBasis(basis, train.X, n), train.Y, n, k, basis.eigen), alpha);
+  const model = ridgeFromMoments(ridgeMoments(everyRow(toBasis(basis, train.X, n), n), train.Y, k, basis.eigen), alpha);
   return predictLinear(model, toBasis(basis, query, rows), rows);
 }
 
@@ -72,6 +74,21 @@ describe('ridge regression', () => {
     const query = problem(6, 10).X;
     const predictions = ourPredictions(train, query, 10, 0);
     expect(predictions.every(Number.isFinite)).toBe(true);
+  });
+});
+
+describe('ridgeMoments', () => {
+  it('gives rows stored once with an index the moments of the same rows written out, to 1e-12', () => {
+    const train = problem(7, n);
+    const index = Int32Array.from({ length: 2 * n }, (_, i) => (i < n ? i : (7 * i) % n)); // a second visit of every row, shuffled (7 and 80 are coprime)
+    const Y = Float64Array.from(Array.from(index).flatMap((u) => [train.Y[2 * u], train.Y[2 * u + 1]]));
+    const basis = featureBasis(train.X, n, d, Int32Array.from({ length: n }, () => 2));
+    const z = toBasis(basis, train.X, n);
+    const written = Float64Array.from(Array.from(index).flatMap((u) => Array.from(z.subarray(u * d, u * d + d))));
+    const grouped = ridgeMoments({ z, index }, Y, k, basis.eigen);
+    const plain = ridgeMoments(everyRow(written, 2 * n), Y, k, basis.eigen);
+    grouped.zy.forEach((v, p) => expect(v).toBeCloseTo(plain.zy[p], 12));
+    grouped.yMean.forEach((v, c) => expect(v).toBeCloseTo(plain.yMean[c], 12));
   });
 });
 

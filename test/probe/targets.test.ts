@@ -12,23 +12,29 @@ describe('probe targets', () => {
 
   it('read azimuth as [sin, cos] so that −180° and 180° are the same label (unit-circle identities)', () => {
     const latents = { ...data.latents, nearest_azimuth_deg: Float32Array.of(90, -180, 180, 0) };
-    const { labels } = PROBE_TARGETS.nearest_azimuth_deg.labels({ ...data, latents }, [0, 1, 2, 3]);
+    const labels = PROBE_TARGETS.nearest_azimuth_deg.labels({ ...data, latents }, [0, 1, 2, 3]);
     if (labels.kind !== 'continuous') throw new Error('azimuth must be continuous');
     expect(labels.outputs).toBe(2);
     const expected = [1, 0, 0, -1, 0, -1, 0, 1];
     labels.values.forEach((v, i) => expect(v).toBeCloseTo(expected[i], 6));
   });
 
-  it('leave out rows where the latent is NaN and report the kept positions', () => {
-    const latents = { ...data.latents, nearest_distance_m: Float32Array.of(1.5, NaN, 2.5, NaN) };
-    const { keep, labels } = PROBE_TARGETS.nearest_distance_m.labels({ ...data, latents }, [3, 2, 1, 0]);
-    expect(Array.from(keep)).toEqual([1, 3]);
-    expect(labels.kind === 'continuous' && Array.from(labels.values)).toEqual([2.5, 1.5]);
+  it('refuse a NaN latent or a negative class, naming the target and the step', () => {
+    const latents = { ...data.latents, nearest_distance_m: Float32Array.of(1.5, NaN, 2.5), heading: Float32Array.of(0, 3, -1) };
+    expect(PROBE_TARGETS.nearest_distance_m.labels({ ...data, latents }, [2, 0]).kind).toBe('continuous');
+    expect(() => PROBE_TARGETS.nearest_distance_m.labels({ ...data, latents }, [2, 1])).toThrow("probe target 'nearest_distance_m' has no value at step 1 (NaN)");
+    expect(() => PROBE_TARGETS.heading.labels({ ...data, latents }, [0, 1, 2])).toThrow("probe target 'heading' has no value at step 2 (-1)");
+  });
+
+  it('read class labels in the order of the given rows', () => {
+    const latents = { ...data.latents, heading: Float32Array.of(0, 3, 2, 1) };
+    const labels = PROBE_TARGETS.heading.labels({ ...data, latents }, [3, 1, 2]);
+    expect(labels.kind === 'categorical' && Array.from(labels.classes)).toEqual([1, 3, 2]);
   });
 
   it('count classes from the class names, and at least two for a boolean', () => {
-    const heading = PROBE_TARGETS.heading.labels(data, [0, 1, 2]).labels;
-    const moved = PROBE_TARGETS.moved.labels({ ...data, latents: { ...data.latents, moved: new Float32Array(200) } }, [0, 1]).labels;
+    const heading = PROBE_TARGETS.heading.labels(data, [0, 1, 2]);
+    const moved = PROBE_TARGETS.moved.labels({ ...data, latents: { ...data.latents, moved: new Float32Array(200) } }, [0, 1]);
     expect(heading.kind === 'categorical' && heading.classCount).toBe(4);
     expect(moved.kind === 'categorical' && moved.classCount).toBe(2);
   });

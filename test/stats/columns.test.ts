@@ -35,6 +35,15 @@ describe('columnStatistics', () => {
     expect(Array.from(std)).toEqual([1, 0]);
   });
 
+  it('counts a weighted row as that many copies of itself', () => {
+    // Rows 0 and 2 weighted 3 and 1 stand for 1, 1, 1, 3 in column 0: mean 6/4 = 1.5,
+    // squared deviations 3·0.25 + 2.25 = 3, population std √(3/4) (by hand).
+    const { mean, std } = columnStatistics(handExample, 2, { kind: 'keep' }, [0, 2], [3, 1]);
+    expect(Array.from(mean)).toEqual([1.5, 5]);
+    expect(std[0]).toBeCloseTo(Math.sqrt(0.75), 15);
+    expect(std[1]).toBe(0);
+  });
+
   it('gives a constant column std 1 under unit-below, leaving spread columns alone', () => {
     const { std } = columnStatistics(handExample, 2, { kind: 'unit-below', tolerance: 1e-6 });
     expect(std[0]).toBeCloseTo(1.118033988749895, 15);

@@ -16,35 +16,48 @@ function largestDemoWorld(): { world: World; file: string } {
   return worlds.reduce((a, b) => (b.world.width * b.world.height > a.world.width * a.world.height ? b : a));
 }
 
-function timeCollection(world: World, policy: PolicyName, steps: number): { wallS: number; cpuS: number } {
+/** Timed repeats after one untimed run of the same work (so the timed runs meet compiled code). */
+const REPEATS = 3;
+
+const median = (values: readonly number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+/** Steps per second of wall time and per CPU-second for each of REPEATS timed collections. */
+function timeCollection(world: World, policy: PolicyName, steps: number): { wall: number[]; cpu: number[] } {
   const options = { policy, steps, episodeSteps: 200 };
-  collect(world, { ...options, steps: Math.min(steps, 5000) }, DEFAULT_SENSE_SETTINGS, 0); // warm up the JIT
-  const cpu0 = process.cpuUsage();
-  const wall0 = performance.now();
-  collect(world, options, DEFAULT_SENSE_SETTINGS, 1);
-  const wallS = (performance.now() - wall0) / 1000;
-  const cpu = process.cpuUsage(cpu0);
-  return { wallS, cpuS: (cpu.user + cpu.system) / 1e6 };
+  collect(world, options, DEFAULT_SENSE_SETTINGS, 0);
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  for (let seed = 1; seed <= REPEATS; seed++) {
+    const cpu0 = process.cpuUsage();
+    const wall0 = performance.now();
+    collect(world, options, DEFAULT_SENSE_SETTINGS, seed);
+    wall.push(steps / ((performance.now() - wall0) / 1000));
+    const used = process.cpuUsage(cpu0);
+    cpu.push(steps / ((used.user + used.system) / 1e6));
+  }
+  return { wall, cpu };
 }
 
 /**
  * Collection throughput (steps per second of wall time, all four senses and every latent)
- * on the largest demo world, for the wander and seek policies. The detail gives CPU time too:
- * on a busy machine wall time overstates the cost of one step.
+ * on the largest demo world, for the wander and seek policies: the median of REPEATS runs,
+ * min–max in the detail. The detail gives steps per CPU-second too: on a busy machine wall
+ * time overstates the cost of one step.
  */
 export async function benchCollection(opts: { quick: boolean }): Promise<BenchResult[]> {
   const { world, file } = largestDemoWorld();
   const steps = opts.quick ? 20_000 : 200_000;
   const { sight, sound } = DEFAULT_SENSE_SETTINGS;
   return (['wander', 'seek'] as const).map((policy) => {
-    const { wallS, cpuS } = timeCollection(world, policy, steps);
+    const { wall, cpu } = timeCollection(world, policy, steps);
     return {
       name: `collection (${policy})`,
-      value: Math.round(steps / wallS),
+      value: Math.round(median(wall)),
       unit: 'steps/s',
       detail: `${steps} steps on ${file} (${world.width}×${world.height} cells, ${world.emitters.length} emitters), `
-        + `sight ${sight.width}×${sight.depth}, ${sound.bands} sound bands, one thread; `
-        + `${Math.round(steps / cpuS)} steps per CPU-second`,
+        + `sight ${sight.width}×${sight.depth}, ${sound.bands} sound bands, one thread, median of ${REPEATS} `
+        + `(${Math.round(Math.min(...wall))}–${Math.round(Math.max(...wall))}); `
+        + `${Math.round(median(cpu))} steps per CPU-second`,
     };
   });
 }

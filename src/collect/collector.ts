@@ -3,10 +3,10 @@ import { CHANNELS, type ChannelName, type SenseSettings } from '../senses/channe
 import { channelSize } from '../senses/registry.js';
 import { createScene } from '../senses/scene.js';
 import { senseInto } from '../senses/sense-all.js';
-import { step } from '../world/movement.js';
-import { HEADINGS, type Action, type Pose, type Transition, type World } from '../world/types.js';
+import { HEADINGS, type Action, type Pose, type World } from '../world/types.js';
 import { LATENT_NAMES, type Dataset, type LatentName } from './dataset.js';
-import { latentRow } from './latents.js';
+import { PoseLatentTable, POSE_LATENTS } from './latents.js';
+import { MoveTable, poseOf } from './moves.js';
 import { POLICIES, POLICY_NAMES, type PolicyName } from './policies.js';
 
 /** How to collect: which policy, how many steps in all, and how many per episode. */
@@ -36,11 +36,6 @@ function randomPose(world: World, free: Int32Array, rng: Rng): Pose {
   return { x: cell % world.width, y: Math.floor(cell / world.width), heading: HEADINGS[randomInt(rng, 4)] };
 }
 
-/** Copies a short row into a dataset buffer; a plain loop beats TypedArray.set at these sizes. */
-function copyRow(row: Float32Array, out: Float32Array, at: number): void {
-  for (let i = 0; i < row.length; i++) out[at + i] = row[i];
-}
-
 /** Class names of the categorical latents, in index order. */
 export function latentClassNames(world: World): Dataset['classNames'] {
   const materials = world.materials.map((m) => m.name);
@@ -67,6 +62,10 @@ function allocate(steps: number, settings: SenseSettings) {
  * except that the first episode starts at the world's `start` pose when it has one; the
  * first step of an episode records that placement with action `stay`. The policy draws
  * from the same stream. The world clock (emitter duty cycles) is the global step index.
+ *
+ * The world is static, so transitions and the pose-only latents are worked out once per
+ * pose and reused. Each step is sensed into one row of scratch buffers, which the policy
+ * reads through one observation object reused every step, and block-copied into the dataset.
  */
 export function collect(world: World, options: CollectOptions, settings: SenseSettings, seed: number): Dataset {
   checkOptions(options);
@@ -74,31 +73,33 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
   const rng = createRng(seed, 'collect');
   const policy = POLICIES[options.policy];
   const scene = createScene(world, settings);
+  const moves = new MoveTable(world);
   const free = freeCells(world);
   const { size, channels, scratch, latents } = allocate(steps, settings);
-  const latent = new Float64Array(LATENT_NAMES.length);
+  const poseRows = new PoseLatentTable(scene);
   const latentColumns = LATENT_NAMES.map((n) => latents[n]);
-  const sizes = CHANNELS.map((c) => size[c]);
-  const outputs = CHANNELS.map((c) => channels[c]);
-  const rows = CHANNELS.map((c) => scratch[c]);
   const episode = new Int32Array(steps);
   const hasNext = new Uint8Array(steps);
-  let pose: Pose = world.start ?? randomPose(world, free, rng);
-  let transition: Transition = { pose, moved: false, bumped: false };
+  let k = moves.rest(world.start ?? randomPose(world, free, rng));
+  const observation = { transition: moves.transition(k), sound: scratch.sound, touch: scratch.touch };
+  const outputs = CHANNELS.map((c) => channels[c]);
+  const rows = CHANNELS.map((c) => scratch[c]);
   for (let t = 0; t < steps; t++) {
     let action: Action = 'stay';
     if (t % episodeSteps === 0) {
-      if (t > 0) pose = randomPose(world, free, rng);
-      transition = { pose, moved: false, bumped: false };
+      if (t > 0) k = moves.rest(randomPose(world, free, rng));
     } else {
-      action = policy({ transition, sound: scratch.sound, touch: scratch.touch }, rng);
-      transition = step(world, pose, action);
-      pose = transition.pose;
+      observation.transition = moves.transition(k);
+      action = policy(observation, rng);
+      k = moves.take(k, action);
     }
-    senseInto(scene, pose, transition, action, t, scratch, 0);
-    for (let c = 0; c < outputs.length; c++) copyRow(rows[c], outputs[c], t * sizes[c]);
-    latentRow(scene, pose, transition, latent);
-    for (let j = 0; j < latentColumns.length; j++) latentColumns[j][t] = latent[j];
+    const transition = moves.transition(k);
+    senseInto(scene, transition.pose, transition, action, t, scratch, 0);
+    for (let c = 0; c < rows.length; c++) outputs[c].set(rows[c], t * rows[c].length);
+    const row = poseRows.rowOf(poseOf(k), transition.pose);
+    for (let j = 0; j < POSE_LATENTS; j++) latentColumns[j][t] = poseRows.rows[row + j];
+    latentColumns[POSE_LATENTS][t] = transition.moved ? 1 : 0;
+    latentColumns[POSE_LATENTS + 1][t] = transition.bumped ? 1 : 0;
     episode[t] = Math.floor(t / episodeSteps);
     hasNext[t] = t + 1 < steps && (t + 1) % episodeSteps !== 0 ? 1 : 0;
   }

@@ -1,7 +1,7 @@
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { sceneFor, type SensoryScene } from '../senses/scene.js';
 import { viewFrom } from '../senses/sight.js';
-import { HEADING_INDEX, headingFrame, type HeadingFrame } from '../world/heading.js';
+import { HEADING_INDEX, headingFrame, poseCount, type HeadingFrame } from '../world/heading.js';
 import { cellAhead } from '../world/movement.js';
 import type { Pose, Transition, World } from '../world/types.js';
 import { LATENT_NAMES, type LatentName } from './dataset.js';
@@ -28,15 +28,19 @@ function emitterInView(scene: SensoryScene, pose: Pose, frame: HeadingFrame): bo
   return false;
 }
 
+/** Latents that depend on the pose alone, the first POSE_LATENTS of LATENT_NAMES; moved and bumped follow. */
+export const POSE_LATENTS = AT.moved;
+
 /**
- * Writes the ground truth of one step into `row` (LATENT_NAMES order).
+ * Writes the latents that depend on the pose alone (LATENT_NAMES order, all but moved and
+ * bumped) into `row[at..at + POSE_LATENTS)`.
  *
  * The nearest emitter is by straight distance between cell centres (ties go to the first
  * listed), whether or not it is sounding; its azimuth is in degrees in (−180, 180], 0
  * straight ahead and positive to the agent's right; 0 when the agent stands on it.
  * material_ahead is the material of the cell in front (the floor under an emitter there).
  */
-export function latentRow(scene: SensoryScene, pose: Pose, transition: Transition, row: Float64Array): void {
+export function poseLatents(scene: SensoryScene, pose: Pose, row: Float32Array | Float64Array, at = 0): void {
   const { world } = scene;
   let nearest = 0;
   let nearestSquared = Infinity;
@@ -53,16 +57,21 @@ export function latentRow(scene: SensoryScene, pose: Pose, transition: Transitio
   const azimuth = (Math.atan2(dx * rx + dy * ry, dx * fx + dy * fy) * 180) / Math.PI;
   const ahead = cellAhead(pose);
   const aheadCell = ahead.y * world.width + ahead.x;
-  row[AT.x] = pose.x;
-  row[AT.y] = pose.y;
-  row[AT.heading] = HEADING_INDEX[pose.heading];
-  row[AT.material_under] = world.material[pose.y * world.width + pose.x];
-  row[AT.material_ahead] = world.material[aheadCell];
-  row[AT.wall_ahead] = world.solid[aheadCell];
-  row[AT.nearest_emitter] = nearest;
-  row[AT.nearest_distance_m] = Math.sqrt(nearestSquared) * world.cellSizeM;
-  row[AT.nearest_azimuth_deg] = azimuth === -180 ? 180 : azimuth;
-  row[AT.emitter_in_view] = emitterInView(scene, pose, frame) ? 1 : 0;
+  row[at + AT.x] = pose.x;
+  row[at + AT.y] = pose.y;
+  row[at + AT.heading] = HEADING_INDEX[pose.heading];
+  row[at + AT.material_under] = world.material[pose.y * world.width + pose.x];
+  row[at + AT.material_ahead] = world.material[aheadCell];
+  row[at + AT.wall_ahead] = world.solid[aheadCell];
+  row[at + AT.nearest_emitter] = nearest;
+  row[at + AT.nearest_distance_m] = Math.sqrt(nearestSquared) * world.cellSizeM;
+  row[at + AT.nearest_azimuth_deg] = azimuth === -180 ? 180 : azimuth;
+  row[at + AT.emitter_in_view] = emitterInView(scene, pose, frame) ? 1 : 0;
+}
+
+/** Writes the ground truth of one step into `row` (LATENT_NAMES order). */
+export function latentRow(scene: SensoryScene, pose: Pose, transition: Transition, row: Float64Array): void {
+  poseLatents(scene, pose, row);
   row[AT.moved] = transition.moved ? 1 : 0;
   row[AT.bumped] = transition.bumped ? 1 : 0;
 }
@@ -74,4 +83,27 @@ export function latentsAt(
   const row = new Float64Array(LATENT_NAMES.length);
   latentRow(sceneFor(world, settings), pose, transition, row);
   return Object.fromEntries(LATENT_NAMES.map((name, i) => [name, row[i]])) as Record<LatentName, number>;
+}
+
+/** The pose-only latents of every pose visited, worked out on the first visit (the world is static). */
+export class PoseLatentTable {
+  /** [poses, POSE_LATENTS]; the row of pose p is valid once `rowOf(p, …)` has returned. */
+  readonly rows: Float32Array;
+  private readonly known: Uint8Array; // [poses]
+
+  constructor(private readonly scene: SensoryScene) {
+    const poses = poseCount(scene.world.width, scene.world.height);
+    this.rows = new Float32Array(poses * POSE_LATENTS);
+    this.known = new Uint8Array(poses);
+  }
+
+  /** The offset in `rows` of the pose-only latents of `pose`, whose pose index is p. */
+  rowOf(p: number, pose: Pose): number {
+    const at = p * POSE_LATENTS;
+    if (this.known[p] === 0) {
+      poseLatents(this.scene, pose, this.rows, at);
+      this.known[p] = 1;
+    }
+    return at;
+  }
 }

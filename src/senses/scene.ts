@@ -1,10 +1,11 @@
+import { poseCount } from '../world/heading.js';
 import type { World } from '../world/types.js';
 import { dbToPower, spectrumShapeDb, THUD } from './acoustics.js';
 import { DEFAULT_SENSE_SETTINGS, type ChannelName, type SenseSettings } from './channel.js';
 import { channelSize } from './registry.js';
 import { bandCentresHz } from './mel.js';
 import { buildSightRays, illumination, type SightRays } from './sight-rays.js';
-import { soundCellTable } from './sound-table.js';
+import { FarEarGains, soundCellTable } from './sound-table.js';
 
 /**
  * Everything about a world and sense settings that does not change from step to step,
@@ -16,6 +17,8 @@ export interface SensoryScene {
   readonly bandsHz: Float64Array; // [bands]
   readonly ambientPower: number; // power per band, both ears
   readonly emitterPower1m: Float64Array; // [emitters, bands] power at 1 m
+  /** The far ear's head-shadow gains by source offset (sound-table.ts). */
+  readonly farEar: FarEarGains;
   readonly footstepPower: Float32Array; // [materials, bands] at the ears
   readonly thudPower: Float32Array; // [bands] at the ears
   readonly cellColour: Float32Array; // [cells, 3] what the eye sees at each cell
@@ -27,7 +30,7 @@ export interface SensoryScene {
   readonly soundCells: (Float32Array | undefined)[];
   /** Scratch sum of powers [2, bands] for one step, reused so sensing allocates nothing. */
   readonly power: Float64Array;
-  /** Per (cell, heading) the map cell seen at each sight-field cell or −1 (sight.ts), built on first use. */
+  /** Per pose (world/heading.ts poseIndex) the map cell seen at each sight-field cell or −1 (sight.ts), built on first use. */
   readonly viewCells: (Int32Array | undefined)[];
 }
 
@@ -66,18 +69,19 @@ export function createScene(world: World, settings: SenseSettings = DEFAULT_SENS
   bandPowers(THUD.levelDb, THUD, bandsHz, thudPower, 0);
   const { width, depth } = settings.sight;
   return {
-    world, settings, bandsHz, ambientPower: dbToPower(world.ambientDb), emitterPower1m, footstepPower, thudPower,
+    world, settings, bandsHz, ambientPower: dbToPower(world.ambientDb), emitterPower1m,
+    farEar: new FarEarGains(bandsHz, world.height), footstepPower, thudPower,
     cellColour: colours(world), rays: buildSightRays(width, depth), light: illumination(width, depth),
     sizes: { sight: channelSize('sight', settings), sound: channelSize('sound', settings), touch: channelSize('touch', settings), motor: channelSize('motor', settings) },
     soundCells: new Array(world.width * world.height),
-    viewCells: new Array(world.width * world.height * 4),
+    viewCells: new Array(poseCount(world.width, world.height)),
     power: new Float64Array(2 * bands),
   };
 }
 
 /** The sound table of cell i (see sound-table.ts), built on first use. */
 export function soundTableAt(scene: SensoryScene, cell: number): Float32Array {
-  return (scene.soundCells[cell] ??= soundCellTable(scene.world, scene.bandsHz, scene.emitterPower1m, cell));
+  return (scene.soundCells[cell] ??= soundCellTable(scene.world, scene.emitterPower1m, scene.farEar, cell));
 }
 
 const scenes = new WeakMap<World, Map<string, SensoryScene>>();

@@ -1,4 +1,4 @@
-import { HEADING_INDEX } from '../world/heading.js';
+import { HEADING_INDEX, poseIndex } from '../world/heading.js';
 import type { Pose } from '../world/types.js';
 import type { SensoryScene } from './scene.js';
 
@@ -22,9 +22,9 @@ export function visibleCell(scene: SensoryScene, pose: Pose, k: number): number 
   return ty * world.width + tx;
 }
 
-/** The map cell seen at every sight-field cell from `pose` (−1 where dark), computed once per cell and heading. */
+/** The map cell seen at every sight-field cell from `pose` (−1 where dark), computed once per pose. */
 export function viewFrom(scene: SensoryScene, pose: Pose): Int32Array {
-  const key = (pose.y * scene.world.width + pose.x) * 4 + HEADING_INDEX[pose.heading];
+  const key = poseIndex(scene.world.width, pose);
   let view = scene.viewCells[key];
   if (view == null) {
     view = new Int32Array(scene.light.length);

@@ -1,4 +1,4 @@
-import { HEADINGS, type Heading } from './types.js';
+import { HEADINGS, type Heading, type Pose } from './types.js';
 
 /**
  * Index of each heading in HEADINGS order (0 north, 1 east, 2 south, 3 west): the class
@@ -35,4 +35,14 @@ export function leftOf(heading: Heading): Heading {
 /** The heading after a quarter turn to the right. */
 export function rightOf(heading: Heading): Heading {
   return HEADINGS[(HEADING_INDEX[heading] + 1) % 4];
+}
+
+/** Number of poses of a world: every cell in every heading. */
+export function poseCount(width: number, height: number): number {
+  return width * height * HEADINGS.length;
+}
+
+/** Index of a pose among poseCount: (y · width + x) · 4 + heading index, so a cell's four headings are adjacent. */
+export function poseIndex(width: number, pose: Pose): number {
+  return (pose.y * width + pose.x) * HEADINGS.length + HEADING_INDEX[pose.heading];
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { latentsAt } from '../../src/collect/latents.js';
+import { LATENT_NAMES } from '../../src/collect/dataset.js';
+import { latentsAt, POSE_LATENTS } from '../../src/collect/latents.js';
 import type { Heading } from '../../src/world/types.js';
 import { tinyWorld } from '../world/fixtures.js';
 
@@ -33,5 +34,12 @@ describe('latentsAt', () => {
   it('sees the emitter when it is in the sight field and not when facing away', () => {
     expect(at(3, 5, 'north').emitter_in_view).toBe(1);
     expect(at(3, 5, 'south').emitter_in_view).toBe(0);
+  });
+});
+
+describe('latent layout', () => {
+  it('ends with moved and bumped, the two latents that depend on the step rather than the pose', () => {
+    // The collector keeps the first POSE_LATENTS per pose and writes these two every step.
+    expect(LATENT_NAMES.slice(POSE_LATENTS)).toEqual(['moved', 'bumped']);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { HEADING_INDEX, headingFrame, leftOf, rightOf } from '../../src/world/heading.js';
+import { HEADING_INDEX, headingFrame, leftOf, poseCount, poseIndex, rightOf } from '../../src/world/heading.js';
 import { HEADINGS } from '../../src/world/types.js';
 
 // The compass on a map drawn in rows: north is up the page, so y (the row) decreases going
@@ -32,5 +32,13 @@ describe('heading geometry', () => {
   it('indexes headings in HEADINGS order, north 0 to west 3', () => {
     expect(HEADINGS.map((h) => HEADING_INDEX[h])).toEqual([0, 1, 2, 3]);
     expect(HEADINGS).toEqual(['north', 'east', 'south', 'west']);
+  });
+});
+
+describe('poseIndex', () => {
+  it('numbers the four headings of a cell next to each other: (y · width + x) · 4 + heading', () => {
+    // Width 7: cell (2, 3) is 3 · 7 + 2 = 23, so its headings are 92..95 (by hand).
+    expect(HEADINGS.map((heading) => poseIndex(7, { x: 2, y: 3, heading }))).toEqual([92, 93, 94, 95]);
+    expect(poseCount(7, 5)).toBe(140);
   });
 });

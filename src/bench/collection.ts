@@ -1,11 +1,10 @@
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { collect } from '../collect/collector.js';
-import type { PolicyName } from '../collect/policies.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
 import type { World } from '../world/types.js';
-import type { BenchResult } from './result.js';
+import { measure, wallSeconds, type Figure } from './figure.js';
 
 const WORLDS_DIR = fileURLToPath(new URL('../../worlds/', import.meta.url));
 
@@ -16,48 +15,15 @@ function largestDemoWorld(): { world: World; file: string } {
   return worlds.reduce((a, b) => (b.world.width * b.world.height > a.world.width * a.world.height ? b : a));
 }
 
-/** Timed repeats after one untimed run of the same work (so the timed runs meet compiled code). */
-const REPEATS = 3;
-
-const median = (values: readonly number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
-
-/** Steps per second of wall time and per CPU-second for each of REPEATS timed collections. */
-function timeCollection(world: World, policy: PolicyName, steps: number): { wall: number[]; cpu: number[] } {
-  const options = { policy, steps, episodeSteps: 200 };
-  collect(world, options, DEFAULT_SENSE_SETTINGS, 0);
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  for (let seed = 1; seed <= REPEATS; seed++) {
-    const cpu0 = process.cpuUsage();
-    const wall0 = performance.now();
-    collect(world, options, DEFAULT_SENSE_SETTINGS, seed);
-    wall.push(steps / ((performance.now() - wall0) / 1000));
-    const used = process.cpuUsage(cpu0);
-    cpu.push(steps / ((used.user + used.system) / 1e6));
-  }
-  return { wall, cpu };
-}
-
 /**
- * Collection throughput (steps per second of wall time, all four senses and every latent)
- * on the largest demo world, for the wander and seek policies: the median of REPEATS runs,
- * min–max in the detail. The detail gives steps per CPU-second too: on a busy machine wall
- * time overstates the cost of one step.
+ * Collection throughput in steps per second of wall time (wander policy, all four senses
+ * and every latent, one thread) on the largest demo world.
  */
-export async function benchCollection(opts: { quick: boolean }): Promise<BenchResult[]> {
+export async function benchCollection(repeats: number, quick: boolean): Promise<{ figure: Figure; detail: string }> {
   const { world, file } = largestDemoWorld();
-  const steps = opts.quick ? 20_000 : 200_000;
+  const steps = quick ? 20_000 : 200_000;
+  let seed = 0;
+  const figure = await measure(repeats, async () => steps / await wallSeconds(() => collect(world, { policy: 'wander', steps, episodeSteps: 200 }, DEFAULT_SENSE_SETTINGS, seed++)));
   const { sight, sound } = DEFAULT_SENSE_SETTINGS;
-  return (['wander', 'seek'] as const).map((policy) => {
-    const { wall, cpu } = timeCollection(world, policy, steps);
-    return {
-      name: `collection (${policy})`,
-      value: Math.round(median(wall)),
-      unit: 'steps/s',
-      detail: `${steps} steps on ${file} (${world.width}×${world.height} cells, ${world.emitters.length} emitters), `
-        + `sight ${sight.width}×${sight.depth}, ${sound.bands} sound bands, one thread, median of ${REPEATS} `
-        + `(${Math.round(Math.min(...wall))}–${Math.round(Math.max(...wall))}); `
-        + `${Math.round(median(cpu))} steps per CPU-second`,
-    };
-  });
+  return { figure, detail: `${steps} wander steps on ${file} (${world.width}×${world.height} cells), sight ${sight.width}×${sight.depth}, ${sound.bands} sound bands, one thread` };
 }

@@ -1,51 +1,34 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
-import { availableParallelism, tmpdir } from 'node:os';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { readCellRecord, type CellRecord } from '../results/cell-record.js';
-import { outputPath } from '../results/layout.js';
-import type { BenchResult } from './result.js';
+import { timeCli } from './cli-process.js';
+import { figureOf, type Figure } from './figure.js';
 
-const ROOT = fileURLToPath(new URL('../../', import.meta.url));
-const QUICKSTART = join(ROOT, 'configs', 'quickstart.yaml');
-const CLI = join(ROOT, 'bin', 'crosswise.js');
+/** The fixed 15-cell copy of the quickstart that the sweep figures time. */
+export const FIXED_QUICKSTART = fileURLToPath(new URL('./quickstart-15.yaml', import.meta.url));
 
-function runCli(args: readonly string[]): number {
-  const t0 = performance.now();
-  const result = spawnSync(process.execPath, [CLI, ...args], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] });
-  if (result.status !== 0) throw new Error(`crosswise ${args.join(' ')} exited with ${result.status}: ${result.stderr.trim().split('\n')[0]}`);
-  return (performance.now() - t0) / 1000;
-}
-
-function cellTimings(out: string): CellRecord['seconds'][] {
-  return readdirSync(outputPath(out, 'cells')).map((id) => readCellRecord(out, id).seconds);
-}
-
-const sum = (values: readonly number[]) => values.reduce((a, b) => a + b, 0);
-
-/**
- * Wall time of the quickstart sweep (`npm start`) in a fresh output folder, and where the
- * time goes: collect, train and probe summed over cells (CPU-side seconds inside the
- * workers, so they add up to more than the wall time when workers run side by side),
- * and the report rebuilt on its own.
- */
-export async function benchSweep(): Promise<BenchResult[]> {
+/** Wall seconds of one `crosswise run` of the fixed quickstart into a fresh folder, report included. */
+function runOnce(jobs: number): number {
   const out = mkdtempSync(join(tmpdir(), 'crosswise-bench-'));
   try {
-    const jobs = availableParallelism();
-    const wallS = runCli(['run', QUICKSTART, '--out', out, '--plain', '--jobs', String(jobs)]);
-    const cells = cellTimings(out);
-    const reportS = runCli(['report', out]);
-    const detail = `${cells.length} cells, summed over cells on ${jobs} workers`;
-    return [
-      { name: 'quickstart sweep', value: wallS, unit: 's wall', detail: `configs/quickstart.yaml, ${cells.length} cells, --jobs ${jobs}, including the report` },
-      { name: 'quickstart collect', value: sum(cells.map((c) => c.collect)), unit: 's', detail },
-      { name: 'quickstart train', value: sum(cells.map((c) => c.train)), unit: 's', detail },
-      { name: 'quickstart probe', value: sum(cells.map((c) => c.probe)), unit: 's', detail },
-      { name: 'quickstart report', value: reportS, unit: 's wall', detail: 'crosswise report on the finished sweep, process start included' },
-    ];
+    return timeCli(['run', FIXED_QUICKSTART, '--out', out, '--plain', '--jobs', String(jobs)]);
   } finally {
     rmSync(out, { recursive: true, force: true });
   }
+}
+
+/**
+ * Wall time of the fixed quickstart with one worker and with two, each from process start to
+ * the written report; one `--jobs 2` run warms the caches first. `onRun` hears of each run,
+ * since every one takes most of a minute.
+ */
+export function benchQuickstart(repeats: number, onRun: (label: string) => void): { jobs1: Figure; jobs2: Figure } {
+  onRun('warm-up, --jobs 2');
+  runOnce(2);
+  const times = (jobs: number) => figureOf(Array.from({ length: repeats }, (_, r) => {
+    onRun(`--jobs ${jobs}, ${r + 1} of ${repeats}`);
+    return runOnce(jobs);
+  }));
+  return { jobs1: times(1), jobs2: times(2) };
 }

@@ -1,28 +1,31 @@
-import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import type { BenchResult } from './result.js';
+import { figureOf, type Figure } from './figure.js';
+import { findPython, runPythonJson } from './python.js';
 
 const SCRIPT = fileURLToPath(new URL('./torch-reference.py', import.meta.url));
-// The first interpreter on PATH may be a private one (pyenv, conda) that cannot see the
-// system's packages, so the system interpreter is tried as well.
-const PYTHONS = ['python3', '/usr/bin/python3'];
+
+/** PyTorch's figure for the reference MLP and the BLAS under it. */
+export interface TorchReference {
+  readonly samplesPerS: Figure;
+  readonly torch: string;
+  /** 'openblas', 'mkl', 'blis', 'atlas', 'reference' (Netlib's unoptimised BLAS) or 'unknown'. */
+  readonly blas: string;
+  readonly blasLibrary: string;
+  /** A line to print when the figure understates PyTorch, or null. */
+  readonly warning: string | null;
+}
 
 /**
- * The reference MLP trained by PyTorch on one CPU thread, when python3 can import torch;
- * otherwise a line saying it is absent. Nothing is installed or downloaded.
+ * The reference MLP trained by PyTorch on one thread (OPENBLAS_NUM_THREADS=1 and
+ * torch.set_num_threads(1)), a warm-up epoch then `repeats` timed ones; null when no Python
+ * on this machine imports torch. Nothing is installed or downloaded.
  */
-export async function benchTorchReference(opts: { quick: boolean }): Promise<BenchResult[]> {
-  const python = PYTHONS.find((candidate) => spawnSync(candidate, ['-c', 'import torch']).status === 0);
-  if (python == null) {
-    return [{ name: 'train reference MLP (PyTorch)', value: NaN, unit: 'samples/s', detail: 'not present: python3 cannot import torch (e.g. Debian python3-torch)' }];
-  }
-  const run = spawnSync(python, [SCRIPT, ...(opts.quick ? ['--quick'] : [])], { encoding: 'utf8' });
-  if (run.status !== 0) throw new Error(`PyTorch reference failed: ${run.stderr.trim().split('\n').pop()}`);
-  const result = JSON.parse(run.stdout) as { samples_per_s: number; torch: string; rounds: number };
-  return [{
-    name: 'train reference MLP (PyTorch)',
-    value: result.samples_per_s,
-    unit: 'samples/s',
-    detail: `160→128→128→48 relu, MSE, adam, batch 256, torch ${result.torch}, one CPU thread, median of ${result.rounds}`,
-  }];
+export function benchTorchReference(repeats: number, quick: boolean): TorchReference | null {
+  const python = findPython(['torch']);
+  if (python == null) return null;
+  const result = runPythonJson<{ samples_per_s: number[]; torch: string; blas: string; blas_library: string }>(python, SCRIPT, [String(repeats), quick ? '2560' : '10240']);
+  const warning = result.blas === 'reference'
+    ? `PyTorch runs on the reference BLAS (${result.blas_library}), about ten times slower than with OpenBLAS; on Debian install libopenblas0-pthread for a fair comparison`
+    : null;
+  return { samplesPerS: figureOf(result.samples_per_s), torch: result.torch, blas: result.blas, blasLibrary: result.blas_library, warning };
 }

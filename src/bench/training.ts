@@ -2,12 +2,13 @@ import { fileURLToPath } from 'node:url';
 import { collect } from '../collect/collector.js';
 import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
-import { initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
+import { BACKENDS, initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
+import { stackedEpochSeconds } from '../learn/stacked.js';
 import { DEFAULTS } from '../experiment/defaults.js';
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
-import type { BenchResult } from './result.js';
+import { figureOf, type Figure } from './figure.js';
 
 const DEMO_WORLD = fileURLToPath(new URL('../../worlds/greenhouse.yaml', import.meta.url));
 
@@ -46,32 +47,48 @@ const DEFAULT_SPEC: LearnerSpec = {
   supervisedTargets: DEFAULTS.probe.targets,
 };
 
-/** A spec trained for exactly `epochs` epochs: patience = epochs turns early stopping off, so every epoch is timed. */
-function timedSpec(spec: LearnerSpec, epochs: number): LearnerSpec {
-  return { ...spec, train: { ...spec.train, epochs, patience: epochs } };
+/** Training samples per second of each epoch after the first (the warm-up); early stopping is off. */
+async function epochRates(spec: LearnerSpec, work: { data: Dataset; split: DatasetSplit }, repeats: number): Promise<Figure> {
+  const epochs = repeats + 1;
+  const { encoder, log } = await trainLearner({ ...spec, train: { ...spec.train, epochs, patience: epochs } }, work.data, work.split, { seed: 1 });
+  encoder.dispose();
+  return figureOf(log.slice(1).map((l) => work.split.train.length / l.seconds));
 }
 
-/** Training samples per second after a warm-up epoch (median over rounds). */
-async function samplesPerSecond(spec: LearnerSpec, data: Dataset, split: DatasetSplit, rounds: number): Promise<number> {
-  const rates: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const { encoder, log } = await trainLearner(spec, data, split, { seed: 1 });
-    encoder.dispose();
-    const timed = log.slice(1);
-    rates.push((timed.length * split.train.length) / timed.reduce((s, l) => s + l.seconds, 0));
+/** The reference MLP of the PyTorch comparison: 160 → 128 → 128 → 48, relu, MSE, Adam, batch 256. */
+const REFERENCE_SPEC: LearnerSpec = { ...DEFAULT_SPEC, encoder: { hidden: [128, 128], activation: 'relu' } };
+const REFERENCE_SIZES: Record<ChannelName, number> = { sight: 160, sound: 48, touch: 0, motor: 5 };
+
+/** Reference-MLP samples per second on each backend (one model, one thread). */
+export async function benchReference(repeats: number, quick: boolean): Promise<Record<BackendName, Figure>> {
+  const rates = {} as Record<BackendName, Figure>;
+  for (const backend of BACKENDS) {
+    await initBackend(backend);
+    // The cpu backend is ~20× slower: a quarter of the rows keeps its epochs short.
+    const rows = (quick || backend === 'cpu' ? 2560 : 10240) + 100;
+    rates[backend] = await epochRates(REFERENCE_SPEC, workload(rows, REFERENCE_SIZES), repeats);
   }
-  return rates.sort((a, b) => a - b)[Math.floor(rates.length / 2)];
+  return rates;
 }
 
-interface Case {
-  readonly label: string;
-  readonly spec: Partial<LearnerSpec>;
+/** Models trained side by side in the stacked measurement: the quickstart's three seeds of one learner. */
+export const STACKED_MODELS = 3;
+
+/**
+ * Samples per second summed over STACKED_MODELS reference MLPs trained as one stacked model on
+ * wasm (batched matrix products; see learn/stacked.ts), each epoch after the first a repeat.
+ */
+export async function benchStacked(repeats: number, quick: boolean): Promise<Figure> {
+  await initBackend('wasm');
+  const rows = quick ? 1024 : 2560;
+  const seconds = stackedEpochSeconds({ models: STACKED_MODELS, widths: [160, 128, 128, 48], batch: 256, rows, epochs: repeats + 1 }, 0);
+  return figureOf(seconds.slice(1).map((s) => (STACKED_MODELS * rows) / s));
 }
 
-const CASES: readonly Case[] = [
-  { label: 'predict sight→sound', spec: { objective: 'predict' } },
-  { label: 'predict sight→sound', spec: { objective: 'predict', rule: 'feedback-alignment' } },
-  { label: 'predict sight→sound', spec: { objective: 'predict', rule: 'direct-feedback-alignment' } },
+const CASES: readonly { label: string; spec: Partial<LearnerSpec> }[] = [
+  { label: 'predict sight→sound, backprop', spec: { objective: 'predict' } },
+  { label: 'predict sight→sound, feedback alignment', spec: { objective: 'predict', rule: 'feedback-alignment' } },
+  { label: 'predict sight→sound, direct feedback alignment', spec: { objective: 'predict', rule: 'direct-feedback-alignment' } },
   { label: 'predict sight+motor→next touch', spec: { objective: 'predict', input: ['sight', 'motor'], target: ['touch'], offset: 1 } },
   { label: 'reconstruct sight', spec: { objective: 'reconstruct' } },
   { label: 'forecast sight', spec: { objective: 'forecast' } },
@@ -79,33 +96,11 @@ const CASES: readonly Case[] = [
   { label: 'supervised from sight', spec: { objective: 'supervised' } },
 ];
 
-/** Training throughput per objective at default sizes on greenhouse data, and the 160→128→128→48 reference on cpu and wasm. */
-export async function benchTraining(opts: { quick: boolean; backend: BackendName }): Promise<BenchResult[]> {
-  const rounds = opts.quick ? 1 : 3;
-  const epochs = opts.quick ? 2 : 3;
-  const rows: BenchResult[] = [];
-  await initBackend(opts.backend);
-  const defaults = demoWorkload(opts.quick ? 2700 : 10300);
-  for (const c of CASES) {
-    const spec = timedSpec({ ...DEFAULT_SPEC, ...c.spec }, epochs);
-    rows.push({
-      name: `train ${spec.objective} (${spec.rule}, ${opts.backend})`,
-      value: await samplesPerSecond(spec, defaults.data, defaults.split, rounds),
-      unit: 'samples/s',
-      detail: `${c.label}, hidden [${spec.encoder.hidden.join(', ')}] ${spec.encoder.activation}, batch ${spec.train.batch}, ${spec.train.optimizer}, median of ${rounds}`,
-    });
-  }
-  const reference = workload(opts.quick ? 2660 : 10340, { sight: 160, sound: 48, touch: 0, motor: 5 });
-  const referenceSpec = timedSpec({ ...DEFAULT_SPEC, encoder: { hidden: [128, 128], activation: 'relu' } }, epochs);
-  for (const backend of ['wasm', 'cpu'] as const) {
-    await initBackend(backend);
-    rows.push({
-      name: `train reference MLP (${backend})`,
-      value: await samplesPerSecond(referenceSpec, reference.data, reference.split, backend === 'cpu' ? 1 : rounds),
-      unit: 'samples/s',
-      detail: `160→128→128→48 relu, MSE, adam, batch 256 (PyTorch 1 thread ~175k, STACK.md), median of ${backend === 'cpu' ? 1 : rounds}`,
-    });
-  }
-  await initBackend(opts.backend);
-  return rows;
+/** Samples per second per objective and rule at the default sizes ([128, 64] relu, batch 256) on greenhouse data. */
+export async function benchObjectives(repeats: number, quick: boolean, backend: BackendName): Promise<Record<string, Figure>> {
+  await initBackend(backend);
+  const work = demoWorkload(quick ? 2700 : 10300);
+  const rates: Record<string, Figure> = {};
+  for (const c of CASES) rates[c.label] = await epochRates({ ...DEFAULT_SPEC, ...c.spec }, work, repeats);
+  return rates;
 }

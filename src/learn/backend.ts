@@ -1,6 +1,8 @@
 import * as tf from '@tensorflow/tfjs-core';
 import '@tensorflow/tfjs-backend-cpu';
 import '@tensorflow/tfjs-backend-wasm';
+import { registerDenseKernels } from './dense-kernels.js';
+import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
 import { registerStockGradients } from './stock-gradients.js';
 import type { BackendName } from './spec.js';
@@ -19,6 +21,8 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     tf.env().set('PROD', true);
     registerStockGradients();
     registerFastMatMulGradient();
+    registerOptimizerKernels();
+    registerDenseKernels();
     gradientsReady = true;
   }
   // engine().backendName stays null until a backend is chosen; getBackend() would pick one.

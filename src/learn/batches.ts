@@ -3,34 +3,34 @@ import type { ExampleSet } from './examples.js';
 import type { Matrix } from './matrix.js';
 import type { Batch } from './rules.js';
 
-/** Examples of one split uploaded once; batches are gathered from them by row index. */
-export interface SplitTensors {
-  readonly n: number;
-  readonly inputs: tf.Tensor2D[];
-  readonly extra: tf.Tensor2D | null;
-  readonly target: tf.Tensor2D | null;
+/** Rows of a matrix copied into a new [rows.length, cols] array. */
+export function takeRows(m: Matrix, rows: ArrayLike<number>): Float32Array {
+  const { cols, data } = m;
+  const out = new Float32Array(rows.length * cols);
+  // An element loop: a subarray per row would allocate a view object for every row.
+  for (let i = 0; i < rows.length; i++) {
+    const from = rows[i] * cols;
+    const to = i * cols;
+    for (let j = 0; j < cols; j++) out[to + j] = data[from + j];
+  }
+  return out;
 }
 
-const upload = (m: Matrix): tf.Tensor2D => tf.tensor2d(m.data, [m.rows, m.cols]);
-
-/** Copies a split's examples into tensors once per training run. */
-export function uploadExamples(e: ExampleSet): SplitTensors {
-  return {
-    n: e.n,
-    inputs: e.inputs.map(upload),
-    extra: e.extra == null ? null : upload(e.extra),
-    target: e.target == null ? null : upload(e.target),
+/**
+ * The rows of a split that form one mini-batch (call inside tf.tidy). They are copied on the
+ * host and uploaded as one tensor per matrix: on wasm a gather kernel costs more than the
+ * copy and the upload together. A matrix used twice (an autoencoder's input and target)
+ * becomes one tensor.
+ */
+export function batchOf(e: ExampleSet, rows: Int32Array): Batch {
+  const uploaded = new Map<Matrix, tf.Tensor2D>();
+  const pick = (m: Matrix): tf.Tensor2D => {
+    let t = uploaded.get(m);
+    if (t == null) {
+      t = tf.tensor2d(takeRows(m, rows), [rows.length, m.cols]);
+      uploaded.set(m, t);
+    }
+    return t;
   };
-}
-
-/** Frees a split's tensors. */
-export function disposeSplit(s: SplitTensors): void {
-  tf.dispose([...s.inputs, ...(s.extra == null ? [] : [s.extra]), ...(s.target == null ? [] : [s.target])]);
-}
-
-/** The rows of a split that form one mini-batch (call inside tf.tidy). */
-export function gatherBatch(s: SplitTensors, rows: Int32Array): Batch {
-  const index = tf.tensor1d(rows, 'int32');
-  const pick = (t: tf.Tensor2D): tf.Tensor2D => tf.gather(t, index);
-  return { inputs: s.inputs.map(pick), extra: s.extra == null ? null : pick(s.extra), target: s.target == null ? null : pick(s.target) };
+  return { inputs: e.inputs.map(pick), extra: e.extra == null ? null : pick(e.extra), target: e.target == null ? null : pick(e.target) };
 }

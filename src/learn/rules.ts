@@ -1,6 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
-import { matMulPlain } from './plain-matmul.js';
+import { columnSums, matMulT } from './dense-kernels.js';
 import { glorotUniform } from './init.js';
 import { ACTIVATION_REGISTRY, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
 import type { RuleName } from './spec.js';
@@ -56,7 +56,7 @@ function outputErrors(caches: readonly ForwardCache[], loss: LossOfOutputs): { l
 
 /** ∂L/∂W = inputᵀ·δ and ∂L/∂b = Σ_rows δ for a layer with input x and error δ at its pre-activation. */
 function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
-  return [matMulPlain(x, delta, true, false), tf.sum(delta, 0)];
+  return [matMulT(x, delta, true, false), columnSums(delta)];
 }
 
 /** δ_l = g ⊙ f′(a_l) for hidden layer l (1-based), given the signal g arriving at its output. */
@@ -73,11 +73,11 @@ function hiddenDelta(tower: Tower, cache: ForwardCache, l: number, g: tf.Tensor2
 function feedbackAlignmentBackward(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, B: readonly tf.Tensor2D[]): tf.Tensor[] {
   const k = tower.encoder.length;
   const grads: tf.Tensor[][] = [layerGrads(cache.headInput, e)];
-  let g = matMulPlain(e, B[k - 1], false, true) as tf.Tensor2D; // [batch, hidden_k]
+  let g = matMulT(e, B[k - 1], false, true); // [batch, hidden_k]
   for (let l = k; l >= 1; l--) {
     const delta = hiddenDelta(tower, cache, l, g);
     grads.unshift(layerGrads(cache.post[l - 1], delta));
-    if (l > 1) g = matMulPlain(delta, B[l - 2], false, true) as tf.Tensor2D;
+    if (l > 1) g = matMulT(delta, B[l - 2], false, true);
   }
   return grads.flat();
 }
@@ -92,7 +92,11 @@ function directFeedbackBackward(tower: Tower, cache: ForwardCache, e: tf.Tensor2
   return [...hidden, ...layerGrads(cache.headInput, e)];
 }
 
-function randomFeedbackRule(
+/**
+ * A rule that runs the forward pass once, takes the output error of each tower from the
+ * loss, and sends it down that tower with `backward`.
+ */
+function errorRule(
   feedbackShapes: (tower: Tower) => [number, number][],
   backward: (tower: Tower, cache: ForwardCache, e: tf.Tensor2D, feedback: readonly tf.Tensor2D[]) => tf.Tensor[],
 ): Rule {
@@ -106,6 +110,18 @@ function randomFeedbackRule(
   };
 }
 
+/**
+ * The forward weights in feedback-alignment order, [W_2, …, W_k, W_head over its
+ * representation rows]: sending the error back through their transposes is exact backprop.
+ */
+function forwardWeights(tower: Tower): tf.Tensor2D[] {
+  const { hidden } = widths(tower);
+  const head = tower.head!.W as tf.Tensor2D;
+  const representation = hidden[hidden.length - 1];
+  const headRows = head.shape[0] === representation ? head : tf.slice(head, [0, 0], [representation, -1]);
+  return [...tower.encoder.slice(1).map((l) => l.W as tf.Tensor2D), headRows];
+}
+
 function widths(tower: Tower): { hidden: number[]; out: number } {
   if (tower.head == null) throw new Error('a rule needs a tower with a head');
   return { hidden: tower.encoder.map(layerWidth), out: layerWidth(tower.head) };
@@ -113,15 +129,13 @@ function widths(tower: Tower): { hidden: number[]; out: number } {
 
 /** Every learning rule by its config name. */
 export const RULE_REGISTRY: Record<RuleName, Rule> = {
-  backprop: {
-    feedbackShapes: () => [],
-    gradients: (towers, _feedback, batch, loss) => trueGradients(towers, batch, loss),
-  },
-  'feedback-alignment': randomFeedbackRule((tower) => {
+  // The same kernels reverse-mode autodiff would run, without the tape's copy of every saved tensor.
+  backprop: errorRule(() => [], (tower, cache, e) => feedbackAlignmentBackward(tower, cache, e, forwardWeights(tower))),
+  'feedback-alignment': errorRule((tower) => {
     const { hidden, out } = widths(tower);
     return [...hidden.slice(1).map((h, i): [number, number] => [hidden[i], h]), [hidden[hidden.length - 1], out]];
   }, feedbackAlignmentBackward),
-  'direct-feedback-alignment': randomFeedbackRule((tower) => {
+  'direct-feedback-alignment': errorRule((tower) => {
     const { hidden, out } = widths(tower);
     return hidden.map((h): [number, number] => [out, h]);
   }, directFeedbackBackward),

@@ -1,12 +1,14 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import { permutation, type Rng } from '../random.js';
-import { disposeSplit, gatherBatch, uploadExamples, type SplitTensors } from './batches.js';
+import { batchOf } from './batches.js';
+import { BatchLosses } from './batch-losses.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
-import { TrainingStatistics } from './examples.js';
+import { TrainingStatistics, type ExampleSet } from './examples.js';
 import { createExtractor } from './extractor.js';
 import { createTower, disposeTower, type Tower } from './network.js';
+import { createOptimizer, type Optimizer } from './optimizers.js';
 import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
 import { allVariables, createFeedback, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
@@ -53,40 +55,46 @@ interface EpochContext {
   readonly rule: Rule;
   readonly feedback: tf.Tensor2D[][];
   readonly signal: TrainingSignal;
-  readonly optimizer: tf.Optimizer;
+  readonly optimizer: Optimizer;
   readonly shuffle: Rng;
   readonly alignEvery: number | undefined;
   step: number;
 }
 
-/** One pass over the training split; returns the example-weighted mean loss and the angles. */
-function trainEpoch(ctx: EpochContext, train: SplitTensors, epoch: number): { loss: number; angles: number[] } {
+/**
+ * One pass over the training split; returns the example-weighted mean loss and the angles.
+ * Batch losses are read once, at the end: a loss that became NaN or infinite in any batch
+ * fails the epoch with that value (the steps after it only move weights that are lost anyway).
+ */
+function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
   const { spec, towers, rule, feedback, signal, optimizer } = ctx;
   const vars = allVariables(towers);
   const order = permutation(train.n, ctx.shuffle);
   const angles = new AngleAverage();
-  let sum = 0;
-  let count = 0;
-  for (let start = 0; start < train.n; start += spec.train.batch) {
-    const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
-    if (rows.length < minBatch(spec)) continue;
-    const last = start + spec.train.batch >= train.n;
-    const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
-    const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
-    const value = tf.tidy(() => {
-      const batch = gatherBatch(train, rows);
-      const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
-      const { loss, grads } = rule.gradients(towers, feedback, batch, lossOf);
-      if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
-      optimizer.applyGradients(Object.fromEntries(vars.map((v, i) => [v.name, grads[i]])));
-      return loss.dataSync()[0];
-    });
-    if (!Number.isFinite(value)) throw new LearnerDivergedError(spec.name, 'train', epoch, value);
-    sum += value * rows.length;
-    count += rows.length;
-    ctx.step += 1;
+  const losses = new BatchLosses();
+  try {
+    for (let start = 0; start < train.n; start += spec.train.batch) {
+      const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
+      if (rows.length < minBatch(spec)) continue;
+      const last = start + spec.train.batch >= train.n;
+      const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
+      const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
+      losses.add(tf.tidy(() => {
+        const batch = batchOf(train, rows);
+        const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
+        const { loss, grads } = rule.gradients(towers, feedback, batch, lossOf);
+        if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
+        optimizer.applyGradients(vars, grads);
+        return loss;
+      }), rows.length);
+      ctx.step += 1;
+    }
+    const { mean, firstNonFinite } = losses.read();
+    if (firstNonFinite != null) throw new LearnerDivergedError(spec.name, 'train', epoch, firstNonFinite);
+    return { loss: mean, angles: angles.means() };
+  } finally {
+    losses.dispose();
   }
-  return { loss: sum / count, angles: angles.means() };
 }
 
 /**
@@ -94,25 +102,22 @@ function trainEpoch(ctx: EpochContext, train: SplitTensors, epoch: number): { lo
  * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
  * of them would be far harder than the shuffled training batches.
  */
-function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: SplitTensors, order: Int32Array): number {
-  let sum = 0;
-  let count = 0;
-  for (let start = 0; start < split.n; start += spec.train.batch) {
-    const end = Math.min(start + spec.train.batch, split.n);
-    if (end - start < minBatch(spec) && count > 0) continue;
-    const rows = order.subarray(start, end);
-    sum += (end - start) * tf.tidy(() => {
-      const batch = gatherBatch(split, rows);
-      const outputs = towerOutputs(towers, batch);
-      return signal.loss(outputs, batch.target).dataSync()[0];
-    });
-    count += end - start;
+function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: ExampleSet, order: Int32Array): number {
+  const losses = new BatchLosses();
+  try {
+    for (let start = 0; start < split.n; start += spec.train.batch) {
+      const end = Math.min(start + spec.train.batch, split.n);
+      if (end - start < minBatch(spec) && losses.count > 0) continue;
+      const rows = order.subarray(start, end);
+      losses.add(tf.tidy(() => {
+        const batch = batchOf(split, rows);
+        return signal.loss(towerOutputs(towers, batch), batch.target);
+      }), end - start);
+    }
+    return losses.read().mean;
+  } finally {
+    losses.dispose();
   }
-  return sum / count;
-}
-
-function makeOptimizer(spec: LearnerSpec): tf.Optimizer {
-  return spec.train.optimizer === 'adam' ? tf.train.adam(spec.train.learningRate) : tf.train.sgd(spec.train.learningRate);
 }
 
 /** Lets timers and UI events run between epochs. */
@@ -123,7 +128,7 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  * epochs in a row bring no lower validation loss. When training ends the weights of the
  * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
-async function runEpochs(ctx: EpochContext, train: SplitTensors, validation: SplitTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
+async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: ExampleSet, options: TrainOptions, log: EpochLog[]): Promise<number> {
   const { spec, towers, signal } = ctx;
   const vars = allVariables(towers);
   const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
@@ -181,8 +186,8 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
   const rule = RULE_REGISTRY[spec.rule];
   const feedback = createFeedback(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
-  const [train, validation] = examples.map(uploadExamples);
-  const optimizer = makeOptimizer(spec);
+  const [train, validation] = examples;
+  const optimizer = createOptimizer(spec.train);
   let bestEpoch = 0;
   try {
     const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
@@ -193,8 +198,6 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   } finally {
     tf.dispose(feedback.flat());
     optimizer.dispose();
-    disposeSplit(train);
-    disposeSplit(validation);
   }
   return { towers, objective, stats, log, bestEpoch };
 }

@@ -53,12 +53,30 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     const { tower, x, y, batch } = setup();
     const params = towerVariables(tower).map((v) => Array.from(v.dataSync()));
     const reference = centralDifferences(params, (p) => referenceLoss(p, x, y, 4));
-    const grads = tf.tidy(() => trueGradients([tower], batch, (o) => meanSquaredError(o[0], batch.target!)).grads.map((g) => Array.from(g.dataSync())));
-    expect(relativeError(grads.flat(), reference.flat())).toBeLessThan(1e-3);
+    const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), RULE_REGISTRY.backprop.gradients([tower], [[]], batch, loss)]
+      .map(({ grads }) => grads.map((g) => Array.from(g.dataSync()))));
+    expect(relativeError(autodiff.flat(), reference.flat())).toBeLessThan(1e-3);
+    expect(relativeError(rule.flat(), reference.flat())).toBeLessThan(1e-3); // the backprop rule's hand-written backward pass
     // The loss itself agrees with the float64 reference to float32 precision.
-    const loss = tf.tidy(() => trueGradients([tower], batch, (o) => meanSquaredError(o[0], batch.target!)).loss.dataSync()[0]);
-    expect(loss).toBeCloseTo(referenceLoss(params, x, y, 4), 5);
+    const value = tf.tidy(() => trueGradients([tower], batch, loss).loss.dataSync()[0]);
+    expect(value).toBeCloseTo(referenceLoss(params, x, y, 4), 5);
     tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
+  });
+
+  it('come out of the backprop rule with the bits of reverse-mode autodiff, extra head inputs included', async () => {
+    // The rule runs the kernels autodiff would run, in the same order, so the two agree
+    // exactly; the head reads the representation plus 2 extra columns, as forecast's does.
+    await initBackend(backend);
+    const rng = createRng(6, 'test');
+    const tower = createTower({ channels: ['sight'], inputWidth: 3, hidden: [4, 3], outputWidth: 2, extraWidth: 2 }, 'relu', { encoder: rng, head: rng });
+    const matrix = (rows: number, cols: number) => tf.tensor2d(Float32Array.from({ length: rows * cols }, () => normal(rng)), [rows, cols]);
+    const batch: Batch = { inputs: [matrix(6, 3)], extra: matrix(6, 2), target: matrix(6, 2) };
+    const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
+    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), RULE_REGISTRY.backprop.gradients([tower], [[]], batch, loss)]
+      .map(({ loss: value, grads }) => [Array.from(value.dataSync()), ...grads.map((g) => Array.from(g.dataSync()))]));
+    expect(rule).toEqual(autodiff);
+    tf.dispose([...towerVariables(tower), ...batch.inputs, batch.extra!, batch.target!]);
   });
 
   it('equal feedback alignment run with B = W (Lillicrap et al. 2016: FA only swaps Wᵀ for B)', async () => {

@@ -126,7 +126,8 @@ describe('failures and resources', () => {
     const { encoder } = await trainLearner(spec, data, split, {
       seed: 1, onEpoch: (_log: EpochLog) => counts.push(tf.memory().numTensors),
     });
-    // From epoch 2 on, the live set is fixed: weights, feedback, optimiser moments, data, best-weight copy.
+    // From epoch 2 on, the live set is fixed: weights, feedback, optimiser moments, best-weight copy
+    // (batches are uploaded step by step and freed with the step).
     expect(counts[2]).toBe(counts[1]);
     expect(counts[3]).toBe(counts[1]);
     // What remains after training is the encoder alone: W and b of each of its 2 layers.

@@ -1,0 +1,45 @@
+import * as tf from '@tensorflow/tfjs-core';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { initBackend } from '../../src/learn/backend.js';
+import { BatchLosses } from '../../src/learn/batch-losses.js';
+import { batchOf, takeRows } from '../../src/learn/batches.js';
+import type { Matrix } from '../../src/learn/matrix.js';
+
+beforeAll(() => initBackend('wasm'));
+
+// A 4 × 3 matrix whose entry (r, c) is 10·r + c, so every copied value names its source.
+const m: Matrix = { rows: 4, cols: 3, data: Float32Array.from({ length: 12 }, (_, i) => 10 * Math.floor(i / 3) + (i % 3)) };
+
+describe('batchOf', () => {
+  it('copies the requested rows in the requested order', () => {
+    expect(Array.from(takeRows(m, [3, 0, 3]))).toEqual([30, 31, 32, 0, 1, 2, 30, 31, 32]);
+  });
+
+  it('uploads a matrix used as both input and target once (an autoencoder\'s batch)', () => {
+    const before = tf.memory().numTensors;
+    const batch = batchOf({ n: 4, inputs: [m], extra: null, target: m }, Int32Array.from([2, 1]));
+    expect(batch.target).toBe(batch.inputs[0]);
+    expect(batch.inputs[0].shape).toEqual([2, 3]);
+    expect(Array.from(batch.inputs[0].dataSync())).toEqual([20, 21, 22, 10, 11, 12]);
+    expect(tf.memory().numTensors).toBe(before + 1);
+    tf.dispose([...batch.inputs]);
+  });
+});
+
+describe('BatchLosses', () => {
+  it('weights each batch by its rows: (1·256 + 4·64) / 320 = 1.6 (worked by hand)', () => {
+    const losses = new BatchLosses();
+    losses.add(tf.scalar(1), 256);
+    losses.add(tf.scalar(4), 64);
+    expect(losses.count).toBe(320);
+    expect(losses.read()).toEqual({ mean: 1.6, firstNonFinite: null });
+  });
+
+  it('reports the first non-finite batch loss and frees every tensor', () => {
+    const before = tf.memory().numTensors;
+    const losses = new BatchLosses();
+    [2, Infinity, NaN].forEach((v) => losses.add(tf.scalar(v), 10));
+    expect(losses.read().firstNonFinite).toBe(Infinity);
+    expect(tf.memory().numTensors).toBe(before);
+  });
+});

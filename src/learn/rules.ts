@@ -2,8 +2,8 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
 import { columnSums, matMulT } from './dense-kernels.js';
 import { glorotUniform } from './init.js';
-import { ACTIVATION_REGISTRY, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
-import type { RuleName } from './spec.js';
+import { ACTIVATION_REGISTRY, forward, forwardCached, layerWidth, towerVariables, type ForwardCache, type Tower } from './network.js';
+import type { RuleDefinition, RuleStep } from './rule-definition.js';
 
 /** One mini-batch as tensors: an input per tower, the action for tower 0's head, the target. */
 export interface Batch {
@@ -15,13 +15,8 @@ export interface Batch {
 /** The loss of a batch given the towers' head outputs. */
 export type LossOfOutputs = (outputs: readonly tf.Tensor2D[]) => tf.Scalar;
 
-/** A learning rule: the weight-update signal it sends each variable. */
-export interface Rule {
-  /** [rows, cols] of each fixed random feedback matrix a tower needs, in the order `gradients` reads them (none for backprop). */
-  feedbackShapes(tower: Tower): [number, number][];
-  /** Loss and one update signal per variable, in `allVariables` order. */
-  gradients(towers: readonly Tower[], feedback: readonly tf.Tensor2D[][], batch: Batch, loss: LossOfOutputs): { loss: tf.Scalar; grads: tf.Tensor[] };
-}
+/** A rule's own matrices, tower by tower; replaced (old ones freed) when the rule updates them. */
+export type RuleState = tf.Tensor2D[][];
 
 /** Every trainable variable, tower by tower, layer by layer, W then b. */
 export function allVariables(towers: readonly Tower[]): tf.Variable[] {
@@ -40,12 +35,45 @@ export function trueGradients(towers: readonly Tower[], batch: Batch, loss: Loss
   return { loss: value, grads: vars.map((v) => grads[v.name]) };
 }
 
+function headOf(tower: Tower) {
+  if (tower.head == null) throw new Error('a rule needs a tower with a head');
+  return tower.head;
+}
+
 /**
- * A rule's fixed feedback matrices, tower by tower, each Glorot-uniform from the stream that
- * `streamOf` gives for its tower, its position and its shape.
+ * The forward weights a rule sees, [W_0, …, W_{k−1}, W_head over its representation rows]:
+ * nothing flows back into the head's extra inputs (forecast's action), so those rows are left out.
  */
-export function createFeedback(rule: Rule, towers: readonly Tower[], streamOf: (tower: number, matrix: number, shape: [number, number]) => Rng): tf.Tensor2D[][] {
-  return towers.map((t, i) => rule.feedbackShapes(t).map(([rows, cols], j) => tf.tensor2d(glorotUniform(streamOf(i, j, [rows, cols]), rows, cols), [rows, cols])));
+export function ruleWeights(tower: Tower): tf.Tensor2D[] {
+  const head = headOf(tower).W as tf.Tensor2D;
+  const representation = layerWidth(tower.encoder[tower.encoder.length - 1]);
+  const headRows = head.shape[0] === representation ? head : tf.slice(head, [0, 0], [representation, -1]);
+  return [...tower.encoder.map((l) => l.W as tf.Tensor2D), headRows];
+}
+
+/**
+ * A rule's matrices for every tower, made once before training (in a tf.tidy, so only what
+ * init returns stays). Its random matrices are Glorot-uniform from `streamOf(tower, matrix, shape)`.
+ */
+export function createRuleState(rule: RuleDefinition, towers: readonly Tower[], streamOf: (tower: number, matrix: number, shape: [number, number]) => Rng): RuleState {
+  return towers.map((tower, i) => {
+    if (rule.init == null) return [];
+    const init = rule.init;
+    let matrix = 0;
+    const random = (rows: number, cols: number) => tf.tensor2d(glorotUniform(streamOf(i, matrix++, [rows, cols]), rows, cols), [rows, cols]);
+    return tf.tidy(() => {
+      const weights = ruleWeights(tower);
+      // A matrix that is one of the weights themselves is copied: the state is freed, the weights are not.
+      return checkMatrices(init({ tf, weights, random }), 'init', rule).map((m) => (weights.includes(m) ? tf.clone(m) : m));
+    });
+  });
+}
+
+function checkMatrices(values: unknown, what: string, rule: RuleDefinition): tf.Tensor2D[] {
+  if (!Array.isArray(values) || values.some((v) => !(v instanceof tf.Tensor) || v.rank !== 2)) {
+    throw new Error(`rule '${rule.name}': ${what} must return an array of matrices (rank-2 tensors)`);
+  }
+  return values as tf.Tensor2D[];
 }
 
 /** Output error e = ∂L/∂output of each tower (for contrast: the gradient w.r.t. each embedding). */
@@ -59,84 +87,93 @@ function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
   return [matMulT(x, delta, true, false), columnSums(delta)];
 }
 
-/** δ_l = g ⊙ f′(a_l) for hidden layer l (1-based), given the signal g arriving at its output. */
-function hiddenDelta(tower: Tower, cache: ForwardCache, l: number, g: tf.Tensor2D): tf.Tensor2D {
-  return tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l - 1], cache.post[l]));
-}
-
-/**
- * Feedback alignment (Lillicrap et al. 2016, Nat. Commun. 7:13276): the error travels
- * down through fixed random matrices B_l in place of W_lᵀ. Feedback per tower:
- * [B_2, …, B_k, B_head], each shaped like the forward weight it replaces (the head's
- * only over its representation rows, since nothing flows back into the action).
- */
-function feedbackAlignmentBackward(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, B: readonly tf.Tensor2D[]): tf.Tensor[] {
+/** What a rule sees of one tower at one step. */
+function stepContext(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, state: readonly tf.Tensor2D[]): RuleStep {
   const k = tower.encoder.length;
-  const grads: tf.Tensor[][] = [layerGrads(cache.headInput, e)];
-  let g = matMulT(e, B[k - 1], false, true); // [batch, hidden_k]
-  for (let l = k; l >= 1; l--) {
-    const delta = hiddenDelta(tower, cache, l, g);
-    grads.unshift(layerGrads(cache.post[l - 1], delta));
-    if (l > 1) g = matMulT(delta, B[l - 2], false, true);
-  }
-  return grads.flat();
-}
-
-/**
- * Direct feedback alignment (Nøkland 2016, NIPS, eq. 3): hidden layer l receives the
- * output error through its own fixed random matrix, δ_l = (e·D_l) ⊙ f′(a_l). Feedback
- * per tower: [D_1, …, D_k], D_l of shape [outputs, hidden_l].
- */
-function directFeedbackBackward(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, D: readonly tf.Tensor2D[]): tf.Tensor[] {
-  const hidden = tower.encoder.flatMap((_, i) => layerGrads(cache.post[i], hiddenDelta(tower, cache, i + 1, tf.matMul(e, D[i]))));
-  return [...hidden, ...layerGrads(cache.headInput, e)];
-}
-
-/**
- * A rule that runs the forward pass once, takes the output error of each tower from the
- * loss, and sends it down that tower with `backward`.
- */
-function errorRule(
-  feedbackShapes: (tower: Tower) => [number, number][],
-  backward: (tower: Tower, cache: ForwardCache, e: tf.Tensor2D, feedback: readonly tf.Tensor2D[]) => tf.Tensor[],
-): Rule {
+  const derivative = (l: number, g: tf.Tensor2D): tf.Tensor2D => tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l], cache.post[l + 1]));
   return {
-    feedbackShapes,
-    gradients(towers, feedback, batch, loss) {
-      const caches = towers.map((t, i) => forwardCached(t, batch.inputs[i], i === 0 ? batch.extra : null));
-      const { loss: value, errors } = outputErrors(caches, loss);
-      return { loss: value, grads: towers.flatMap((t, i) => backward(t, caches[i], errors[i], feedback[i])) };
+    tf,
+    weights: ruleWeights(tower),
+    activations: cache.post,
+    outputError: e,
+    state,
+    derivative,
+    chain(matrices) {
+      if (matrices.length !== k) throw new Error(`chain needs ${k} matrices (one per weight above the first layer), got ${matrices.length}`);
+      const deltas: tf.Tensor2D[] = [];
+      let g = matMulT(e, matrices[k - 1], false, true); // [batch, hidden_{k−1}]
+      for (let l = k - 1; l >= 0; l--) {
+        deltas[l] = derivative(l, g);
+        if (l > 0) g = matMulT(deltas[l], matrices[l - 1], false, true);
+      }
+      return deltas;
     },
   };
 }
 
+/** Checks a rule's deltas against the tower's hidden layers: k matrices of [batch, width_l]. */
+function checkDeltas(deltas: unknown, tower: Tower, batch: number, rule: RuleDefinition): tf.Tensor2D[] {
+  const widths = tower.encoder.map(layerWidth);
+  const expected = widths.map((w) => `[${batch}, ${w}]`).join(', ');
+  const ok = Array.isArray(deltas) && deltas.length === widths.length
+    && deltas.every((d, l) => d instanceof tf.Tensor && d.rank === 2 && d.shape[0] === batch && d.shape[1] === widths[l]);
+  if (!ok) throw new Error(`rule '${rule.name}': deltas must return one error per hidden layer, shaped ${expected}`);
+  return deltas as tf.Tensor2D[];
+}
+
 /**
- * The forward weights in feedback-alignment order, [W_2, …, W_k, W_head over its
- * representation rows]: sending the error back through their transposes is exact backprop.
+ * Loss and one update signal per variable (allVariables order): one forward pass, the
+ * output error of each tower from the loss, the rule's error for each hidden layer, and
+ * ∂W = inputᵀ·δ, ∂b = Σ δ. The head learns from the output error itself.
  */
-function forwardWeights(tower: Tower): tf.Tensor2D[] {
-  const { hidden } = widths(tower);
-  const head = tower.head!.W as tf.Tensor2D;
-  const representation = hidden[hidden.length - 1];
-  const headRows = head.shape[0] === representation ? head : tf.slice(head, [0, 0], [representation, -1]);
-  return [...tower.encoder.slice(1).map((l) => l.W as tf.Tensor2D), headRows];
+export function ruleGradients(rule: RuleDefinition, towers: readonly Tower[], state: RuleState, batch: Batch, loss: LossOfOutputs): { loss: tf.Scalar; grads: tf.Tensor[] } {
+  const caches = towers.map((t, i) => forwardCached(t, batch.inputs[i], i === 0 ? batch.extra : null));
+  const { loss: value, errors } = outputErrors(caches, loss);
+  const grads = towers.flatMap((tower, i) => {
+    const e = errors[i];
+    const deltas = checkDeltas(rule.deltas(stepContext(tower, caches[i], e, state[i])), tower, e.shape[0], rule);
+    return [...deltas.flatMap((delta, l) => layerGrads(caches[i].post[l], delta)), ...layerGrads(caches[i].headInput, e)];
+  });
+  return { loss: value, grads };
 }
 
-function widths(tower: Tower): { hidden: number[]; out: number } {
-  if (tower.head == null) throw new Error('a rule needs a tower with a head');
-  return { hidden: tower.encoder.map(layerWidth), out: layerWidth(tower.head) };
+/** Copies of the forward weights a rule sees (they keep their values when the variables are assigned). */
+export function weightSnapshot(towers: readonly Tower[]): tf.Tensor2D[][] {
+  return towers.map((tower) => ruleWeights(tower).map((w) => tf.clone(w)));
 }
 
-/** Every learning rule by its config name. */
-export const RULE_REGISTRY: Record<RuleName, Rule> = {
-  // The same kernels reverse-mode autodiff would run, without the tape's copy of every saved tensor.
-  backprop: errorRule(() => [], (tower, cache, e) => feedbackAlignmentBackward(tower, cache, e, forwardWeights(tower))),
-  'feedback-alignment': errorRule((tower) => {
-    const { hidden, out } = widths(tower);
-    return [...hidden.slice(1).map((h, i): [number, number] => [hidden[i], h]), [hidden[hidden.length - 1], out]];
-  }, feedbackAlignmentBackward),
-  'direct-feedback-alignment': errorRule((tower) => {
-    const { hidden, out } = widths(tower);
-    return hidden.map((h): [number, number] => [out, h]);
-  }, directFeedbackBackward),
-};
+/**
+ * Runs a rule's update after an optimiser step (call inside a tf.tidy): `before` holds the
+ * weights from weightSnapshot. New state replaces the old (which is freed); new forward
+ * weights are assigned to the variables (the head's extra rows are kept).
+ */
+export function applyRuleUpdate(rule: RuleDefinition, towers: readonly Tower[], state: RuleState, before: readonly tf.Tensor2D[][]): void {
+  if (rule.update == null) return;
+  towers.forEach((tower, i) => {
+    const weights = ruleWeights(tower);
+    const updates = weights.map((w, l): tf.Tensor2D => tf.sub(w, before[i][l]));
+    const result = rule.update!({ tf, weights, updates, state: state[i] });
+    if (result.weights != null) assignWeights(tower, checkShapes(result.weights, weights, 'weights', rule));
+    if (result.state != null) {
+      const next = checkShapes(result.state, state[i], 'state', rule).map((m) => (weights.includes(m) ? tf.clone(m) : m));
+      tf.dispose(state[i].filter((old) => !next.includes(old)));
+      state[i] = next.map((m) => tf.keep(m));
+    }
+  });
+}
+
+function checkShapes(values: unknown, like: readonly tf.Tensor2D[], what: string, rule: RuleDefinition): tf.Tensor2D[] {
+  const matrices = checkMatrices(values, `update's ${what}`, rule);
+  const ok = matrices.length === like.length && matrices.every((m, l) => m.shape[0] === like[l].shape[0] && m.shape[1] === like[l].shape[1]);
+  if (!ok) throw new Error(`rule '${rule.name}': update's ${what} must keep the number and shapes of the matrices it replaces`);
+  return matrices;
+}
+
+function assignWeights(tower: Tower, weights: readonly tf.Tensor2D[]): void {
+  const k = tower.encoder.length;
+  tower.encoder.forEach((layer, l) => layer.W.assign(weights[l]));
+  const head = headOf(tower);
+  const rows = weights[k].shape[0];
+  const full = head.W.shape[0] === rows ? weights[k] : tf.concat([weights[k], tf.slice(head.W, [rows, 0], [-1, -1])], 0);
+  head.W.assign(full);
+}

@@ -6,7 +6,7 @@ export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'su
 export type ObjectiveName = (typeof OBJECTIVES)[number];
 
 /** How weight updates are computed (the config's `rule`). */
-export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'] as const;
+export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment', 'kolen-pollack', 'sign-symmetry'] as const;
 export type RuleName = (typeof RULES)[number];
 
 /** Hidden-layer nonlinearities (the config's `encoder.activation`). */

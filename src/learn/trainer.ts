@@ -10,7 +10,9 @@ import { createExtractor } from './extractor.js';
 import { createTower, disposeTower, type Tower } from './network.js';
 import { createOptimizer, type Optimizer } from './optimizers.js';
 import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
-import { allVariables, createFeedback, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
+import { RULE_REGISTRY } from './learning-rules.js';
+import type { RuleDefinition } from './rule-definition.js';
+import { allVariables, applyRuleUpdate, createRuleState, ruleGradients, towerOutputs, trueGradients, weightSnapshot, type RuleState } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
 import { batchOrderStream, feedbackStream, towerStreams } from './streams.js';
 
@@ -25,6 +27,8 @@ export interface TrainOptions {
    * is measured. Measuring reads the weights and never changes them.
    */
   readonly alignEvery?: number;
+  /** The learning rule when it is not a built-in one (a plug-in's); left out, `spec.rule` names a built-in. */
+  readonly rule?: RuleDefinition;
 }
 
 /** A frozen encoder and its training log. */
@@ -52,8 +56,8 @@ function minBatch(spec: LearnerSpec): number {
 interface EpochContext {
   readonly spec: LearnerSpec;
   readonly towers: Tower[];
-  readonly rule: Rule;
-  readonly feedback: tf.Tensor2D[][];
+  readonly rule: RuleDefinition;
+  readonly state: RuleState;
   readonly signal: TrainingSignal;
   readonly optimizer: Optimizer;
   readonly shuffle: Rng;
@@ -67,7 +71,7 @@ interface EpochContext {
  * fails the epoch with that value (the steps after it only move weights that are lost anyway).
  */
 function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
-  const { spec, towers, rule, feedback, signal, optimizer } = ctx;
+  const { spec, towers, rule, state, signal, optimizer } = ctx;
   const vars = allVariables(towers);
   const order = permutation(train.n, ctx.shuffle);
   const angles = new AngleAverage();
@@ -82,9 +86,11 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
       losses.add(tf.tidy(() => {
         const batch = batchOf(train, rows);
         const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
-        const { loss, grads } = rule.gradients(towers, feedback, batch, lossOf);
+        const { loss, grads } = ruleGradients(rule, towers, state, batch, lossOf);
         if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
+        const before = rule.update == null ? [] : weightSnapshot(towers);
         optimizer.applyGradients(vars, grads);
+        applyRuleUpdate(rule, towers, state, before);
         return loss;
       }), rows.length);
       ctx.step += 1;
@@ -184,19 +190,20 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   const towers = objective.towers.map((shape, i) => createTower(shape, spec.encoder.activation, towerStreams(options.seed, shape, spec.encoder.activation, i)));
   const log: EpochLog[] = [];
   if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
-  const rule = RULE_REGISTRY[spec.rule];
-  const feedback = createFeedback(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
+  const rule = options.rule ?? RULE_REGISTRY[spec.rule];
   const [train, validation] = examples;
   const optimizer = createOptimizer(spec.train);
+  let state: RuleState = [];
   let bestEpoch = 0;
   try {
-    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
+    state = createRuleState(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
+    const ctx: EpochContext = { spec, towers, rule, state, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);
     throw error;
   } finally {
-    tf.dispose(feedback.flat());
+    tf.dispose(state.flat());
     optimizer.dispose();
   }
   return { towers, objective, stats, log, bestEpoch };

@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { initBackend } from '../../src/learn/backend.js';
 import { meanSquaredError } from '../../src/learn/losses.js';
 import { createTower, towerVariables, type Tower } from '../../src/learn/network.js';
-import { RULE_REGISTRY, trueGradients, type Batch } from '../../src/learn/rules.js';
+import { RULE_REGISTRY } from '../../src/learn/learning-rules.js';
+import { ruleGradients, trueGradients, type Batch } from '../../src/learn/rules.js';
 import { createRng, normal } from '../../src/random.js';
 
 /** Plain float64 forward pass and MSE loss of a one-hidden-layer tanh tower (independent of tfjs). */
@@ -54,7 +55,7 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     const params = towerVariables(tower).map((v) => Array.from(v.dataSync()));
     const reference = centralDifferences(params, (p) => referenceLoss(p, x, y, 4));
     const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
-    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), RULE_REGISTRY.backprop.gradients([tower], [[]], batch, loss)]
+    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), ruleGradients(RULE_REGISTRY.backprop, [tower], [[]], batch, loss)]
       .map(({ grads }) => grads.map((g) => Array.from(g.dataSync()))));
     expect(relativeError(autodiff.flat(), reference.flat())).toBeLessThan(1e-3);
     expect(relativeError(rule.flat(), reference.flat())).toBeLessThan(1e-3); // the backprop rule's hand-written backward pass
@@ -73,7 +74,7 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     const matrix = (rows: number, cols: number) => tf.tensor2d(Float32Array.from({ length: rows * cols }, () => normal(rng)), [rows, cols]);
     const batch: Batch = { inputs: [matrix(6, 3)], extra: matrix(6, 2), target: matrix(6, 2) };
     const loss = (o: readonly tf.Tensor2D[]) => meanSquaredError(o[0], batch.target!);
-    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), RULE_REGISTRY.backprop.gradients([tower], [[]], batch, loss)]
+    const [autodiff, rule] = tf.tidy(() => [trueGradients([tower], batch, loss), ruleGradients(RULE_REGISTRY.backprop, [tower], [[]], batch, loss)]
       .map(({ loss: value, grads }) => [Array.from(value.dataSync()), ...grads.map((g) => Array.from(g.dataSync()))]));
     expect(rule).toEqual(autodiff);
     tf.dispose([...towerVariables(tower), ...batch.inputs, batch.extra!, batch.target!]);
@@ -89,7 +90,7 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
     const feedback = [tower.encoder[1].W, tower.head!.W] as tf.Tensor2D[]; // [B_2, B_head] = [W_2, W_head]
     const [bp, fa] = tf.tidy(() => [
       trueGradients([tower], batch, loss).grads,
-      RULE_REGISTRY['feedback-alignment'].gradients([tower], [feedback], batch, loss).grads,
+      ruleGradients(RULE_REGISTRY['feedback-alignment'], [tower], [feedback], batch, loss).grads,
     ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync()))));
     expect(relativeError(fa, bp)).toBeLessThan(1e-6);
     tf.dispose([...towerVariables(tower), ...batch.inputs, batch.target!]);
@@ -110,7 +111,7 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
       const feedback = [tf.tensor2d(Float32Array.from({ length: 8 }, () => normal(rng)), [2, 4]), tf.transpose(tower.head!.W) as tf.Tensor2D]; // [D_1 random, D_2 = W_headᵀ]
       return [
         trueGradients([tower], batch, loss).grads,
-        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [feedback], batch, loss).grads,
+        ruleGradients(RULE_REGISTRY['direct-feedback-alignment'], [tower], [feedback], batch, loss).grads,
       ].map((gs) => gs.map((g) => Array.from(g.dataSync())));
     });
     // Variables in order: W_1, b_1, W_2, b_2, W_head, b_head.
@@ -128,8 +129,8 @@ describe.each(['cpu', 'wasm'] as const)('backprop gradients on %s', (backend) =>
       const R = tf.tensor2d(Float32Array.from({ length: 8 }, (_, i) => Math.sin(i + 1)), [2, 4]); // any other D
       return [
         trueGradients([tower], batch, loss).grads,
-        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [[D]], batch, loss).grads,
-        RULE_REGISTRY['direct-feedback-alignment'].gradients([tower], [[R]], batch, loss).grads,
+        ruleGradients(RULE_REGISTRY['direct-feedback-alignment'], [tower], [[D]], batch, loss).grads,
+        ruleGradients(RULE_REGISTRY['direct-feedback-alignment'], [tower], [[R]], batch, loss).grads,
       ].map((gs) => gs.flatMap((g) => Array.from(g.dataSync())));
     });
     expect(relativeError(dfa, bp)).toBeLessThan(1e-6);

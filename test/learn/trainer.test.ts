@@ -119,10 +119,11 @@ describe('failures and resources', () => {
     expect(tf.memory().numTensors).toBe(before);
   });
 
-  it('leaks no tensors across an epoch, a feature extraction, or a whole run once disposed', async () => {
+  it.each(['direct-feedback-alignment', 'kolen-pollack'] as const)('leaks no tensors across an epoch, a feature extraction, or a whole run once disposed (%s)', async (rule) => {
+    // Kolen–Pollack replaces its feedback matrices and the forward weights at every step.
     const before = tf.memory().numTensors;
     const counts: number[] = [];
-    const spec = learnerSpec({ objective: 'contrast', rule: 'direct-feedback-alignment', train: { epochs: 4 } });
+    const spec = learnerSpec({ objective: 'contrast', rule, train: { epochs: 4 } });
     const { encoder } = await trainLearner(spec, data, split, {
       seed: 1, onEpoch: (_log: EpochLog) => counts.push(tf.memory().numTensors),
     });

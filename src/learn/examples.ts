@@ -1,20 +1,12 @@
-import type { Dataset, LatentName } from '../collect/dataset.js';
+import { LATENT_KIND, type Dataset, type LatentName } from '../collect/dataset.js';
 import type { ChannelName } from '../senses/channel.js';
-import { datasetRows, fitStandardiser, orderedChannels, standardise, type Matrix, type Standardiser } from './matrix.js';
+import { datasetRows, fitStandardiser, orderedChannels, standardise, withSuccessor, type Matrix, type Standardiser } from './matrix.js';
+import type { ExampleSource } from './objective-definition.js';
 
-/** Training examples of one split, as the towers and the loss need them. */
-export interface ExampleSet {
-  readonly n: number;
-  /** One standardised input matrix per tower, [n, inputWidth]. */
-  readonly inputs: readonly Matrix[];
-  /** Extra head input of the first tower (forecast: the action), [n, extraWidth]. */
-  readonly extra: Matrix | null;
-  /** What the loss compares against, [n, targetWidth]; null when the loss needs none. */
-  readonly target: Matrix | null;
-}
+export type { ExampleSet } from './objective-definition.js';
 
 /** Standardisers fitted on the training split only, computed once and shared by every split. */
-export class TrainingStatistics {
+export class TrainingStatistics implements ExampleSource {
   private readonly cache = new Map<string, Standardiser>();
 
   constructor(readonly data: Dataset, readonly trainSteps: Int32Array) {}
@@ -31,7 +23,7 @@ export class TrainingStatistics {
   }
 
   /** Mean and std of one continuous latent over the training steps. */
-  latent(name: LatentName): Standardiser {
+  latentStatistics(name: LatentName): Standardiser {
     const key = `latent:${name}`;
     let s = this.cache.get(key);
     if (s == null) {
@@ -42,9 +34,23 @@ export class TrainingStatistics {
     return s;
   }
 
-  /** Standardised channel rows at the given steps. */
   standardised(channels: readonly ChannelName[], steps: ArrayLike<number>): Matrix {
     return standardise(datasetRows(this.data, channels, steps), this.channels(channels));
+  }
+
+  raw(channels: readonly ChannelName[], steps: ArrayLike<number>): Matrix {
+    return datasetRows(this.data, channels, steps);
+  }
+
+  withNext(steps: Int32Array): Int32Array {
+    return withSuccessor(this.data, steps);
+  }
+
+  latent(name: LatentName, steps: ArrayLike<number>): Float32Array {
+    const values = this.data.latents[name];
+    if (LATENT_KIND[name] !== 'continuous') return Float32Array.from(steps, (t) => values[t]);
+    const { mean, std } = this.latentStatistics(name);
+    return Float32Array.from(steps, (t) => (values[t] - mean[0]) / std[0]);
   }
 }
 

@@ -1,69 +1,55 @@
-import * as tf from '@tensorflow/tfjs-core';
-import { classCount, LATENT_KIND, type Dataset, type LatentName } from '../collect/dataset.js';
-import type { ChannelName } from '../senses/channel.js';
-import { nextSteps, type ExampleSet, type TrainingStatistics } from './examples.js';
+import type { Tensor1D, Tensor2D } from '@tensorflow/tfjs-core';
+import { LATENT_KIND } from '../collect/dataset.js';
+import { nextSteps } from './examples.js';
 import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
-import { channelWidth, datasetRows, orderedChannels, withSuccessor } from './matrix.js';
-import type { TowerShape } from './network.js';
+import { channelWidth } from './matrix.js';
+import type { ObjectiveDefinition } from './objective-definition.js';
 import type { LearnerSpec, ObjectiveName } from './spec.js';
 
-/** How an objective trains: its examples and its loss. */
-export interface TrainingSignal {
-  examples(stats: TrainingStatistics, steps: Int32Array): ExampleSet;
-  /** Scalar loss from the towers' head outputs (one per tower) and the batch target. */
-  loss(outputs: readonly tf.Tensor2D[], target: tf.Tensor2D | null): tf.Scalar;
-}
+// The built-in objectives, each in the shape a plug-in file default-exports
+// (objective-definition.ts). Inputs and targets are standardised with the training split's
+// statistics, so every loss is on a comparable scale.
 
-/** An objective bound to one learner and dataset. */
-export interface Objective {
-  /** Tower 0 always encodes `spec.input`; its encoder is the learner's representation. */
-  readonly towers: readonly TowerShape[];
-  /** null for `untrained`, whose weights stay at their initial values. */
-  readonly signal: TrainingSignal | null;
-}
-
-type ObjectiveFactory = (spec: LearnerSpec, data: Dataset) => Objective;
-
-function tower(spec: LearnerSpec, data: Dataset, channels: readonly ChannelName[], outputWidth: number, extraWidth = 0): TowerShape {
-  return { channels: orderedChannels(channels), inputWidth: channelWidth(data.channelSize, channels), hidden: spec.encoder.hidden, outputWidth, extraWidth };
-}
-
-function mse(outputs: readonly tf.Tensor2D[], target: tf.Tensor2D | null): tf.Scalar {
+function mse(outputs: readonly Tensor2D[], target: Tensor2D | null) {
   if (target == null) throw new Error('mean squared error needs a target');
   return meanSquaredError(outputs[0], target);
 }
 
-/** `input` → `target` channels at the same step (offset 0) or the next (offset 1), standardised. */
-const predict: ObjectiveFactory = (spec, data) => ({
-  towers: [tower(spec, data, spec.input, channelWidth(data.channelSize, spec.target))],
-  signal: {
-    examples(stats, steps) {
-      const rows = spec.offset === 1 ? withSuccessor(data, steps) : steps;
-      const targetRows = spec.offset === 1 ? nextSteps(rows) : rows;
-      return {
-        n: rows.length,
-        inputs: [stats.standardised(spec.input, rows)],
-        extra: null,
-        target: stats.standardised(spec.target, targetRows),
-      };
-    },
-    loss: mse,
-  },
-});
-
-/** An autoencoder: the standardised input itself is the target. */
-const reconstruct: ObjectiveFactory = (spec, data) => {
-  const width = channelWidth(data.channelSize, spec.input);
-  return {
-    towers: [tower(spec, data, spec.input, width)],
+/** `input` → `target` channels at the same step (offset 0) or the next (offset 1), by mean squared error. */
+export const predict: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'predict',
+  description: 'predict the target channels from the input channels, at the same step or the next',
+  target: 'required',
+  setup: ({ learner, channelSize }) => ({
+    towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.target) }],
     signal: {
-      examples(stats, steps) {
-        const x = stats.standardised(spec.input, steps);
-        return { n: steps.length, inputs: [x], extra: null, target: x };
+      examples(source, steps) {
+        const rows = learner.offset === 1 ? source.withNext(steps) : steps;
+        const targetRows = learner.offset === 1 ? nextSteps(rows) : rows;
+        return { n: rows.length, inputs: [source.standardised(learner.input, rows)], target: source.standardised(learner.target, targetRows) };
       },
       loss: mse,
     },
-  };
+  }),
+};
+
+/** An autoencoder: the standardised input itself is the target. */
+export const reconstruct: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'reconstruct',
+  description: 'reproduce its own input (a single-sense autoencoder)',
+  target: 'unused',
+  setup: ({ learner, channelSize }) => ({
+    towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.input) }],
+    signal: {
+      examples(source, steps) {
+        const x = source.standardised(learner.input, steps);
+        return { n: steps.length, inputs: [x], target: x };
+      },
+      loss: mse,
+    },
+  }),
 };
 
 /**
@@ -73,24 +59,27 @@ const reconstruct: ObjectiveFactory = (spec, data) => {
  * encoder, so the representation stays a function of the input alone, like every other
  * learner's.
  */
-const forecast: ObjectiveFactory = (spec, data) => {
-  const width = channelWidth(data.channelSize, spec.input);
-  return {
-    towers: [tower(spec, data, spec.input, width, data.channelSize.motor)],
+export const forecast: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'forecast',
+  description: 'predict its own input at the next step from this step\'s input and the action taken',
+  target: 'unused',
+  setup: ({ learner, channelSize }) => ({
+    towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.input), extra: channelSize.motor }],
     signal: {
-      examples(stats, steps) {
-        const rows = withSuccessor(data, steps);
+      examples(source, steps) {
+        const rows = source.withNext(steps);
         const next = nextSteps(rows);
         return {
           n: rows.length,
-          inputs: [stats.standardised(spec.input, rows)],
-          extra: datasetRows(data, ['motor'], next),
-          target: stats.standardised(spec.input, next),
+          inputs: [source.standardised(learner.input, rows)],
+          extra: source.raw(['motor'], next),
+          target: source.standardised(learner.input, next),
         };
       },
       loss: mse,
     },
-  };
+  }),
 };
 
 /**
@@ -98,94 +87,94 @@ const forecast: ObjectiveFactory = (spec, data) => {
  * `target` channels at the same step. Both towers have the learner's hidden sizes; each
  * linear head projects to an embedding as wide as the last hidden layer.
  */
-const contrast: ObjectiveFactory = (spec, data) => {
-  const embedding = spec.encoder.hidden[spec.encoder.hidden.length - 1];
-  return {
-    towers: [
-      tower(spec, data, spec.input, embedding),
-      tower(spec, data, spec.target, embedding),
-    ],
-    signal: {
-      examples: (stats, steps) => ({
-        n: steps.length,
-        inputs: [stats.standardised(spec.input, steps), stats.standardised(spec.target, steps)],
-        extra: null,
-        target: null,
-      }),
-      loss: (outputs) => infoNce(outputs[0], outputs[1], spec.train.temperature),
-    },
-  };
+export const contrast: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'contrast',
+  description: 'align its embedding with a second encoder\'s embedding of the target channels (InfoNCE)',
+  target: 'required',
+  minBatch: 2, // InfoNCE needs at least one negative
+  setup: ({ learner }) => {
+    const embedding = learner.encoder.hidden[learner.encoder.hidden.length - 1];
+    return {
+      towers: [{ channels: learner.input, outputs: embedding }, { channels: learner.target, outputs: embedding }],
+      signal: {
+        examples: (source, steps) => ({
+          n: steps.length,
+          inputs: [source.standardised(learner.input, steps), source.standardised(learner.target, steps)],
+        }),
+        loss: (outputs) => infoNce(outputs[0], outputs[1], learner.train.temperature),
+      },
+    };
+  },
 };
-
-/** Output columns of one latent: 1 for a continuous one, its class count for a categorical one. */
-function latentWidth(data: Dataset, name: LatentName): number {
-  return LATENT_KIND[name] === 'continuous' ? 1 : classCount(data, name);
-}
-
-/** One target column per latent: standardised value (continuous) or class index (categorical). [n, latents] */
-function latentTargets(stats: TrainingStatistics, names: readonly LatentName[], steps: Int32Array): Float32Array {
-  const target = new Float32Array(steps.length * names.length);
-  names.forEach((name, j) => {
-    const s = LATENT_KIND[name] === 'continuous' ? stats.latent(name) : { mean: [0], std: [1] };
-    const values = stats.data.latents[name];
-    steps.forEach((t, i) => { target[i * names.length + j] = (values[t] - s.mean[0]) / s.std[0]; });
-  });
-  return target;
-}
 
 /**
  * The latents directly: continuous ones standardised and fitted by MSE, categorical ones
- * by softmax cross-entropy over their logits; the loss is the mean over latents.
+ * by softmax cross-entropy over their logits; the loss is the mean over latents. The target
+ * matrix holds one column per latent (a value, or a class index).
  */
-const supervised: ObjectiveFactory = (spec, data) => {
-  const names = spec.supervisedTargets;
-  const widths = names.map((name) => latentWidth(data, name));
-  const offsets = widths.map((_, j) => widths.slice(0, j).reduce((a, b) => a + b, 0));
-  return {
-    towers: [tower(spec, data, spec.input, widths.reduce((a, b) => a + b, 0))],
-    signal: {
-      examples: (stats, steps) => ({
-        n: steps.length,
-        inputs: [stats.standardised(spec.input, steps)],
-        extra: null,
-        target: { rows: steps.length, cols: names.length, data: latentTargets(stats, names, steps) },
-      }),
-      loss(outputs, target) {
-        if (target == null) throw new Error('supervised loss needs a target');
-        const losses = names.map((name, j) => {
-          const part = tf.slice(outputs[0], [0, offsets[j]], [-1, widths[j]]); // [batch, width_j]
-          const column = tf.slice(target, [0, j], [-1, 1]); // [batch, 1]
-          return LATENT_KIND[name] === 'continuous'
-            ? meanSquaredError(part, column)
-            : softmaxCrossEntropy(part, tf.reshape(column, [-1]) as tf.Tensor1D);
-        });
-        return tf.div(tf.addN(losses), losses.length);
+export const supervised: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'supervised',
+  description: 'predict the latent targets directly (an upper bound, not self-supervised)',
+  target: 'unused',
+  setup: ({ tf, learner, classCount }) => {
+    const names = learner.supervisedTargets;
+    if (names.length === 0) throw new Error(`learner '${learner.name}': objective 'supervised' needs at least one latent target`);
+    const widths = names.map((name) => (LATENT_KIND[name] === 'continuous' ? 1 : classCount(name)));
+    const offsets = widths.map((_, j) => widths.slice(0, j).reduce((a, b) => a + b, 0));
+    return {
+      towers: [{ channels: learner.input, outputs: widths.reduce((a, b) => a + b, 0) }],
+      signal: {
+        examples: (source, steps) => ({
+          n: steps.length,
+          inputs: [source.standardised(learner.input, steps)],
+          target: { rows: steps.length, cols: names.length, data: latentColumns(names.map((name) => source.latent(name, steps)), steps.length) },
+        }),
+        loss(outputs, target) {
+          if (target == null) throw new Error('supervised loss needs a target');
+          const losses = names.map((name, j) => {
+            const part = tf.slice(outputs[0], [0, offsets[j]], [-1, widths[j]]); // [batch, width_j]
+            const column = tf.slice(target, [0, j], [-1, 1]); // [batch, 1]
+            return LATENT_KIND[name] === 'continuous'
+              ? meanSquaredError(part, column)
+              : softmaxCrossEntropy(part, tf.reshape(column, [-1]) as Tensor1D);
+          });
+          return tf.div(tf.addN(losses), losses.length);
+        },
       },
-    },
-  };
+    };
+  },
 };
 
-/** Frozen random weights: an encoder with no head and nothing to train (the floor). */
-const untrained: ObjectiveFactory = (spec, data) => ({
-  towers: [tower(spec, data, spec.input, 0)],
-  signal: null,
-});
+/** Columns side by side, [n, columns.length]. */
+function latentColumns(columns: readonly Float32Array[], n: number): Float32Array {
+  const out = new Float32Array(n * columns.length);
+  columns.forEach((column, j) => column.forEach((value, i) => { out[i * columns.length + j] = value; }));
+  return out;
+}
 
-/** Every objective by its config name. */
-export const OBJECTIVE_REGISTRY: Record<ObjectiveName, ObjectiveFactory> = {
+/** Frozen random weights: an encoder with no head and nothing to train (the floor). */
+export const untrained: ObjectiveDefinition = {
+  type: 'objective',
+  name: 'untrained',
+  description: 'nothing: frozen random weights (the floor)',
+  target: 'unused',
+  setup: ({ learner }) => ({ towers: [{ channels: learner.input, outputs: 0 }], signal: null }),
+};
+
+/** Every built-in objective by its config name. */
+export const OBJECTIVE_REGISTRY: Record<ObjectiveName, ObjectiveDefinition> = {
   predict, reconstruct, forecast, contrast, supervised, untrained,
 };
 
-/** Rejects a spec whose objective lacks what it needs, naming the learner. */
-export function checkSpec(spec: LearnerSpec): void {
+/** Rejects a spec that lacks what its objective or its training needs, naming the learner. */
+export function checkSpec(spec: LearnerSpec, objective: ObjectiveDefinition): void {
   const fail = (why: string): never => { throw new Error(`learner '${spec.name}': ${why}`); };
   if (spec.input.length === 0) fail('needs at least one input channel');
   if (spec.encoder.hidden.length === 0) fail('encoder needs at least one hidden layer (its last is the representation)');
   if (spec.encoder.hidden.some((w) => !Number.isInteger(w) || w < 1)) fail(`hidden sizes must be positive integers, got [${spec.encoder.hidden.join(', ')}]`);
-  if ((spec.objective === 'predict' || spec.objective === 'contrast') && spec.target.length === 0) {
-    fail(`objective '${spec.objective}' needs at least one target channel`);
-  }
-  if (spec.objective === 'supervised' && spec.supervisedTargets.length === 0) fail("objective 'supervised' needs at least one latent target");
+  if (objective.target === 'required' && spec.target.length === 0) fail(`objective '${objective.name}' needs at least one target channel`);
   if (!(spec.train.batch >= 1) || !Number.isInteger(spec.train.batch)) fail(`batch must be a positive integer, got ${spec.train.batch}`);
   if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);

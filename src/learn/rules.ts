@@ -56,17 +56,22 @@ export function ruleWeights(tower: Tower): tf.Tensor2D[] {
  * init returns stays). Its random matrices are Glorot-uniform from `streamOf(tower, matrix, shape)`.
  */
 export function createRuleState(rule: RuleDefinition, towers: readonly Tower[], streamOf: (tower: number, matrix: number, shape: [number, number]) => Rng): RuleState {
-  return towers.map((tower, i) => {
-    if (rule.init == null) return [];
-    const init = rule.init;
-    let matrix = 0;
-    const random = (rows: number, cols: number) => tf.tensor2d(glorotUniform(streamOf(i, matrix++, [rows, cols]), rows, cols), [rows, cols]);
-    return tf.tidy(() => {
-      const weights = ruleWeights(tower);
-      // A matrix that is one of the weights themselves is copied: the state is freed, the weights are not.
-      return checkMatrices(init({ tf, weights, random }), 'init', rule).map((m) => (weights.includes(m) ? tf.clone(m) : m));
+  const state: RuleState = [];
+  try {
+    towers.forEach((tower, i) => {
+      let matrix = 0;
+      const random = (rows: number, cols: number) => tf.tensor2d(glorotUniform(streamOf(i, matrix++, [rows, cols]), rows, cols), [rows, cols]);
+      state.push(rule.init == null ? [] : tf.tidy(() => {
+        const weights = ruleWeights(tower);
+        // A matrix that is one of the weights themselves is copied: the state is freed, the weights are not.
+        return checkMatrices(rule.init!({ tf, weights, random }), 'init', rule).map((m) => (weights.includes(m) ? tf.clone(m) : m));
+      }));
     });
-  });
+    return state;
+  } catch (error) {
+    tf.dispose(state.flat());
+    throw error;
+  }
 }
 
 function checkMatrices(values: unknown, what: string, rule: RuleDefinition): tf.Tensor2D[] {

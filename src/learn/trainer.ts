@@ -5,11 +5,13 @@ import { batchOf } from './batches.js';
 import { BatchLosses } from './batch-losses.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
+import { batchLoss, bindObjective, splitExamples, type BoundObjective } from './bound-objective.js';
 import { TrainingStatistics, type ExampleSet } from './examples.js';
 import { createExtractor } from './extractor.js';
 import { createTower, disposeTower, type Tower } from './network.js';
 import { createOptimizer, type Optimizer } from './optimizers.js';
-import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
+import type { ObjectiveDefinition } from './objective-definition.js';
+import { checkSpec, OBJECTIVE_REGISTRY } from './objectives.js';
 import { RULE_REGISTRY } from './learning-rules.js';
 import type { RuleDefinition } from './rule-definition.js';
 import { allVariables, applyRuleUpdate, createRuleState, ruleGradients, towerOutputs, trueGradients, weightSnapshot, type RuleState } from './rules.js';
@@ -27,6 +29,8 @@ export interface TrainOptions {
    * is measured. Measuring reads the weights and never changes them.
    */
   readonly alignEvery?: number;
+  /** The objective when it is not a built-in one (a plug-in's); left out, `spec.objective` names a built-in. */
+  readonly objective?: ObjectiveDefinition;
   /** The learning rule when it is not a built-in one (a plug-in's); left out, `spec.rule` names a built-in. */
   readonly rule?: RuleDefinition;
 }
@@ -42,15 +46,10 @@ export interface TrainedLearner {
 /** Every tower with its heads, for callers that need the objective's outputs (the caller disposes). */
 export interface TrainedNetwork {
   readonly towers: Tower[];
-  readonly objective: Objective;
+  readonly objective: BoundObjective;
   readonly stats: TrainingStatistics;
   readonly log: EpochLog[];
   readonly bestEpoch: number;
-}
-
-/** InfoNCE needs at least one negative, so a contrast batch needs two rows. */
-function minBatch(spec: LearnerSpec): number {
-  return spec.objective === 'contrast' ? 2 : 1;
 }
 
 interface EpochContext {
@@ -58,7 +57,7 @@ interface EpochContext {
   readonly towers: Tower[];
   readonly rule: RuleDefinition;
   readonly state: RuleState;
-  readonly signal: TrainingSignal;
+  readonly objective: BoundObjective;
   readonly optimizer: Optimizer;
   readonly shuffle: Rng;
   readonly alignEvery: number | undefined;
@@ -71,7 +70,7 @@ interface EpochContext {
  * fails the epoch with that value (the steps after it only move weights that are lost anyway).
  */
 function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
-  const { spec, towers, rule, state, signal, optimizer } = ctx;
+  const { spec, towers, rule, state, objective, optimizer } = ctx;
   const vars = allVariables(towers);
   const order = permutation(train.n, ctx.shuffle);
   const angles = new AngleAverage();
@@ -79,13 +78,13 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
   try {
     for (let start = 0; start < train.n; start += spec.train.batch) {
       const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
-      if (rows.length < minBatch(spec)) continue;
+      if (rows.length < objective.minBatch) continue;
       const last = start + spec.train.batch >= train.n;
       const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
-      const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
+      const record = rule.name !== 'backprop' && (due || (last && !angles.recorded));
       losses.add(tf.tidy(() => {
         const batch = batchOf(train, rows);
-        const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
+        const lossOf = (outputs: readonly tf.Tensor2D[]) => batchLoss(objective, outputs, batch.target);
         const { loss, grads } = ruleGradients(rule, towers, state, batch, lossOf);
         if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
         const before = rule.update == null ? [] : weightSnapshot(towers);
@@ -108,16 +107,16 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
  * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
  * of them would be far harder than the shuffled training batches.
  */
-function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: ExampleSet, order: Int32Array): number {
+function evaluate(spec: LearnerSpec, towers: Tower[], objective: BoundObjective, split: ExampleSet, order: Int32Array): number {
   const losses = new BatchLosses();
   try {
     for (let start = 0; start < split.n; start += spec.train.batch) {
       const end = Math.min(start + spec.train.batch, split.n);
-      if (end - start < minBatch(spec) && losses.count > 0) continue;
+      if (end - start < objective.minBatch && losses.count > 0) continue;
       const rows = order.subarray(start, end);
       losses.add(tf.tidy(() => {
         const batch = batchOf(split, rows);
-        return signal.loss(towerOutputs(towers, batch), batch.target);
+        return batchLoss(objective, towerOutputs(towers, batch), batch.target);
       }), end - start);
     }
     return losses.read().mean;
@@ -135,7 +134,7 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
 async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: ExampleSet, options: TrainOptions, log: EpochLog[]): Promise<number> {
-  const { spec, towers, signal } = ctx;
+  const { spec, towers, objective } = ctx;
   const vars = allVariables(towers);
   const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
   let best: tf.Tensor[] = [];
@@ -146,7 +145,7 @@ async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: Examp
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
       const started = performance.now();
       const { loss, angles } = trainEpoch(ctx, train, epoch);
-      const validationLoss = evaluate(spec, towers, signal, validation, validationOrder);
+      const validationLoss = evaluate(spec, towers, objective, validation, validationOrder);
       if (!Number.isFinite(validationLoss)) throw new LearnerDivergedError(spec.name, 'validation', epoch, validationLoss);
       const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds: (performance.now() - started) / 1000, alignmentDeg: angles };
       log.push(entry);
@@ -175,29 +174,31 @@ async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: Examp
  * the run; so does any other failure.
  */
 export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedNetwork> {
-  checkSpec(spec);
+  const definition = options.objective ?? OBJECTIVE_REGISTRY[spec.objective as keyof typeof OBJECTIVE_REGISTRY];
+  if (definition == null) throw new Error(`learner '${spec.name}': unknown objective '${spec.objective}'`);
+  const rule = options.rule ?? RULE_REGISTRY[spec.rule as keyof typeof RULE_REGISTRY];
+  if (rule == null) throw new Error(`learner '${spec.name}': unknown rule '${spec.rule}'`);
+  checkSpec(spec, definition);
   if (options.alignEvery != null && !(Number.isInteger(options.alignEvery) && options.alignEvery >= 1)) {
     throw new Error(`learner '${spec.name}': alignEvery must be a positive integer, got ${options.alignEvery}`);
   }
-  const objective = OBJECTIVE_REGISTRY[spec.objective](spec, data);
+  const objective = bindObjective(definition, spec, data);
   const stats = new TrainingStatistics(data, split.train);
-  const signal = objective.signal;
-  const examples = signal == null ? null : [signal.examples(stats, split.train), signal.examples(stats, split.validation)];
+  const examples = objective.signal == null ? null : [splitExamples(objective, stats, split.train), splitExamples(objective, stats, split.validation)];
   for (const [i, which] of ['training', 'validation'].entries()) {
     const n = examples?.[i].n ?? Infinity;
-    if (n < minBatch(spec)) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
+    if (n < objective.minBatch) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
   }
   const towers = objective.towers.map((shape, i) => createTower(shape, spec.encoder.activation, towerStreams(options.seed, shape, spec.encoder.activation, i)));
   const log: EpochLog[] = [];
-  if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
-  const rule = options.rule ?? RULE_REGISTRY[spec.rule];
+  if (examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
   const [train, validation] = examples;
   const optimizer = createOptimizer(spec.train);
   let state: RuleState = [];
   let bestEpoch = 0;
   try {
     state = createRuleState(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
-    const ctx: EpochContext = { spec, towers, rule, state, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
+    const ctx: EpochContext = { spec, towers, rule, state, objective, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);

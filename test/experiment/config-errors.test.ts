@@ -71,7 +71,7 @@ describe('config validation', () => {
 
   it('rejects an unknown learning rule', async () => {
     expect(await rejection(VALID.replace('objective: reconstruct', 'objective: reconstruct\n    rule: feedback-alignmnt'))).toEqual([
-      "config.yaml:11:11: learners.1.rule: expected one of backprop | feedback-alignment | direct-feedback-alignment, got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
+      "config.yaml:11:11: learners.1.rule: expected one of backprop | feedback-alignment | direct-feedback-alignment | kolen-pollack | sign-symmetry, got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
     ]);
   });
 

@@ -2,6 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { initBackend, trainLearner } from '../../src/learn/index.js';
 import { createTower, disposeTower, towerVariables } from '../../src/learn/network.js';
+import { bindObjective } from '../../src/learn/bound-objective.js';
 import { OBJECTIVE_REGISTRY } from '../../src/learn/objectives.js';
 import type { LearnerSpec } from '../../src/learn/spec.js';
 import { towerStreams } from '../../src/learn/streams.js';
@@ -72,7 +73,7 @@ describe('the two towers of a contrast learner', () => {
   it('draw different heads though their heads have the same shape', () => {
     // Tower 0 reads sight, tower 1 sound; both heads map the last hidden layer (8) to an 8-wide embedding.
     const spec = learnerSpec({ objective: 'contrast', input: ['sight'], target: ['sound'] });
-    const shapes = OBJECTIVE_REGISTRY.contrast(spec, data).towers;
+    const shapes = bindObjective(OBJECTIVE_REGISTRY.contrast, spec, data).towers;
     const towers = shapes.map((shape, i) => createTower(shape, 'relu', towerStreams(3, shape, 'relu', i)));
     const [head0, head1] = towers.map((t) => Array.from(t.head!.W.dataSync()));
     expect(head0).toHaveLength(64);

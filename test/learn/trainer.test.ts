@@ -5,6 +5,7 @@ import { TrainingStatistics } from '../../src/learn/examples.js';
 import { heNormal } from '../../src/learn/init.js';
 import { meanSquaredError } from '../../src/learn/losses.js';
 import { disposeTower, forward } from '../../src/learn/network.js';
+import { bindObjective } from '../../src/learn/bound-objective.js';
 import { OBJECTIVE_REGISTRY } from '../../src/learn/objectives.js';
 import { trainNetwork } from '../../src/learn/trainer.js';
 import { OBJECTIVES, RULES, type EpochLog } from '../../src/learn/spec.js';
@@ -181,7 +182,7 @@ describe('early stopping', () => {
 describe('forecast examples', () => {
   it('pair step t with the action recorded at t + 1 (the action taken between t and t + 1)', () => {
     const spec = learnerSpec({ objective: 'forecast' });
-    const signal = OBJECTIVE_REGISTRY.forecast(spec, data).signal!;
+    const signal = bindObjective(OBJECTIVE_REGISTRY.forecast, spec, data).signal!;
     const steps = split.train.subarray(0, 60);
     const examples = signal.examples(new TrainingStatistics(data, split.train), steps);
     const rows = steps.filter((t) => data.hasNext[t] === 1);

@@ -3,26 +3,39 @@ import { CHANNELS, type ChannelName, type SenseSettings } from '../senses/channe
 import { channelSize } from '../senses/registry.js';
 import { createScene } from '../senses/scene.js';
 import { senseInto } from '../senses/sense-all.js';
-import { HEADINGS, type Action, type Pose, type World } from '../world/types.js';
+import { ACTIONS, HEADINGS, type Action, type Pose, type World } from '../world/types.js';
 import { LATENT_NAMES, type Dataset, type LatentName } from './dataset.js';
 import { PoseLatentTable, POSE_LATENTS } from './latents.js';
 import { MoveTable, poseOf } from './moves.js';
-import { POLICIES, POLICY_NAMES, type PolicyName } from './policies.js';
+import { POLICIES, POLICY_NAMES, type Observation, type PolicyDefinition, type PolicyName } from './policies.js';
 
 /** How to collect: which policy, how many steps in all, and how many per episode. */
 export interface CollectOptions {
-  readonly policy: PolicyName;
+  /** A built-in policy's name, or a policy definition (a plug-in's). */
+  readonly policy: PolicyName | PolicyDefinition;
   readonly steps: number;
   readonly episodeSteps: number;
 }
 
 function checkOptions(options: CollectOptions): void {
-  if (!(POLICY_NAMES as readonly string[]).includes(options.policy)) {
+  if (typeof options.policy === 'string' && !(POLICY_NAMES as readonly string[]).includes(options.policy)) {
     throw new Error(`unknown policy '${options.policy}'; expected one of ${POLICY_NAMES.join(', ')}`);
   }
   for (const key of ['steps', 'episodeSteps'] as const) {
     if (!Number.isInteger(options[key]) || options[key] < 1) throw new Error(`collect ${key} must be a whole number >= 1, got ${options[key]}`);
   }
+}
+
+const ACTION_SET: ReadonlySet<string> = new Set(ACTIONS);
+
+/** The policy's act function; a plug-in's answers are checked, since an unknown action would corrupt the move table. */
+function actOf(policy: PolicyName | PolicyDefinition): (observation: Observation, rng: Rng) => Action {
+  if (typeof policy === 'string') return POLICIES[policy].act;
+  return (observation, rng) => {
+    const action = policy.act(observation, rng);
+    if (!ACTION_SET.has(action)) throw new Error(`policy '${policy.name}' chose ${JSON.stringify(action)}; expected one of ${ACTIONS.join(', ')}`);
+    return action;
+  };
 }
 
 function freeCells(world: World): Int32Array {
@@ -71,7 +84,7 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
   checkOptions(options);
   const { steps, episodeSteps } = options;
   const rng = createRng(seed, 'collect');
-  const policy = POLICIES[options.policy];
+  const act = actOf(options.policy);
   const scene = createScene(world, settings);
   const moves = new MoveTable(world);
   const free = freeCells(world);
@@ -90,7 +103,7 @@ export function collect(world: World, options: CollectOptions, settings: SenseSe
       if (t > 0) k = moves.rest(randomPose(world, free, rng));
     } else {
       observation.transition = moves.transition(k);
-      action = policy(observation, rng);
+      action = act(observation, rng);
       k = moves.take(k, action);
     }
     const transition = moves.transition(k);

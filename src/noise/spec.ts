@@ -1,4 +1,5 @@
 import type { ChannelName } from '../senses/channel.js';
+import type { NoiseKindDefinition } from './kind-definition.js';
 
 /** Ways a test channel can be corrupted (a noise entry's `kind`). */
 export const NOISE_KINDS = ['gaussian', 'dropout', 'blackout', 'masking'] as const;
@@ -11,7 +12,10 @@ export type NoiseKind = (typeof NOISE_KINDS)[number];
  */
 export interface NoiseSpec {
   readonly channel: ChannelName;
-  readonly kind: NoiseKind;
+  /** A built-in kind (NOISE_KINDS) or a plug-in's name. */
+  readonly kind: string;
   readonly severities: readonly number[];
   readonly parameters?: readonly number[];
+  /** A plug-in kind's definition, attached where the plug-in is loaded; never stored or sent between threads. */
+  readonly definition?: NoiseKindDefinition;
 }

@@ -1,6 +1,7 @@
 import { CHANNELS } from '../senses/channel.js';
-import { NOISE_CHANNELS } from './corrupt.js';
-import { CLEAN_PARAMETER, MAX_SEVERITY } from './severity.js';
+import { kindChannels, NOISE_KIND_REGISTRY } from './corrupt.js';
+import type { NoiseKindDefinition } from './kind-definition.js';
+import { MAX_SEVERITY } from './severity.js';
 import { NOISE_KINDS, type NoiseKind } from './spec.js';
 
 /** A noise entry as a config's `noise` list holds it, before its names are known to be valid. */
@@ -17,15 +18,14 @@ export interface NoiseProblem {
   readonly message: string;
 }
 
-/** What each kind's parameter means and which values it allows. */
-const PARAMETER_RULE: Readonly<Record<NoiseKind, { readonly meaning: string; readonly valid: (p: number) => boolean }>> = {
-  gaussian: { meaning: 'a std multiple σ ≥ 0', valid: (p) => Number.isFinite(p) && p >= 0 },
-  dropout: { meaning: 'a fraction p in [0, 1]', valid: (p) => p >= 0 && p <= 1 },
-  blackout: { meaning: 'a probability p in [0, 1]', valid: (p) => p >= 0 && p <= 1 },
-  masking: { meaning: 'an SNR in dB (a finite number, or .inf for clean)', valid: (p) => p === Infinity || Number.isFinite(p) },
-};
+/**
+ * The definition of a noise entry's kind as written: undefined for an unknown name, null for
+ * one whose problem has already been reported (a plug-in file that did not load).
+ */
+export type NoiseKindLookup = (kind: string) => NoiseKindDefinition | null | undefined;
 
-const isKind = (kind: string): kind is NoiseKind => (NOISE_KINDS as readonly string[]).includes(kind);
+/** The built-in kinds by name. */
+export const builtInNoiseKind: NoiseKindLookup = (kind) => NOISE_KIND_REGISTRY[kind as NoiseKind];
 const yamlNumber = (p: number): string => (p === Infinity ? '.inf' : p === -Infinity ? '-.inf' : String(p));
 
 /**
@@ -36,14 +36,15 @@ const yamlNumber = (p: number): string => (p === Infinity ? '.inf' : p === -Infi
  * other than the clean value at severity 0, and two entries with the same channel and kind
  * (they would share result rows and noise draws). Empty when the list is valid.
  */
-export function noiseProblems(entries: readonly NoiseEntry[]): NoiseProblem[] {
-  const problems = entries.flatMap((entry, i) => entryProblems(entry, ['noise', i]));
+export function noiseProblems(entries: readonly NoiseEntry[], lookup: NoiseKindLookup = builtInNoiseKind): NoiseProblem[] {
+  const problems = entries.flatMap((entry, i) => entryProblems(entry, ['noise', i], lookup));
+  const names = entries.map((entry) => lookup(entry.kind)?.name ?? entry.kind);
   entries.forEach((entry, i) => {
-    const first = entries.findIndex((other) => other.channel === entry.channel && other.kind === entry.kind);
+    const first = entries.findIndex((other, j) => other.channel === entry.channel && names[j] === names[i]);
     if (first < i) {
       problems.push({
         path: ['noise', i],
-        message: `${entry.channel} ${entry.kind} is already noise.${first}; entries with the same channel and kind would share result rows and noise draws`,
+        message: `${entry.channel} ${names[i]} is already noise.${first}; entries with the same channel and kind would share result rows and noise draws`,
       });
     }
   });
@@ -56,14 +57,17 @@ export function checkNoiseEntries(entries: readonly NoiseEntry[]): void {
   if (problems.length > 0) throw new Error(problems.map((p) => `${p.path.join('.')}: ${p.message}`).join('; '));
 }
 
-function entryProblems(entry: NoiseEntry, at: readonly (string | number)[]): NoiseProblem[] {
+function entryProblems(entry: NoiseEntry, at: readonly (string | number)[], lookup: NoiseKindLookup): NoiseProblem[] {
   const problem = (path: readonly (string | number)[], message: string): NoiseProblem[] => [{ path: [...at, ...path], message }];
-  const { channel, kind, severities, parameters } = entry;
+  const { channel, severities, parameters } = entry;
   if (!(CHANNELS as readonly string[]).includes(channel)) return problem(['channel'], `expected one of ${CHANNELS.join(' | ')}, got '${channel}'`);
-  if (!isKind(kind)) return problem(['kind'], `expected one of ${NOISE_KINDS.join(' | ')}, got '${kind}'`);
+  const kind = lookup(entry.kind);
+  if (kind === null) return [];
+  if (kind === undefined) return problem(['kind'], `expected one of ${NOISE_KINDS.join(' | ')}, got '${entry.kind}'`);
   const problems: NoiseProblem[] = [];
-  if (!(NOISE_CHANNELS[kind] as readonly string[]).includes(channel)) {
-    problems.push(...problem(['channel'], `${kind} noise applies to ${NOISE_CHANNELS[kind].join(', ')} only, got '${channel}'`));
+  const channels = kindChannels(kind);
+  if (!(channels as readonly string[]).includes(channel)) {
+    problems.push(...problem(['channel'], `${kind.name} noise applies to ${channels.join(', ')} only, got '${channel}'`));
   }
   if (severities.length === 0) return [...problems, ...problem(['severities'], 'expected at least 1 severity, got an empty list')];
   severities.forEach((severity, j) => {
@@ -78,11 +82,10 @@ function entryProblems(entry: NoiseEntry, at: readonly (string | number)[]): Noi
     return [...problems, ...problem(['parameters'], `expected one value per severity (${severities.length}), got ${parameters.length}`)];
   }
   parameters.forEach((p, j) => {
-    const clean = CLEAN_PARAMETER[kind];
-    if (severities[j] === 0 && p !== clean) {
-      problems.push(...problem(['parameters', j], `severity 0 is the clean input, so its parameter must be ${yamlNumber(clean)}, got ${yamlNumber(p)}`));
-    } else if (!PARAMETER_RULE[kind].valid(p)) {
-      problems.push(...problem(['parameters', j], `expected ${PARAMETER_RULE[kind].meaning}, got ${yamlNumber(p)}`));
+    if (severities[j] === 0 && p !== kind.clean) {
+      problems.push(...problem(['parameters', j], `severity 0 is the clean input, so its parameter must be ${yamlNumber(kind.clean)}, got ${yamlNumber(p)}`));
+    } else if (!kind.valid(p)) {
+      problems.push(...problem(['parameters', j], `expected ${kind.parameter}, got ${yamlNumber(p)}`));
     }
   });
   return problems;

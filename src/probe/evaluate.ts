@@ -1,6 +1,6 @@
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import type { FeatureExtractor } from '../learn/spec.js';
-import { corruptChannel, noiseRng } from '../noise/corrupt.js';
+import { corruptChannel, noiseKindOf, noiseRng } from '../noise/corrupt.js';
 import { checkNoiseEntries } from '../noise/validate.js';
 import { channelReference } from '../noise/reference.js';
 import { noiseParameter } from '../noise/severity.js';
@@ -138,7 +138,7 @@ function corruptedFeatures(args: EvaluationArgs, spec: NoiseSpec, test: RowInput
   const noisy = spec.severities.filter((severity) => severity > 0); // severities never repeat (checkNoiseSpec)
   const encoded = encodeDistinct(encoder, data.channelSize, noisy.map((severity) => {
     const parameter = noiseParameter(spec, spec.severities.indexOf(severity));
-    const values = corruptChannel(clean, size, spec.kind, parameter, reference, noiseRng(seed, spec.channel, spec.kind, severity));
+    const values = corruptChannel(clean, size, noiseKindOf(spec), parameter, reference, noiseRng(seed, spec.channel, spec.kind, severity));
     return { n: test.n, channels: { ...test.channels, [spec.channel]: values } };
   }));
   return spec.severities.map((severity) => {

@@ -2,10 +2,9 @@ import { createHash } from 'node:crypto';
 import { z } from 'zod';
 import type { CollectOptions } from '../collect/collector.js';
 import { LATENT_NAMES } from '../collect/dataset.js';
-import { POLICY_NAMES } from '../collect/policies.js';
 import type { SplitFractions } from '../collect/split.js';
-import { ACTIVATIONS, OBJECTIVES, OPTIMIZERS, RULES, type LearnerSpec } from '../learn/spec.js';
-import { NOISE_KINDS, type NoiseSpec } from '../noise/spec.js';
+import { ACTIVATIONS, OPTIMIZERS, type LearnerSpec } from '../learn/spec.js';
+import type { NoiseSpec } from '../noise/spec.js';
 import { CHANNELS, type SenseSettings } from '../senses/channel.js';
 import { RESULTS_FORMAT_VERSION } from './format-version.js';
 
@@ -16,31 +15,45 @@ export interface CellSettings {
   readonly seed: number;
   /** SHA-256 of the world file's bytes (its path does not count). */
   readonly worldSha256: string;
-  readonly collect: CollectOptions & { readonly split: SplitFractions };
+  /** The policy by name (a built-in's, or a plug-in's). */
+  readonly collect: Omit<CollectOptions, 'policy'> & { readonly policy: string; readonly split: SplitFractions };
   readonly senses: SenseSettings;
   readonly probeTargets: readonly string[];
   readonly noise: readonly NoiseSpec[];
   /** The cell's vary values, as text. */
   readonly vary: Readonly<Record<string, string>>;
+  /** The SHA-256 of each plug-in the cell uses (its file and every file it imports); left out when it uses none. */
+  readonly plugins?: PluginHashes;
+}
+
+/** The content hashes of the plug-ins of one cell, by the part each plays. */
+export interface PluginHashes {
+  readonly objective?: string;
+  readonly rule?: string;
+  readonly policy?: string;
+  /** By noise kind name. */
+  readonly noise?: Readonly<Record<string, string>>;
 }
 
 const channels = z.array(z.enum(CHANNELS));
 
 /**
  * A cell's identity as stored in cell.json, in the config's snake_case spelling. It holds
- * what determines the numbers and nothing else: not the backend, the world's path, the
- * probe baseline (a reporting choice) or output-only settings (save_features, align_every).
+ * what determines the numbers and nothing else: not the backend, the world's or a plug-in's
+ * path, the probe baseline (a reporting choice) or output-only settings (save_features,
+ * align_every). `plugins` is present only for cells that use one, so the ids of other cells
+ * do not change.
  */
 export const cellIdentitySchema = z.object({
   learner: z.object({
     name: z.string(),
-    objective: z.enum(OBJECTIVES),
+    objective: z.string(), // a built-in's name or a plug-in's
     input: channels,
     target: channels,
     offset: z.union([z.literal(0), z.literal(1)]),
     supervised_targets: z.array(z.enum(LATENT_NAMES)),
     encoder: z.object({ hidden: z.array(z.number().int()), activation: z.enum(ACTIVATIONS) }),
-    rule: z.enum(RULES),
+    rule: z.string(),
     train: z.object({
       optimizer: z.enum(OPTIMIZERS),
       learning_rate: z.number(),
@@ -53,7 +66,7 @@ export const cellIdentitySchema = z.object({
   seed: z.number().int(),
   world_sha256: z.string(),
   collect: z.object({
-    policy: z.enum(POLICY_NAMES),
+    policy: z.string(),
     steps: z.number().int(),
     episode_steps: z.number().int(),
     split: z.object({ train: z.number(), validation: z.number(), test: z.number() }),
@@ -65,11 +78,17 @@ export const cellIdentitySchema = z.object({
   probe_targets: z.array(z.string()),
   noise: z.array(z.object({
     channel: z.enum(CHANNELS),
-    kind: z.enum(NOISE_KINDS),
+    kind: z.string(),
     severities: z.array(z.number()),
     parameters: z.array(z.number()).optional(),
   })),
   vary: z.record(z.string(), z.string()),
+  plugins: z.object({
+    objective: z.string().optional(),
+    rule: z.string().optional(),
+    policy: z.string().optional(),
+    noise: z.record(z.string(), z.string()).optional(),
+  }).optional(),
 });
 
 /** A cell's identity, in file spelling. */
@@ -109,6 +128,7 @@ export function cellIdentity(settings: CellSettings): CellIdentity {
       ...(entry.parameters == null ? {} : { parameters: [...entry.parameters] }),
     })),
     vary: { ...settings.vary },
+    ...(settings.plugins == null ? {} : { plugins: { ...settings.plugins, ...(settings.plugins.noise == null ? {} : { noise: { ...settings.plugins.noise } }) } }),
   };
 }
 

@@ -23,13 +23,13 @@ function counts(draw: () => Action, n: number): Record<Action, number> {
 describe('wander', () => {
   it('always turns when the front whisker touches a wall', () => {
     const rng = createRng(1, 'test');
-    const c = counts(() => wander(observation(30, 30, 1), rng), 1000);
+    const c = counts(() => wander.act(observation(30, 30, 1), rng), 1000);
     expect(c['turn-left'] + c['turn-right']).toBe(1000);
   });
 
   it('mostly goes forward in the open (0.8 by design; N = 4000, 5 standard errors = 0.032)', () => {
     const rng = createRng(2, 'test');
-    const c = counts(() => wander(observation(30, 30), rng), 4000);
+    const c = counts(() => wander.act(observation(30, 30), rng), 4000);
     expect(Math.abs(c.forward / 4000 - 0.8)).toBeLessThan(0.032);
   });
 });
@@ -37,7 +37,7 @@ describe('wander', () => {
 describe('uniform', () => {
   it('draws each action with probability 1/5 (N = 10000, 5 standard errors = 0.02)', () => {
     const rng = createRng(3, 'test');
-    const c = counts(() => uniform(observation(30, 30), rng), 10000);
+    const c = counts(() => uniform.act(observation(30, 30), rng), 10000);
     for (const a of ACTIONS) expect(Math.abs(c[a] / 10000 - 0.2)).toBeLessThan(0.02);
   });
 });
@@ -45,9 +45,9 @@ describe('uniform', () => {
 describe('seek', () => {
   it('turns towards the louder ear and goes forward when the ears agree', () => {
     const rng = createRng(4, 'test');
-    const right = counts(() => seek(observation(30, 40), rng), 2000);
-    const left = counts(() => seek(observation(40, 30), rng), 2000);
-    const ahead = counts(() => seek(observation(35, 35), rng), 2000);
+    const right = counts(() => seek.act(observation(30, 40), rng), 2000);
+    const left = counts(() => seek.act(observation(40, 30), rng), 2000);
+    const ahead = counts(() => seek.act(observation(35, 35), rng), 2000);
     expect(right['turn-right']).toBeGreaterThan(1700);
     expect(left['turn-left']).toBeGreaterThan(1700);
     expect(ahead.forward).toBeGreaterThan(1700);

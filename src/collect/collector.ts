@@ -11,8 +11,8 @@ import { POLICIES, POLICY_NAMES, type Observation, type PolicyDefinition, type P
 
 /** How to collect: which policy, how many steps in all, and how many per episode. */
 export interface CollectOptions {
-  /** A built-in policy's name, or a policy definition (a plug-in's). */
-  readonly policy: PolicyName | PolicyDefinition;
+  /** A built-in policy's name (POLICY_NAMES), or a policy definition (a plug-in's). */
+  readonly policy: string | PolicyDefinition;
   readonly steps: number;
   readonly episodeSteps: number;
 }
@@ -29,8 +29,8 @@ function checkOptions(options: CollectOptions): void {
 const ACTION_SET: ReadonlySet<string> = new Set(ACTIONS);
 
 /** The policy's act function; a plug-in's answers are checked, since an unknown action would corrupt the move table. */
-function actOf(policy: PolicyName | PolicyDefinition): (observation: Observation, rng: Rng) => Action {
-  if (typeof policy === 'string') return POLICIES[policy].act;
+function actOf(policy: string | PolicyDefinition): (observation: Observation, rng: Rng) => Action {
+  if (typeof policy === 'string') return POLICIES[policy as PolicyName].act;
   return (observation, rng) => {
     const action = policy.act(observation, rng);
     if (!ACTION_SET.has(action)) throw new Error(`policy '${policy.name}' chose ${JSON.stringify(action)}; expected one of ${ACTIONS.join(', ')}`);

@@ -8,6 +8,7 @@ import { evaluateEncoder } from '../probe/evaluate.js';
 import { parseWorld } from '../world/parse.js';
 import type { NpyArray } from '../results/npy.js';
 import type { Measurement } from '../results/results-table.js';
+import { loadCellParts, namingPlugins } from './cell-plugins.js';
 import type { CellOutcome, CellWork } from './cell-work.js';
 
 /**
@@ -22,14 +23,18 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
     throw new Error(`world file ${cell.world.path} changed since the sweep was planned; plan again`);
   }
   const world = parseWorld(worldBytes.toString('utf8'), cell.world.path); // the bytes just hashed, not a second read
-  const data = collect(world, { policy: cell.collect.policy, steps: cell.collect.steps, episodeSteps: cell.collect.episodeSteps }, cell.senses, cell.seed);
+  const parts = loadCellParts(cell.plugins);
+  const collectOptions = { policy: parts.policy ?? cell.collect.policy, steps: cell.collect.steps, episodeSteps: cell.collect.episodeSteps };
+  const data = await namingPlugins(cell.plugins, ['policy'], () => collect(world, collectOptions, cell.senses, cell.seed));
   const split = splitByEpisode(data, cell.collect.split, cell.seed);
   const collectSeconds = clock();
   await initBackend(cell.backend);
-  const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch, alignEvery: cell.output.alignEvery });
+  const trainOptions = { seed: cell.seed, onEpoch, alignEvery: cell.output.alignEvery, objective: parts.objective, rule: parts.rule };
+  const { encoder, log } = await namingPlugins(cell.plugins, ['objective', 'rule'], () => trainLearner(cell.learner, data, split, trainOptions));
   const trainSeconds = clock();
   try {
-    const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
+    const noise = cell.noise.map((spec) => (parts.noise[spec.kind] == null ? spec : { ...spec, definition: parts.noise[spec.kind] }));
+    const evaluation = await namingPlugins(cell.plugins, ['noise'], () => evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise, seed: cell.seed }));
     const rows: Measurement[] = evaluation.rows.map((row) => ({ ...row, measure: 'score' }));
     const arrays: Record<string, NpyArray> = {
       test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },

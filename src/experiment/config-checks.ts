@@ -1,23 +1,46 @@
 import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { noiseProblems } from '../noise/validate.js';
+import { OBJECTIVE_TARGET, type ObjectiveName, type TargetUse } from '../learn/spec.js';
+import type { NoiseKindDefinition } from '../noise/kind-definition.js';
+import { builtInNoiseKind, noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
+import { isPluginPath } from './plugin-bundle.js';
+import type { PluginCatalog } from './plugin-catalog.js';
+import type { PluginType } from './plugin-shapes.js';
 import type { FilledConfig } from './schema.js';
 
 type Learner = FilledConfig['learners'][number];
+type Path = readonly (string | number)[];
 
-/** Problems a schema cannot see: cross-references, files on disk, sums and learner consistency. */
-export function checkConfig(config: FilledConfig, configDir: string): ConfigProblem[] {
-  return [
+/** Problems a schema cannot see: cross-references, files on disk (world, plug-ins), sums and learner consistency. */
+export function checkConfig(config: FilledConfig, configDir: string, plugins: PluginCatalog): ConfigProblem[] {
+  const problems: ConfigProblem[] = [];
+  /** The plug-in a value names (its problem recorded at `path`), or undefined for a built-in name. */
+  const plugin = (type: PluginType, value: string, path: Path) => {
+    if (!isPluginPath(value)) return undefined;
+    const loaded = plugins.resolve(type, value);
+    if ('problem' in loaded) problems.push({ path, message: loaded.problem });
+    return 'problem' in loaded ? null : loaded.definition;
+  };
+  plugin('policy', config.collect.policy, ['collect', 'policy']);
+  const noiseKinds = new Map(config.noise.map((entry, i) => [entry.kind, plugin('noise', entry.kind, ['noise', i, 'kind']) as NoiseKindDefinition | null | undefined]));
+  problems.push(
     ...checkWorld(config, configDir),
     ...checkSeeds(config.seeds),
     ...checkCollect(config),
     ...checkSenses(config),
     ...checkLearnerNames(config.learners),
-    ...config.learners.flatMap((learner, i) => checkLearner(learner, ['learners', i])),
+    ...config.learners.flatMap((learner, i) => {
+      const at = ['learners', i];
+      const objective = plugin('objective', learner.objective, [...at, 'objective']) as { target: TargetUse } | null | undefined;
+      plugin('rule', learner.rule, [...at, 'rule']);
+      const target = objective === undefined ? OBJECTIVE_TARGET[learner.objective as ObjectiveName] : objective?.target;
+      return checkLearner(learner, at, target);
+    }),
     ...checkProbe(config),
-    ...noiseProblems(config.noise),
-  ];
+    ...noiseProblems(config.noise, (kind) => (noiseKinds.get(kind) === undefined ? builtInNoiseKind(kind) : noiseKinds.get(kind))),
+  );
+  return problems;
 }
 
 function checkWorld(config: FilledConfig, configDir: string): ConfigProblem[] {
@@ -56,18 +79,18 @@ function checkLearnerNames(learners: readonly Learner[]): ConfigProblem[] {
   });
 }
 
-function checkLearner(learner: Learner, at: readonly (string | number)[]): ConfigProblem[] {
+/** A learner's own problems; `target` is how its objective uses target channels (undefined when the objective did not load). */
+function checkLearner(learner: Learner, at: Path, target: TargetUse | undefined): ConfigProblem[] {
   const problems: ConfigProblem[] = [];
   const problem = (key: string, message: string) => problems.push({ path: [...at, key], message });
   learner.input.forEach((channel, i) => {
     if (learner.input.indexOf(channel) < i) problems.push({ path: [...at, 'input', i], message: `channel '${channel}' is listed twice` });
   });
-  const wantsTarget = learner.objective === 'predict' || learner.objective === 'contrast';
-  if (wantsTarget && (learner.target == null || learner.target.length === 0)) {
+  if (target === 'required' && (learner.target == null || learner.target.length === 0)) {
     problem('target', `required for objective '${learner.objective}': a non-empty list of channels`);
   }
-  if (!wantsTarget && learner.target != null) {
-    problem('target', `only predict and contrast learners have a target; objective '${learner.objective}' does not use it`);
+  if (target === 'unused' && learner.target != null) {
+    problem('target', `only objectives that use a target have one (predict, contrast, or a plug-in that asks for it); objective '${learner.objective}' does not use it`);
   }
   if (learner.objective === 'predict' && learner.target != null && sameSet(learner.target, learner.input)) {
     problem('target', 'expected channels other than the input (use objective reconstruct or forecast to predict its own input)');

@@ -4,6 +4,7 @@ import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
 import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { DEFAULTS } from './defaults.js';
+import { PluginCatalog } from './plugin-catalog.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
@@ -28,18 +29,19 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const parsed = configSchema.safeParse(source.doc.toJS(), { reportInput: true });
   if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
   const filled = parsed.data as FilledConfig;
-  fail(checkConfig(filled, configDir));
+  const plugins = new PluginCatalog(configDir);
+  fail(checkConfig(filled, configDir, plugins));
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
-  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
+  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, plugins, key, matches[i])));
 
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
-    const problems = validate(config, configDir);
+    const problems = validate(config, configDir, plugins);
     if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
-      settings: resolveSettings(config, resolve(configDir, config.world)),
+      settings: resolveSettings(config, resolve(configDir, config.world), plugins),
     };
   });
   return {
@@ -51,6 +53,7 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
     varyKeys,
     combinations,
     filled,
+    plugins: plugins.plugins,
   };
 }
 
@@ -89,13 +92,13 @@ function parseSource(file: string): ConfigSource {
   return { file, doc, lineCounter };
 }
 
-function validate(config: FilledConfig, configDir: string): ConfigProblem[] {
+function validate(config: FilledConfig, configDir: string, plugins: PluginCatalog): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
   if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
-  return checkConfig(parsed.data, configDir);
+  return checkConfig(parsed.data, configDir, plugins);
 }
 
-function checkVaryKey(filled: FilledConfig, configDir: string, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
+function checkVaryKey(filled: FilledConfig, configDir: string, plugins: PluginCatalog, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
   const at = ['vary', key];
   if (paths.length === 0) {
     return [{ path: at, atKey: true, message: `matches no setting${suggestion(key, settablePaths(filled))}` }];
@@ -104,7 +107,7 @@ function checkVaryKey(filled: FilledConfig, configDir: string, key: string, path
   const texts = values.map(varyText);
   return values.flatMap((value, i) => {
     if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
-    const problems = validate(withValues(filled, [{ paths, value }]), configDir);
+    const problems = validate(withValues(filled, [{ paths, value }]), configDir, plugins);
     return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
   });
 }

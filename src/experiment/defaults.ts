@@ -1,11 +1,11 @@
 import type { LatentName } from '../collect/dataset.js';
-import type { PolicyName } from '../collect/policies.js';
 import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
 /** How the agent gathers experience for one seed. */
 export interface CollectSettings {
-  readonly policy: PolicyName;
+  /** A built-in policy (POLICY_NAMES) or a plug-in's name. */
+  readonly policy: string;
   readonly steps: number;
   readonly episodeSteps: number;
   readonly split: { readonly train: number; readonly validation: number; readonly test: number };

@@ -3,11 +3,19 @@ import { readFileSync } from 'node:fs';
 import type { BackendName, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { SenseSettings } from '../senses/channel.js';
-import { cellId, cellIdentity, type CellSettings } from '../results/cell-identity.js';
+import { cellId, cellIdentity, type CellSettings, type PluginHashes } from '../results/cell-identity.js';
+import { pluginBundlePath } from '../results/layout.js';
 import type { Plan } from '../results/plan-table.js';
 import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
 import type { CellLabel } from './events.js';
+import type { PluginRef } from './plugin-catalog.js';
 import type { Sweep } from './resolved-config.js';
+
+/** A plug-in as a planned cell carries it: where its source is and where its bundled script is kept. */
+export interface PlannedPlugin extends PluginRef {
+  /** Absolute path of the bundled script in the output folder (pluginBundlePath). */
+  readonly bundle: string;
+}
 
 /** Everything one cell needs, self-contained so it can be sent to a worker or another machine. */
 export interface PlannedCell {
@@ -25,6 +33,8 @@ export interface PlannedCell {
   readonly senses: SenseSettings;
   readonly probe: ProbeSettings;
   readonly noise: readonly NoiseSpec[];
+  /** The plug-ins the cell's objective, rule, policy and noise kinds come from; empty when all are built in. */
+  readonly plugins: readonly PlannedPlugin[];
 }
 
 /**
@@ -40,7 +50,7 @@ export function planCells(sweep: Sweep): PlannedCell[] {
   const cells: PlannedCell[] = [];
   for (const { vary, settings } of sweep.combinations) {
     for (const seed of sweep.seeds) {
-      for (const { spec, output } of settings.learners) {
+      for (const { spec, output, plugins } of settings.learners) {
         const cell = {
           seed,
           vary,
@@ -52,6 +62,7 @@ export function planCells(sweep: Sweep): PlannedCell[] {
           senses: settings.senses,
           probe: settings.probe,
           noise: settings.noise,
+          plugins: [...settings.plugins, ...plugins].map((ref) => ({ ...ref, bundle: pluginBundlePath(sweep.out, ref.name, ref.sha256) })),
         };
         cells.push({ index: cells.length, id: cellId(cellIdentity(cellSettings(cell))), ...cell });
       }
@@ -71,6 +82,19 @@ export function cellSettings(cell: Omit<PlannedCell, 'index' | 'id'>): CellSetti
     probeTargets: cell.probe.targets,
     noise: cell.noise,
     vary: cell.vary,
+    ...(cell.plugins.length === 0 ? {} : { plugins: pluginHashes(cell.plugins) }),
+  };
+}
+
+/** The content hash of each plug-in of a cell, by the part it plays. */
+function pluginHashes(plugins: readonly PluginRef[]): PluginHashes {
+  const of = (type: PluginRef['type']) => plugins.find((p) => p.type === type)?.sha256;
+  const noise = plugins.filter((p) => p.type === 'noise');
+  return {
+    objective: of('objective'),
+    rule: of('rule'),
+    policy: of('policy'),
+    noise: noise.length === 0 ? undefined : Object.fromEntries(noise.map((p) => [p.name, p.sha256])),
   };
 }
 

@@ -3,12 +3,17 @@ import type { BackendName, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
 import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
+import { isPluginPath } from './plugin-bundle.js';
+import type { LoadedPlugin, PluginCatalog, PluginRef } from './plugin-catalog.js';
+import type { PluginType } from './plugin-shapes.js';
 import type { FilledConfig } from './schema.js';
 
 /** A learner as the sweep runs it: what it learns, and what its cells record beside the numbers. */
 export interface PlannedLearner {
   readonly spec: LearnerSpec;
   readonly output: OutputSettings;
+  /** The plug-ins its objective and rule come from (none when both are built in). */
+  readonly plugins: readonly PluginRef[];
 }
 
 /** One combination of a sweep's settings, in the camelCase types the modules take. */
@@ -20,15 +25,26 @@ export interface ResolvedSettings {
   readonly learners: readonly PlannedLearner[];
   readonly probe: ProbeSettings;
   readonly noise: readonly NoiseSpec[];
+  /** The plug-ins its policy and noise kinds come from (none when all are built in). */
+  readonly plugins: readonly PluginRef[];
+}
+
+/** The name of the part a config value names, and the plug-in it comes from when it is a file. */
+function part(plugins: PluginCatalog, type: PluginType, value: string): { name: string; refs: PluginRef[] } {
+  if (!isPluginPath(value)) return { name: value, refs: [] };
+  const { name, path, sha256 } = plugins.resolve(type, value) as LoadedPlugin; // loaded when the config was checked
+  return { name, refs: [{ type, name, path, sha256 }] };
 }
 
 /** Settings in module spelling for a filled, checked config whose world path is already absolute. */
-export function resolveSettings(config: FilledConfig, worldPath: string): ResolvedSettings {
+export function resolveSettings(config: FilledConfig, worldPath: string, plugins: PluginCatalog): ResolvedSettings {
   const probeTargets = config.probe.targets as readonly LatentName[];
+  const policy = part(plugins, 'policy', config.collect.policy);
+  const noiseKinds = config.noise.map((entry) => part(plugins, 'noise', entry.kind));
   return {
     worldPath,
     collect: {
-      policy: config.collect.policy,
+      policy: policy.name,
       steps: config.collect.steps,
       episodeSteps: config.collect.episode_steps,
       split: { ...config.collect.split },
@@ -37,14 +53,20 @@ export function resolveSettings(config: FilledConfig, worldPath: string): Resolv
       sight: { ...config.senses.sight },
       sound: { bands: config.senses.sound.bands, minHz: config.senses.sound.min_hz, maxHz: config.senses.sound.max_hz },
     },
-    learners: config.learners.map((learner) => ({
-      spec: learnerSpec(learner, probeTargets),
-      output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
-    })),
+    learners: config.learners.map((learner) => {
+      const objective = part(plugins, 'objective', learner.objective);
+      const rule = part(plugins, 'rule', learner.rule);
+      return {
+        spec: { ...learnerSpec(learner, probeTargets), objective: objective.name, rule: rule.name },
+        output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
+        plugins: [...objective.refs, ...rule.refs],
+      };
+    }),
     probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
-    noise: config.noise.map((entry) => ({
+    plugins: [...policy.refs, ...noiseKinds.flatMap((kind) => kind.refs)],
+    noise: config.noise.map((entry, i) => ({
       channel: entry.channel,
-      kind: entry.kind,
+      kind: noiseKinds[i].name,
       severities: [...entry.severities],
       ...(entry.parameters == null ? {} : { parameters: [...entry.parameters] }),
     })),
@@ -86,4 +108,6 @@ export interface Sweep {
   readonly combinations: readonly { readonly vary: Readonly<Record<string, string>>; readonly settings: ResolvedSettings }[];
   /** The config with every default filled in, as written to config.resolved.yaml. */
   readonly filled: FilledConfig;
+  /** Every plug-in the config names (in any combination), bundled and loaded. */
+  readonly plugins: readonly LoadedPlugin[];
 }

@@ -1,8 +1,8 @@
-import { mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync } from 'node:fs';
 import { writeFileAtomic } from '../results/atomic-file.js';
 import { isFinished, removePartialCells } from '../results/cell-folder.js';
 import { readCellRecord } from '../results/cell-record.js';
-import { outputPath } from '../results/layout.js';
+import { outputPath, pluginBundlePath } from '../results/layout.js';
 import { formatPlanCsv, readPlan } from '../results/plan-table.js';
 import { readStoredResults, writeResultsCsv } from '../results/stored-results.js';
 import type { RunEvent, RunListener } from './events.js';
@@ -73,10 +73,17 @@ export function cellEndEvent(cell: PlannedCell, worker: number, result: CellResu
     : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason };
 }
 
-/** Creates the output folder, writes config.resolved.yaml and plan.csv, clears leftovers of killed runs; returns the plan. */
+/**
+ * Creates the output folder, writes config.resolved.yaml, plan.csv and the bundled script of
+ * each plug-in (kept: a script's name holds its hash), clears leftovers of killed runs; returns the plan.
+ */
 export function prepareOutput(sweep: Sweep): PlannedCell[] {
   const cells = planCells(sweep);
   mkdirSync(outputPath(sweep.out, 'cells'), { recursive: true });
+  for (const plugin of sweep.plugins) {
+    const bundle = pluginBundlePath(sweep.out, plugin.name, plugin.sha256);
+    if (!existsSync(bundle)) writeFileAtomic(bundle, plugin.code);
+  }
   writeFileAtomic(outputPath(sweep.out, 'config'), resolvedConfigYaml(sweep));
   writeFileAtomic(outputPath(sweep.out, 'plan'), formatPlanCsv(planTable(cells, sweep.varyKeys)));
   removePartialCells(sweep.out);

@@ -14,6 +14,15 @@ const int = (min: number, max: number) => z.number().int().min(min).max(max);
 const fraction = z.number().gt(0).lt(1);
 const channelList = z.array(z.enum(CHANNELS));
 
+/**
+ * A built-in part by name, or a plug-in file (relative to the config file) in its place. The
+ * file pattern's message names both, since a misspelt name fails the pattern last.
+ */
+const part = <const T extends readonly [string, ...string[]]>(names: T) => z.union([
+  z.enum(names),
+  z.string().regex(/\.(ts|mts|js|mjs|cjs)$/, { message: `one of ${names.join(' | ')}, or a plug-in file (.ts, .mts, .js, .mjs or .cjs)` }),
+]);
+
 const encoder = z.strictObject({
   hidden: z.array(int(1, 4096)).min(1).max(8).default([...d.learner.encoder.hidden]),
   activation: z.enum(ACTIVATIONS).default(d.learner.encoder.activation),
@@ -32,13 +41,13 @@ const train = z.strictObject({
 
 const learner = z.strictObject({
   name: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'letters, digits, ".", "_" or "-"'),
-  objective: z.enum(OBJECTIVES),
+  objective: part(OBJECTIVES).describe('A built-in objective, or a plug-in file (relative to this config) that default-exports one.'),
   input: channelList.min(1),
   target: channelList.optional().describe('predict and contrast only: channels to predict or align with.'),
   offset: z.union([z.literal(0), z.literal(1)]).default(d.learner.offset),
   supervised_targets: z.array(z.enum(LATENT_NAMES)).optional().describe('supervised only; defaults to the probe targets.'),
   encoder: encoder.prefault({}),
-  rule: z.enum(RULES).default(d.learner.rule),
+  rule: part(RULES).default(d.learner.rule).describe('A built-in learning rule, or a plug-in file that default-exports one.'),
   train: train.prefault({}),
   save_features: z.boolean().default(d.learner.saveFeatures)
     .describe('Also store features.npy and latents.npy of every collected step. Output-only: not part of the cell id.'),
@@ -50,7 +59,7 @@ const parameterValue = z.custom<number>((v) => typeof v === 'number' && !Number.
 // Only the shape of a noise entry: every rule about values is noise/validate.ts's.
 const noise = z.strictObject({
   channel: z.enum(CHANNELS),
-  kind: z.enum(NOISE_KINDS),
+  kind: part(NOISE_KINDS).describe('A built-in noise kind, or a plug-in file that default-exports one.'),
   severities: z.array(z.number()).default([...d.severities])
     .describe('0 is clean; 1..5 use the documented table; any whole number with explicit parameters.'),
   parameters: z.array(parameterValue).optional()
@@ -64,7 +73,7 @@ export const configSchema = z.strictObject({
   seeds: z.array(int(0, 2 ** 31 - 1)).min(1).default([...d.seeds]),
   backend: z.enum(BACKENDS).default(d.backend),
   collect: z.strictObject({
-    policy: z.enum(POLICY_NAMES).default(d.collect.policy),
+    policy: part(POLICY_NAMES).default(d.collect.policy).describe('A built-in behaviour policy, or a plug-in file that default-exports one.'),
     steps: int(100, 10_000_000).default(d.collect.steps),
     episode_steps: int(2, 1_000_000).default(d.collect.episodeSteps),
     split: z.strictObject({

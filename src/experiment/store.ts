@@ -45,6 +45,7 @@ function cellRecord(cell: PlannedCell, result: CellResult): CellRecord {
     identity: cellIdentity(cellSettings(cell)),
     backend: cell.backend,
     world_path: cell.world.path,
+    ...(cell.plugins.length === 0 ? {} : { plugins: cell.plugins.map(({ type, name, path, sha256 }) => ({ type, name, path, sha256 })) }),
     output: { save_features: cell.output.saveFeatures, align_every: cell.output.alignEvery },
     seconds: { ...(outcome?.seconds ?? { collect: 0, train: 0, probe: 0 }), total: result.totalSeconds },
     versions: { node: process.versions.node, crosswise: crosswiseVersion(), ...outcome?.versions },

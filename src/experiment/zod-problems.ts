@@ -15,11 +15,12 @@ export function problemsFromIssues(schema: z.ZodType, issues: readonly Issue[]):
         message: `unknown key${suggestion(key, allowed)}; expected one of ${allowed.join(', ')}`,
       }));
     }
-    return [{ path, message: describeIssue(issue) }];
+    return [{ path, message: describeIssue(issue, enumOptionsAt(schema, path)) }];
   });
 }
 
-function describeIssue(issue: Issue): string {
+/** `options`: the names an enum at the issue's path allows (also inside a union with a plug-in file), for suggestions. */
+function describeIssue(issue: Issue, options: readonly string[]): string {
   const got = issue.input === undefined ? 'nothing' : shown(issue.input);
   switch (issue.code) {
     case 'invalid_type':
@@ -38,17 +39,23 @@ function describeIssue(issue: Issue): string {
         ? `expected at most ${issue.maximum} items`
         : `expected a value ${issue.inclusive === false ? '<' : '≤'} ${issue.maximum}, got ${got}`;
     case 'invalid_format':
-      return `expected ${issue.message}, got ${got}`;
-    case 'invalid_union':
-      return `expected ${unionExpectation(issue)}, got ${got}`;
+      return `expected ${issue.message}, got ${got}${typeof issue.input === 'string' ? suggestion(issue.input, options) : ''}`;
+    case 'invalid_union': {
+      const { text, options } = unionExpectation(issue);
+      return `expected ${text}, got ${got}${typeof issue.input === 'string' ? suggestion(issue.input, options) : ''}`;
+    }
     default:
       return `${issue.message}, got ${got}`;
   }
 }
 
-function unionExpectation(issue: z.core.$ZodIssueInvalidUnion): string {
-  const values = issue.errors.flat().flatMap((inner) => (inner.code === 'invalid_value' ? inner.values.map(String) : []));
-  return values.length > 0 ? `one of ${values.join(' | ')}` : 'a valid value';
+/** What a union accepts: the values of its enums, then the formats of its patterns ("or a plug-in file (...)"). */
+function unionExpectation(issue: z.core.$ZodIssueInvalidUnion): { text: string; options: string[] } {
+  const inner = issue.errors.flat();
+  const values = inner.flatMap((i) => (i.code === 'invalid_value' ? i.values.map(String) : []));
+  const formats = inner.flatMap((i) => (i.code === 'invalid_format' ? [i.message] : []));
+  const parts = [...(values.length > 0 ? [`one of ${values.join(' | ')}`] : []), ...formats];
+  return { text: parts.length > 0 ? parts.join(', or ') : 'a valid value', options: values };
 }
 
 function shown(value: unknown): string {
@@ -59,8 +66,8 @@ function shown(value: unknown): string {
   return String(value);
 }
 
-/** Keys the schema allows at an object path (through defaults, optionals and arrays). */
-function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
+/** The schema node at a path (through defaults, optionals, arrays and records). */
+function nodeAt(schema: z.ZodType, path: readonly (string | number)[]): z.ZodType | undefined {
   let node: z.ZodType | undefined = schema;
   for (const segment of path) {
     node = node == null ? undefined : unwrap(node);
@@ -69,8 +76,20 @@ function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[]
     else if (node instanceof z.ZodRecord) node = node.valueType as z.ZodType;
     else node = undefined;
   }
-  node = node == null ? undefined : unwrap(node);
+  return node == null ? undefined : unwrap(node);
+}
+
+/** Keys the schema allows at an object path. */
+function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
+  const node = nodeAt(schema, path);
   return node instanceof z.ZodObject ? Object.keys(node.shape) : [];
+}
+
+/** The values of the enum at a path, or of an enum among a union's options there. */
+function enumOptionsAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
+  const node = nodeAt(schema, path);
+  const candidates = node instanceof z.ZodUnion ? (node.options as z.ZodType[]) : node == null ? [] : [node];
+  return candidates.flatMap((option) => (option instanceof z.ZodEnum ? option.options.map(String) : []));
 }
 
 function unwrap(schema: z.ZodType): z.ZodType {

@@ -3,7 +3,7 @@ import type { LatentName } from '../collect/dataset.js';
 import type { ChannelName } from '../senses/channel.js';
 import type { Matrix } from './matrix.js';
 import type { Tf } from './rule-definition.js';
-import type { LearnerSpec } from './spec.js';
+import type { LearnerSpec, TargetUse } from './spec.js';
 
 /** One encoder an objective trains: what it reads and what its linear head puts out. */
 export interface TowerPlan {
@@ -69,7 +69,7 @@ export interface ObjectiveDefinition {
   /** One line on what the encoder is trained to do. */
   readonly description: string;
   /** Whether a learner with this objective lists `target` channels. */
-  readonly target: 'required' | 'optional' | 'unused';
+  readonly target: TargetUse;
   /** Fewest rows a batch needs for the loss to be defined (InfoNCE needs a negative: 2); 1 when left out. */
   readonly minBatch?: number;
   /** The towers to build and the training signal; a null signal leaves the initial weights untrained. */

@@ -4,7 +4,7 @@ import { nextSteps } from './examples.js';
 import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
 import { channelWidth } from './matrix.js';
 import type { ObjectiveDefinition } from './objective-definition.js';
-import type { LearnerSpec, ObjectiveName } from './spec.js';
+import { OBJECTIVE_TARGET, type LearnerSpec, type ObjectiveName } from './spec.js';
 
 // The built-in objectives, each in the shape a plug-in file default-exports
 // (objective-definition.ts). Inputs and targets are standardised with the training split's
@@ -20,7 +20,7 @@ export const predict: ObjectiveDefinition = {
   type: 'objective',
   name: 'predict',
   description: 'predict the target channels from the input channels, at the same step or the next',
-  target: 'required',
+  target: OBJECTIVE_TARGET.predict,
   setup: ({ learner, channelSize }) => ({
     towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.target) }],
     signal: {
@@ -39,7 +39,7 @@ export const reconstruct: ObjectiveDefinition = {
   type: 'objective',
   name: 'reconstruct',
   description: 'reproduce its own input (a single-sense autoencoder)',
-  target: 'unused',
+  target: OBJECTIVE_TARGET.reconstruct,
   setup: ({ learner, channelSize }) => ({
     towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.input) }],
     signal: {
@@ -63,7 +63,7 @@ export const forecast: ObjectiveDefinition = {
   type: 'objective',
   name: 'forecast',
   description: 'predict its own input at the next step from this step\'s input and the action taken',
-  target: 'unused',
+  target: OBJECTIVE_TARGET.forecast,
   setup: ({ learner, channelSize }) => ({
     towers: [{ channels: learner.input, outputs: channelWidth(channelSize, learner.input), extra: channelSize.motor }],
     signal: {
@@ -91,7 +91,7 @@ export const contrast: ObjectiveDefinition = {
   type: 'objective',
   name: 'contrast',
   description: 'align its embedding with a second encoder\'s embedding of the target channels (InfoNCE)',
-  target: 'required',
+  target: OBJECTIVE_TARGET.contrast,
   minBatch: 2, // InfoNCE needs at least one negative
   setup: ({ learner }) => {
     const embedding = learner.encoder.hidden[learner.encoder.hidden.length - 1];
@@ -117,7 +117,7 @@ export const supervised: ObjectiveDefinition = {
   type: 'objective',
   name: 'supervised',
   description: 'predict the latent targets directly (an upper bound, not self-supervised)',
-  target: 'unused',
+  target: OBJECTIVE_TARGET.supervised,
   setup: ({ tf, learner, classCount }) => {
     const names = learner.supervisedTargets;
     if (names.length === 0) throw new Error(`learner '${learner.name}': objective 'supervised' needs at least one latent target`);
@@ -159,7 +159,7 @@ export const untrained: ObjectiveDefinition = {
   type: 'objective',
   name: 'untrained',
   description: 'nothing: frozen random weights (the floor)',
-  target: 'unused',
+  target: OBJECTIVE_TARGET.untrained,
   setup: ({ learner }) => ({ towers: [{ channels: learner.input, outputs: 0 }], signal: null }),
 };
 

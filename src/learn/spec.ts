@@ -5,6 +5,14 @@ import type { LatentName } from '../collect/dataset.js';
 export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'supervised', 'untrained'] as const;
 export type ObjectiveName = (typeof OBJECTIVES)[number];
 
+/** Whether a learner with an objective lists `target` channels. */
+export type TargetUse = 'required' | 'optional' | 'unused';
+
+/** Each built-in objective's target use (its definition in objectives.ts declares the same), readable without loading TensorFlow.js. */
+export const OBJECTIVE_TARGET: Readonly<Record<ObjectiveName, TargetUse>> = {
+  predict: 'required', reconstruct: 'unused', forecast: 'unused', contrast: 'required', supervised: 'unused', untrained: 'unused',
+};
+
 /** How weight updates are computed (the config's `rule`). */
 export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment', 'kolen-pollack', 'sign-symmetry'] as const;
 export type RuleName = (typeof RULES)[number];
@@ -24,7 +32,8 @@ export type BackendName = (typeof BACKENDS)[number];
 /** Everything needed to train one learner; the config loader fills every default. */
 export interface LearnerSpec {
   readonly name: string;
-  readonly objective: ObjectiveName;
+  /** A built-in objective (OBJECTIVES) or a plug-in's name (its definition travels in TrainOptions). */
+  readonly objective: string;
   /** Channels the encoder reads, concatenated in CHANNELS order. */
   readonly input: readonly ChannelName[];
   /** predict and contrast only: the channels to predict or align with. */
@@ -34,7 +43,8 @@ export interface LearnerSpec {
   /** supervised only: the latents predicted directly. */
   readonly supervisedTargets: readonly LatentName[];
   readonly encoder: { readonly hidden: readonly number[]; readonly activation: ActivationName };
-  readonly rule: RuleName;
+  /** A built-in rule (RULES) or a plug-in's name (its definition travels in TrainOptions). */
+  readonly rule: string;
   readonly train: {
     readonly optimizer: OptimizerName;
     readonly learningRate: number;

@@ -22,6 +22,11 @@ export const cellRecordSchema = z.object({
   identity: cellIdentitySchema,
   backend: z.enum(BACKENDS),
   world_path: z.string(),
+  /**
+   * The plug-ins the cell used (left out when it used none): the part each played, its name,
+   * the absolute path of its file when the cell ran, and the hash its identity holds.
+   */
+  plugins: z.array(z.object({ type: z.string(), name: z.string(), path: z.string(), sha256: z.string() })).optional(),
   /** Output-only settings the cell ran with: they decide what was recorded, never a number. */
   output: z.object({ save_features: z.boolean(), align_every: z.number().int().min(1) }),
   seconds: z.object({ collect: seconds, train: seconds, probe: seconds, total: seconds }),

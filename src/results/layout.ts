@@ -9,6 +9,7 @@ export const OUTPUT_FILES = {
   comparisons: 'comparisons.csv',
   plots: 'plots',
   cells: 'cells',
+  plugins: 'plugins',
 } as const;
 
 /** Files of one cell folder; arrays are stored beside them as `<name>.npy`. */
@@ -39,4 +40,13 @@ export function cellPath(out: string, id: string, file: keyof typeof CELL_FILES)
 /** Path of an array stored in a cell folder. */
 export function cellArrayPath(out: string, id: string, name: string): string {
   return join(cellDir(out, id), `${name}.npy`);
+}
+
+/**
+ * Where a sweep keeps the bundled script of a plug-in (plain JavaScript that worker threads and
+ * cluster tasks load): named by the plug-in's name and content hash, so a changed plug-in
+ * gets a new file and never overwrites the script earlier cells ran.
+ */
+export function pluginBundlePath(out: string, name: string, sha256: string): string {
+  return join(out, OUTPUT_FILES.plugins, `${name}-${sha256.slice(0, 16)}.cjs`);
 }

@@ -65,25 +65,25 @@ describe('config validation', () => {
 
   it('rejects an unknown objective and suggests the nearest', async () => {
     expect(await rejection(VALID.replace('objective: predict', 'objective: predikt'))).toEqual([
-      "config.yaml:6:16: learners.0.objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, got 'predikt' (did you mean 'predict'?)",
+      "config.yaml:6:16: learners.0.objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, or a plug-in file (.ts, .mts, .js, .mjs or .cjs), got 'predikt' (did you mean 'predict'?)",
     ]);
   });
 
   it('rejects an unknown learning rule', async () => {
     expect(await rejection(VALID.replace('objective: reconstruct', 'objective: reconstruct\n    rule: feedback-alignmnt'))).toEqual([
-      "config.yaml:11:11: learners.1.rule: expected one of backprop | feedback-alignment | direct-feedback-alignment | kolen-pollack | sign-symmetry, got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
+      "config.yaml:11:11: learners.1.rule: expected one of backprop | feedback-alignment | direct-feedback-alignment | kolen-pollack | sign-symmetry, or a plug-in file (.ts, .mts, .js, .mjs or .cjs), got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
     ]);
   });
 
   it('rejects an unknown policy', async () => {
     expect(await rejection(`${VALID}collect: { policy: wonder }\n`)).toEqual([
-      "config.yaml:14:20: collect.policy: expected one of wander | uniform | seek, got 'wonder' (did you mean 'wander'?)",
+      "config.yaml:14:20: collect.policy: expected one of wander | uniform | seek, or a plug-in file (.ts, .mts, .js, .mjs or .cjs), got 'wonder' (did you mean 'wander'?)",
     ]);
   });
 
   it('rejects an unknown noise kind', async () => {
     expect(await rejection(VALID.replace('kind: gaussian', 'kind: gausian'))).toEqual([
-      "config.yaml:13:29: noise.0.kind: expected one of gaussian | dropout | blackout | masking, got 'gausian' (did you mean 'gaussian'?)",
+      "config.yaml:13:29: noise.0.kind: expected one of gaussian | dropout | blackout | masking, or a plug-in file (.ts, .mts, .js, .mjs or .cjs), got 'gausian' (did you mean 'gaussian'?)",
     ]);
   });
 

@@ -102,8 +102,10 @@ describe('sweep expansion', () => {
         train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1 },
       },
       output: { saveFeatures: false, alignEvery: 50 },
+      plugins: [],
     });
     expect(settings.probe.baseline).toBe('sound-from-sight');
+    expect(settings.plugins).toEqual([]);
   });
 });
 

@@ -51,9 +51,10 @@ export function noiseProblems(entries: readonly NoiseEntry[], lookup: NoiseKindL
   return problems;
 }
 
-/** Throws one line listing the problems of a noise list (for callers that bypass the config loader). */
-export function checkNoiseEntries(entries: readonly NoiseEntry[]): void {
-  const problems = noiseProblems(entries);
+/** Throws one line listing the problems of a noise list (for callers that bypass the config loader); a plug-in kind travels as its spec's definition. */
+export function checkNoiseEntries(entries: readonly (NoiseEntry & { readonly definition?: NoiseKindDefinition })[]): void {
+  const definitions = new Map(entries.flatMap((entry) => (entry.definition == null ? [] : [[entry.kind, entry.definition] as const])));
+  const problems = noiseProblems(entries, (kind) => definitions.get(kind) ?? builtInNoiseKind(kind));
   if (problems.length > 0) throw new Error(problems.map((p) => `${p.path.join('.')}: ${p.message}`).join('; '));
 }
 

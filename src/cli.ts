@@ -8,6 +8,7 @@ import { EXIT } from './commands/exit-codes.js';
 import { exploreUsage } from './commands/explore-usage.js';
 import { commandHelp, programHelp, wantsHelp } from './commands/help.js';
 import { listenUsage } from './commands/listen-usage.js';
+import { newUsage } from './commands/new-usage.js';
 import { printProblem } from './commands/messages.js';
 import { planUsage } from './commands/plan-usage.js';
 import { reportUsage } from './commands/report-usage.js';
@@ -18,7 +19,7 @@ import type { CommandUsage } from './commands/usage.js';
 
 /** Every command, in the order `crosswise --help` lists them. */
 export const COMMANDS: readonly CommandUsage[] = [
-  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
+  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, newUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
 ];
 
 /** The package version (src/ and dist/ both sit one folder below package.json). */

@@ -41,6 +41,7 @@ describe('crosswise --help', () => {
       '  cluster  write a job-array script for a cluster scheduler (Slurm)',
       '  report   rebuild summary.md, comparisons.csv and the plots from stored results',
       '  check    validate config and world files',
+      '  new      write a starter plug-in file and a config that runs it',
       '  sense    every channel and latent at one pose of a world',
       '  explore  walk a world with every sense drawn live (an interactive terminal',
       '           app)',

@@ -60,7 +60,7 @@ function cutDown(path: string): void {
   writeFileSync(path, stringify(config));
 }
 
-function results(dir: string, name: string): ResultRow[] {
+function results(dir: string, name: string): readonly ResultRow[] {
   return parseResultsCsv(readFileSync(join(dir, 'runs', name, 'results.csv'), 'utf8')).rows;
 }
 

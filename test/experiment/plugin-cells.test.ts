@@ -74,7 +74,7 @@ describe('plug-ins in cells', () => {
     const record = parseCellRecord(readFileSync(join(out, 'cells', id, 'cell.json'), 'utf8'), 'cell.json');
     expect(record.plugins?.map((p) => [p.type, p.name, p.path])).toEqual([['noise', 'unchanged', join(dir, 'unchanged.cjs')], ['rule', 'fa-file', join(dir, 'fa.js')]]);
     expect(record.identity.plugins?.rule).toBe(record.plugins?.[1].sha256);
-  });
+  }, 600_000); // CLI sweeps on a busy machine
 
   it('take a policy from a file: a copy of uniform collects the same experience', async () => {
     const learners = learner('ae', 'objective: reconstruct');
@@ -83,7 +83,7 @@ describe('plug-ins in cells', () => {
     const file = pluginFolder(tiny(learners, ', policy: ./uniform.js'), files);
     await Promise.all([built, file].map((dir) => crosswise('run', join(dir, 'config.yaml'), '--out', join(dir, 'out'), '--plain')));
     expect(measured(rowsOf(join(file, 'out'), 'ae'))).toEqual(measured(rowsOf(join(built, 'out'), 'ae')));
-  });
+  }, 600_000);
 
   it('fail only their own cells, with a reason naming the plug-in file, when they throw or give a non-finite loss', async () => {
     const config = tiny(learner('fine', 'objective: reconstruct') + learner('throws', 'objective: reconstruct, rule: ./unfinished.js') + learner('nan', 'objective: ./nan.js'));
@@ -100,6 +100,6 @@ describe('plug-ins in cells', () => {
       `rule plug-in ${join(dir, 'unfinished.js')}: deltas are not written yet`,
       `LearnerDivergedError: learner 'nan': train loss became NaN at epoch 1 (objective plug-in ${join(dir, 'nan.js')})`,
     ]);
-  });
+  }, 600_000);
 });
 

@@ -50,27 +50,13 @@ describe('experiment commands', () => {
     expect(existsSync(join(dir, 'out'))).toBe(false);
   });
 
-  it('cluster writes one job-array script with one task per cell and a report step', async () => {
-    const dir = configFolder(CONFIG);
-    const out = join(dir, 'cluster-out');
-    captureLog();
-    expect(await clusterCommand([join(dir, 'config.yaml'), '--out', out])).toBe(0);
-    expect(readdirSync(out)).toEqual(['array-job.sh']);
-    const script = readFileSync(join(out, 'array-job.sh'), 'utf8');
-    expect(script).toContain('#SBATCH --array=0-7\n');
-    expect(script).toContain('cell "$CONFIG" --index "$SLURM_ARRAY_TASK_ID" --out "$OUT"');
-    expect(script).toContain('report \\"$OUT\\"');
-    expect(statSync(join(out, 'array-job.sh')).mode & 0o111).not.toBe(0);
-    execFileSync('bash', ['-n', join(out, 'array-job.sh')]); // throws on a syntax error
-  });
-
   it('cluster reports a folder it cannot create in one line and exits 5 (a write failed)', async () => {
     const dir = configFolder(CONFIG);
     const errors: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     // config.yaml is a file, so no folder can be made beneath it.
     expect(await clusterCommand([join(dir, 'config.yaml'), '--out', join(dir, 'config.yaml', 'out')])).toBe(5);
-    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out')}: ENOTDIR (mkdir)`]);
+    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out', 'cells')}: ENOTDIR (mkdir)`]);
   });
 
   it('cluster requires --out', async () => {

@@ -2,7 +2,7 @@
 // stand-in for sbatch that records its arguments. The forms of --array, --dependency,
 // --output and #SBATCH lines follow the sbatch manual (SchedMD, sbatch(1)).
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
@@ -49,6 +49,7 @@ describe('crosswise cluster', () => {
       `submit with: bash '${script}'`,
     ]);
     execFileSync('bash', ['-n', script]); // throws on a syntax error
+    expect(statSync(script).mode & 0o111).not.toBe(0);
     const sbatch = fakeSbatch(dir);
     expect(submit(script, sbatch.bin)).toBe('submitted 8 cells as job array 101; the report (job 102) runs once they have all ended\n');
     expect(sbatch.calls()).toEqual([

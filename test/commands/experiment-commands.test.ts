@@ -6,6 +6,7 @@ import { planCommand } from '../../src/commands/plan.js';
 import { schemaCommand } from '../../src/commands/schema.js';
 import { readCellRecord } from '../../src/results/cell-record.js';
 import { configFolder, spawnWithFake } from '../experiment/helpers.js';
+import { FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
 
 const CONFIG = `name: commands
 world: world.yaml
@@ -77,5 +78,27 @@ describe('experiment commands', () => {
     const wrong = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '8']);
     expect(wrong.code).toBe(1);
     expect(wrong.stderr.trim()).toBe("crosswise cell: --index: expected a whole number from 0 to 7, got '8'");
+  });
+
+  it('cell leaves a failed cell as it is (exit 3) unless --retry-failed, which computes it again', async () => {
+    const dir = configFolder(CONFIG);
+    const [config, out] = [join(dir, 'config.yaml'), join(dir, 'out')];
+    await storeCells(config, out, { failed: [3] });
+    const id = plannedIds(config)[3];
+    const kept = await spawnWithFake(['cell', config, '--index', '3']);
+    expect([kept.code, kept.stdout]).toEqual([3, `cell 3 (${id}) failed before (${FAILURE}); add --retry-failed to run it again\n`]);
+    expect(readCellRecord(out, id).status).toBe('failed');
+    const retried = await spawnWithFake(['cell', config, '--index', '3', '--retry-failed']);
+    expect(retried.code).toBe(0);
+    expect([readCellRecord(out, id).status, readCellRecord(out, id).reason]).toEqual(['done', '']);
+    expect(readdirSync(join(out, 'cells'))).toEqual([id]); // the failed folder is gone, no temporary one left
+  });
+
+  it('cell takes no lock: tasks of one array run at once in one folder, even two on the same cell', async () => {
+    const dir = configFolder(CONFIG);
+    const config = join(dir, 'config.yaml');
+    const runs = await Promise.all(['0', '1', '1'].map((index) => spawnWithFake(['cell', config, '--index', index], undefined, { FAKE_EPOCH_MS: '300' })));
+    expect(runs.map((run) => [run.code, run.stderr])).toEqual([[0, ''], [0, ''], [0, '']]);
+    expect(readdirSync(join(dir, 'out', 'cells')).sort()).toEqual(plannedIds(config).slice(0, 2).sort());
   });
 });

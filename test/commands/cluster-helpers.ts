@@ -2,6 +2,7 @@
 // with the test double cell work, and a stand-in for sbatch that records its arguments.
 import { chmodSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { vi } from 'vitest';
 import { loadSweep } from '../../src/experiment/config.js';
 import { planCells } from '../../src/experiment/plan.js';
 import { prepareOutput } from '../../src/experiment/runner.js';
@@ -62,4 +63,13 @@ console.log(\`\${100 + calls};main\`);
 `);
   chmodSync(join(bin, 'sbatch'), 0o755);
   return { bin, calls: () => readFileSync(log, 'utf8').trim().split('\n').filter((l) => l !== '').map((l) => JSON.parse(l) as string[]) };
+}
+
+/** Collects what console.log and console.error print, line by line (restore with vi.restoreAllMocks). */
+export function capture(): { readonly out: string[]; readonly err: string[] } {
+  const out: string[] = [];
+  const err: string[] = [];
+  vi.spyOn(console, 'log').mockImplementation((text: string) => { out.push(...String(text).split('\n')); });
+  vi.spyOn(console, 'error').mockImplementation((text: string) => { err.push(...String(text).split('\n')); });
+  return { out, err };
 }

@@ -8,15 +8,7 @@ import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { clusterCommand } from '../../src/commands/cluster.js';
 import { SHED_WORLD, configFolder } from '../experiment/helpers.js';
-import { EIGHT_CELLS, fakeSbatch, storeCells } from './cluster-helpers.js';
-
-function capture(): { readonly out: string[]; readonly err: string[] } {
-  const out: string[] = [];
-  const err: string[] = [];
-  vi.spyOn(console, 'log').mockImplementation((text: string) => { out.push(...String(text).split('\n')); });
-  vi.spyOn(console, 'error').mockImplementation((text: string) => { err.push(...String(text).split('\n')); });
-  return { out, err };
-}
+import { capture, EIGHT_CELLS, fakeSbatch, storeCells } from './cluster-helpers.js';
 
 /** Runs the script as a user would (bash, outside any job) with the fake sbatch first on PATH. */
 function submit(script: string, bin: string): string {

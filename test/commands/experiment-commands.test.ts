@@ -6,18 +6,7 @@ import { planCommand } from '../../src/commands/plan.js';
 import { schemaCommand } from '../../src/commands/schema.js';
 import { readCellRecord } from '../../src/results/cell-record.js';
 import { configFolder, spawnWithFake } from '../experiment/helpers.js';
-import { FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
-
-const CONFIG = `name: commands
-world: world.yaml
-seeds: [1, 2]
-learners:
-  - { name: sound-from-sight, objective: predict, input: [sight], target: [sound], train: { epochs: 1 } }
-  - { name: untrained, objective: untrained, input: [sight] }
-vary:
-  learners.*.encoder.hidden: [[8], [16, 8]]
-out: out
-`;
+import { EIGHT_CELLS, FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
 
 function captureLog(): string[] {
   const lines: string[] = [];
@@ -39,7 +28,7 @@ describe('experiment commands', () => {
   });
 
   it('plan lists index, id, learner, seed and vary values, and writes nothing', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const lines = captureLog();
     expect(await planCommand([join(dir, 'config.yaml')])).toBe(0);
     expect(lines[0]).toBe('index  id          learner           seed  learners.*.encoder.hidden');
@@ -51,7 +40,7 @@ describe('experiment commands', () => {
   });
 
   it('cluster reports a folder it cannot create in one line and exits 5 (a write failed)', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const errors: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     // config.yaml is a file, so no folder can be made beneath it.
@@ -60,7 +49,7 @@ describe('experiment commands', () => {
   });
 
   it('cluster requires --out', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const errors: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     expect(await clusterCommand([join(dir, 'config.yaml')])).toBe(1);
@@ -68,7 +57,7 @@ describe('experiment commands', () => {
   });
 
   it('cell runs exactly the cell at --index and rejects an index outside the plan', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const run = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '3']);
     expect(run.code).toBe(0);
     const cells = readdirSync(join(dir, 'out', 'cells'));
@@ -81,7 +70,7 @@ describe('experiment commands', () => {
   });
 
   it('cell leaves a failed cell as it is (exit 3) unless --retry-failed, which computes it again', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const [config, out] = [join(dir, 'config.yaml'), join(dir, 'out')];
     await storeCells(config, out, { failed: [3] });
     const id = plannedIds(config)[3];
@@ -95,7 +84,7 @@ describe('experiment commands', () => {
   });
 
   it('cell takes no lock: tasks of one array run at once in one folder, even two on the same cell', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const config = join(dir, 'config.yaml');
     const runs = await Promise.all(['0', '1', '1'].map((index) => spawnWithFake(['cell', config, '--index', index], undefined, { FAKE_EPOCH_MS: '300' })));
     expect(runs.map((run) => [run.code, run.stderr])).toEqual([[0, ''], [0, ''], [0, '']]);

@@ -6,15 +6,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { clusterCommand } from '../../src/commands/cluster.js';
 import { statusCommand } from '../../src/commands/status.js';
 import { configFolder } from '../experiment/helpers.js';
-import { EIGHT_CELLS, FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
-
-function capture(): { readonly out: string[]; readonly err: string[] } {
-  const out: string[] = [];
-  const err: string[] = [];
-  vi.spyOn(console, 'log').mockImplementation((text: string) => { out.push(...String(text).split('\n')); });
-  vi.spyOn(console, 'error').mockImplementation((text: string) => { err.push(...String(text).split('\n')); });
-  return { out, err };
-}
+import { capture, EIGHT_CELLS, FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
 
 describe('crosswise status', () => {
   afterEach(() => vi.restoreAllMocks());

@@ -106,7 +106,7 @@ describe('Kolen–Pollack (Kolen & Pollack 1994; Akrout et al. 2019)', () => {
     const net = await trainNetwork(teacherSpec('kolen-pollack', [20, 20], 10), linearTeacher(), everyFifthSplit(300), { seed: 2, alignEvery: 1, rule });
     net.towers.forEach(disposeTower);
     expect(errors).toHaveLength(90); // 10 epochs × 9 steps
-    expect(Math.max(...errors)).toBeLessThan(1e-5); // float32 rounding of B + ΔW against W + ΔW
+    expect(Math.max(...errors)).toBeLessThan(1e-5); // measured 0; B + ΔW may round unlike W + ΔW in float32
     // The trainer's own measure against autodiff agrees: the update is the gradient (0°).
     for (const log of net.log) log.alignmentDeg.forEach((a) => expect(a).toBeLessThan(0.5));
   });
@@ -155,12 +155,13 @@ describe('sign symmetry (Liao, Leibo & Poggio 2016)', () => {
   });
 
   it('keeps the update/gradient angle below 90° while the loss falls', async () => {
-    // Measured (seed 2, 60 epochs): 30°/28° at step 0, 29°/27° at the end; loss 0.87 → 0.023.
+    // Measured (seed 2, 60 epochs, an angle every 3 steps): epoch means 43°/33° in epoch 1, at
+    // most 54°/42°, 32°/27° in epoch 60; training loss 0.87 → 0.023. Bound: well below 90°.
     const net = await trainNetwork(teacherSpec('sign-symmetry', [20, 20], 60), linearTeacher(), everyFifthSplit(300), { seed: 2, alignEvery: 3 });
     net.towers.forEach(disposeTower);
     for (const log of net.log) {
       expect(log.alignmentDeg).toHaveLength(3);
-      log.alignmentDeg.slice(0, 2).forEach((a) => expect(a).toBeLessThan(60));
+      log.alignmentDeg.slice(0, 2).forEach((a) => expect(a).toBeLessThan(70));
     }
     expect(net.log[net.log.length - 1].trainLoss).toBeLessThan(0.2 * net.log[0].trainLoss);
   });

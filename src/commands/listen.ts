@@ -3,6 +3,7 @@ import { dirname, resolve } from 'node:path';
 import { collect, type CollectOptions } from '../collect/collector.js';
 import { loadSweep } from '../experiment/config.js';
 import { planCells } from '../experiment/plan.js';
+import { sweepPolicy } from '../experiment/plugin-catalog.js';
 import { createRng } from '../random.js';
 import { writeWavFile } from '../results/wav.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
@@ -47,7 +48,7 @@ function chooseWalk(world: string | undefined, args: ListenValues): Walk {
     const { settings } = sweep.combinations[0];
     const policy = args.policy ?? settings.collect.policy;
     const seed = args.seed ?? sweep.seeds[0];
-    return { worldPath: settings.worldPath, senses: settings.senses, collect: { policy, steps, episodeSteps: steps }, seed, steps, label: `${policy}, seed ${seed}` };
+    return { worldPath: settings.worldPath, senses: settings.senses, collect: { policy: sweepPolicy(sweep.plugins, policy), steps, episodeSteps: steps }, seed, steps, label: `${policy}, seed ${seed}` };
   }
   const cells = planCells(sweep);
   if (args.index >= cells.length) throw new UsageError(`--index: expected a whole number from 0 to ${cells.length - 1}, got '${args.index}'`);
@@ -55,7 +56,7 @@ function chooseWalk(world: string | undefined, args: ListenValues): Walk {
   const { policy, steps: cellSteps, episodeSteps } = cell.collect;
   if (args.steps != null && args.steps > cellSteps) throw new UsageError(`--steps ${args.steps} is more than the ${cellSteps} steps cell ${args.index} collected`);
   return {
-    worldPath: cell.world.path, senses: cell.senses, collect: { policy, steps: cellSteps, episodeSteps }, seed: cell.seed,
+    worldPath: cell.world.path, senses: cell.senses, collect: { policy: sweepPolicy(sweep.plugins, policy), steps: cellSteps, episodeSteps }, seed: cell.seed,
     steps: Math.min(steps, cellSteps), label: `cell ${args.index} [${cell.id}]: ${policy}, seed ${cell.seed}`,
   };
 }

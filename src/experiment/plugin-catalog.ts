@@ -1,4 +1,5 @@
 import { resolve } from 'node:path';
+import type { PolicyDefinition } from '../collect/policies.js';
 import { bundlePlugin, evaluatePlugin, PluginLoadError, type PluginBundle } from './plugin-bundle.js';
 import { definitionProblem, type PluginType } from './plugin-shapes.js';
 
@@ -116,4 +117,10 @@ export class PluginCatalog {
     if (bundle instanceof PluginLoadError) throw bundle;
     return bundle;
   }
+}
+
+/** A sweep's policy by name: the plug-in's definition when a loaded plug-in has that name, else the (built-in) name itself. */
+export function sweepPolicy(plugins: readonly LoadedPlugin[], name: string): string | PolicyDefinition {
+  const plugin = plugins.find((p) => p.type === 'policy' && p.name === name);
+  return plugin == null ? name : (plugin.definition as PolicyDefinition);
 }

@@ -168,6 +168,20 @@ const PROBE = `probe:
   targets: [wall_ahead, material_ahead, nearest_emitter, nearest_distance_m]
 `;
 
+/** The start of the policy and noise starters' configs: two learners that read sight, compared under noise. */
+const TWO_LEARNERS = `${HEADER}collect:
+  steps: 6000                    # 30 episodes: small, to keep the first run quick
+learners:
+  - name: sound-from-sight
+    objective: predict
+    input: [sight]
+    target: [sound]
+  - name: sight-autoencoder
+    objective: reconstruct
+    input: [sight]
+${PROBE}  baseline: sight-autoencoder
+`;
+
 const CONFIGS: Readonly<Record<StarterKind, string>> = {
   objective: `${HEADER}collect:
   steps: 6000                    # 30 episodes: small, to keep the first run quick
@@ -211,35 +225,13 @@ noise:
   - { channel: sight, kind: gaussian, severities: [0, 2, 4] }
 out: runs/NAME
 `,
-  policy: `${HEADER}collect:
-  steps: 6000                    # 30 episodes: small, to keep the first run quick
-learners:
-  - name: sound-from-sight
-    objective: predict
-    input: [sight]
-    target: [sound]
-  - name: sight-autoencoder
-    objective: reconstruct
-    input: [sight]
-${PROBE}  baseline: sight-autoencoder
-noise:
+  policy: `${TWO_LEARNERS}noise:
   - { channel: sight, kind: gaussian, severities: [0, 2, 4] }
 vary:
   collect.policy: [wander, ./NAME.ts]   # the built-in random walk, then the plug-in file
 out: runs/NAME
 `,
-  noise: `${HEADER}collect:
-  steps: 6000                    # 30 episodes: small, to keep the first run quick
-learners:
-  - name: sound-from-sight
-    objective: predict
-    input: [sight]
-    target: [sound]
-  - name: sight-autoencoder
-    objective: reconstruct
-    input: [sight]
-${PROBE}  baseline: sight-autoencoder
-noise:
+  noise: `${TWO_LEARNERS}noise:
   - { channel: sight, kind: gaussian, severities: [0, 2, 4] }   # a built-in, for comparison
   - { channel: sight, kind: ./NAME.ts, severities: [0, 2, 4] }  # the plug-in file
 out: runs/NAME

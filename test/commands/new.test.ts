@@ -9,18 +9,14 @@ import { parse, stringify } from 'yaml';
 import { main } from '../../src/cli.js';
 import { checkConfigFile } from '../../src/experiment/config.js';
 import { parseResultsCsv, type ResultRow } from '../../src/results/results-table.js';
+import { capture } from './cluster-helpers.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 const crosswise = (...args: string[]) => promisify(execFile)(process.execPath, [join(ROOT, 'bin/crosswise.js'), ...args], { cwd: ROOT });
 
 let out: string[];
 let err: string[];
-beforeEach(() => {
-  out = [];
-  err = [];
-  vi.spyOn(console, 'log').mockImplementation((text: string) => { out.push(...String(text).split('\n')); });
-  vi.spyOn(console, 'error').mockImplementation((text: string) => { err.push(...String(text).split('\n')); });
-});
+beforeEach(() => ({ out, err } = capture()));
 afterEach(() => vi.restoreAllMocks());
 
 describe('crosswise new', () => {

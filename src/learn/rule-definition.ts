@@ -23,7 +23,7 @@ export interface RuleStep {
   readonly tf: Tf;
   /** Forward weights as in RuleInit, at this step. */
   readonly weights: readonly Tensor2D[];
-  /** Layer inputs: activations[0] is the batch input [batch, in], activations[l + 1] hidden layer l's output. */
+  /** What each layer reads: activations[0] the batch input, activations[l] hidden layer l − 1's output, activations[k] the head's input (the representation, then any extra columns). */
   readonly activations: readonly Tensor2D[];
   /** e = ∂L/∂output of the head, [batch, outputs]. */
   readonly outputError: Tensor2D;

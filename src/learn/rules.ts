@@ -82,7 +82,7 @@ function checkMatrices(values: unknown, what: string, rule: RuleDefinition): tf.
 }
 
 /** Output error e = ∂L/∂output of each tower (for contrast: the gradient w.r.t. each embedding). */
-function outputErrors(caches: readonly ForwardCache[], loss: LossOfOutputs): { loss: tf.Scalar; errors: tf.Tensor2D[] } {
+function outputErrors(caches: readonly { readonly output: tf.Tensor2D }[], loss: LossOfOutputs): { loss: tf.Scalar; errors: tf.Tensor2D[] } {
   const { value, grads } = tf.valueAndGrads((...outputs: tf.Tensor[]) => loss(outputs as tf.Tensor2D[]))(caches.map((c) => c.output));
   return { loss: value, errors: grads as tf.Tensor2D[] };
 }
@@ -92,14 +92,37 @@ function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
   return [matMulT(x, delta, true, false), columnSums(delta)];
 }
 
+/**
+ * How one kind of tower runs forward and takes an error through one of its hidden layers:
+ * what a rule's errors need besides the rule itself. A rule's chain multiplies by the
+ * matrices it is given and leaves each layer's own dynamics to `derivative`, so towers whose
+ * units are not rate units can be trained by the same rule definitions.
+ */
+export interface TowerPass<C extends { readonly output: tf.Tensor2D; readonly headInput: tf.Tensor2D }> {
+  forward(tower: Tower, input: tf.Tensor2D, extra: tf.Tensor2D | null): C;
+  /** What hidden layer l (0-based) reads: its weight update is inputᵀ·δ_l. */
+  layerInput(cache: C, l: number): tf.Tensor2D;
+  /** δ_l from the signal g arriving at hidden layer l's output. */
+  derivative(tower: Tower, cache: C, l: number, g: tf.Tensor2D): tf.Tensor2D;
+}
+
+/** Rate units: a ForwardCache and δ_l = g ⊙ f′(a_l). */
+export const RATE_PASS: TowerPass<ForwardCache> = {
+  forward: forwardCached,
+  layerInput: (cache, l) => cache.post[l],
+  derivative: (tower, cache, l, g) => tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l], cache.post[l + 1])),
+};
+
 /** What a rule sees of one tower at one step. */
-function stepContext(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, state: readonly tf.Tensor2D[]): RuleStep {
+function stepContext<C extends { readonly output: tf.Tensor2D; readonly headInput: tf.Tensor2D }>(
+  pass: TowerPass<C>, tower: Tower, cache: C, e: tf.Tensor2D, state: readonly tf.Tensor2D[],
+): RuleStep {
   const k = tower.encoder.length;
-  const derivative = (l: number, g: tf.Tensor2D): tf.Tensor2D => tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l], cache.post[l + 1]));
+  const derivative = (l: number, g: tf.Tensor2D): tf.Tensor2D => pass.derivative(tower, cache, l, g);
   return {
     tf,
     weights: ruleWeights(tower),
-    activations: cache.post,
+    activations: [...tower.encoder.map((_, l) => pass.layerInput(cache, l)), cache.headInput],
     outputError: e,
     state,
     derivative,
@@ -116,12 +139,12 @@ function stepContext(tower: Tower, cache: ForwardCache, e: tf.Tensor2D, state: r
   };
 }
 
-/** Checks a rule's deltas against the tower's hidden layers: k matrices of [batch, width_l]. */
-function checkDeltas(deltas: unknown, tower: Tower, batch: number, rule: RuleDefinition): tf.Tensor2D[] {
+/** Checks a rule's deltas against the tower's hidden layers: k matrices with the rows and width of each layer's input and output. */
+function checkDeltas(deltas: unknown, tower: Tower, rows: readonly number[], rule: RuleDefinition): tf.Tensor2D[] {
   const widths = tower.encoder.map(layerWidth);
-  const expected = widths.map((w) => `[${batch}, ${w}]`).join(', ');
+  const expected = widths.map((w, l) => `[${rows[l]}, ${w}]`).join(', ');
   const ok = Array.isArray(deltas) && deltas.length === widths.length
-    && deltas.every((d, l) => d instanceof tf.Tensor && d.rank === 2 && d.shape[0] === batch && d.shape[1] === widths[l]);
+    && deltas.every((d, l) => d instanceof tf.Tensor && d.rank === 2 && d.shape[0] === rows[l] && d.shape[1] === widths[l]);
   if (!ok) throw new Error(`rule '${rule.name}': deltas must return one error per hidden layer, shaped ${expected}`);
   return deltas as tf.Tensor2D[];
 }
@@ -131,13 +154,15 @@ function checkDeltas(deltas: unknown, tower: Tower, batch: number, rule: RuleDef
  * output error of each tower from the loss, the rule's error for each hidden layer, and
  * ∂W = inputᵀ·δ, ∂b = Σ δ. The head learns from the output error itself.
  */
-export function ruleGradients(rule: RuleDefinition, towers: readonly Tower[], state: RuleState, batch: Batch, loss: LossOfOutputs): { loss: tf.Scalar; grads: tf.Tensor[] } {
-  const caches = towers.map((t, i) => forwardCached(t, batch.inputs[i], i === 0 ? batch.extra : null));
+export function ruleGradients<C extends { readonly output: tf.Tensor2D; readonly headInput: tf.Tensor2D }>(
+  rule: RuleDefinition, towers: readonly Tower[], state: RuleState, batch: Batch, loss: LossOfOutputs, pass: TowerPass<C> = RATE_PASS as unknown as TowerPass<C>,
+): { loss: tf.Scalar; grads: tf.Tensor[] } {
+  const caches = towers.map((t, i) => pass.forward(t, batch.inputs[i], i === 0 ? batch.extra : null));
   const { loss: value, errors } = outputErrors(caches, loss);
   const grads = towers.flatMap((tower, i) => {
-    const e = errors[i];
-    const deltas = checkDeltas(rule.deltas(stepContext(tower, caches[i], e, state[i])), tower, e.shape[0], rule);
-    return [...deltas.flatMap((delta, l) => layerGrads(caches[i].post[l], delta)), ...layerGrads(caches[i].headInput, e)];
+    const inputs = tower.encoder.map((_, l) => pass.layerInput(caches[i], l));
+    const deltas = checkDeltas(rule.deltas(stepContext(pass, tower, caches[i], errors[i], state[i])), tower, inputs.map((x) => x.shape[0]), rule);
+    return [...deltas.flatMap((delta, l) => layerGrads(inputs[l], delta)), ...layerGrads(caches[i].headInput, errors[i])];
   });
   return { loss: value, grads };
 }

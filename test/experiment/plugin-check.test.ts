@@ -1,4 +1,4 @@
-import { existsSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { checkConfigFile, loadSweep } from '../../src/experiment/config.js';
@@ -104,5 +104,9 @@ learners:
     const yaml = resolvedConfigYaml(sweep);
     expect(yaml).toContain(`#   objective ae-file: ../ae.ts sha256 ${sha256}\n`);
     expect(yaml).toContain('objective: ../ae.ts');
+    // It is itself a config that plans the same cells from the output folder.
+    mkdirSync(join(dir, 'out'));
+    writeFileSync(join(dir, 'out', 'config.resolved.yaml'), yaml);
+    expect(planCells(loadSweep(join(dir, 'out', 'config.resolved.yaml'))).map((c) => c.id)).toEqual(planCells(sweep).map((c) => c.id));
   });
 });

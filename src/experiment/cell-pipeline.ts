@@ -30,7 +30,10 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
   const trainSeconds = clock();
   try {
     const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
-    const rows: Measurement[] = evaluation.rows.map((row) => ({ ...row, measure: 'score' }));
+    const rows: Measurement[] = [
+      ...evaluation.rows.map((row) => ({ ...row, measure: 'score' as const })),
+      ...evaluation.measures.map((row) => ({ ...row, severity: null, parameter: null })),
+    ];
     const arrays: Record<string, NpyArray> = {
       test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },
       ...(cell.output.saveFeatures ? everyStep(encoder, data) : {}),

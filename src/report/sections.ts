@@ -6,7 +6,7 @@ import { bySeed, severities, unique, type Noise } from './groups.js';
 import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
 import type { StoredCell } from './load.js';
 import type { ScoreRow } from '../results/results-table.js';
-import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
+import { corruptionError, normalisedArea, relativeCorruptionError, seedRobustness, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */
 export const FEW_SEEDS = 10;
@@ -51,7 +51,7 @@ export function robustnessTable(rows: readonly ScoreRow[], baseline: string | nu
   };
   const body = unique(rows.map((r) => r.learner)).map((l) => {
     const mine = curve(l);
-    return [l, cell(l, 'normalised area', () => normalisedArea(mine)), cell(l, 'drop', () => dropFromClean(mine)),
+    return [l, cell(l, 'normalised area', () => normalisedArea(mine)), cell(l, 'drop', () => seedRobustness(mine).drop),
       base == null ? 'n/a' : cell(l, 'CE', () => corruptionError(mine, base)),
       base == null ? 'n/a' : cell(l, 'relative CE', () => relativeCorruptionError(mine, base))];
   });

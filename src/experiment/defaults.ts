@@ -1,6 +1,7 @@
 import type { LatentName } from '../collect/dataset.js';
 import type { PolicyName } from '../collect/policies.js';
-import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
+import { CONTROL_OBJECTIVES, type ActivationName, type BackendName, type ObjectiveName, type OptimizerName, type RuleName } from '../learn/spec.js';
+import type { SeedMeasure } from '../probe/robustness.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
 /** How the agent gathers experience for one seed. */
@@ -16,6 +17,8 @@ export interface ProbeSettings {
   readonly targets: readonly LatentName[];
   /** Name of the learner that corruption errors are relative to and paired tests compare against. */
   readonly baseline: string;
+  /** The per-seed measure the primary family of hypotheses tests (report only; not part of a cell's id). */
+  readonly primary: SeedMeasure;
 }
 
 /**
@@ -81,10 +84,21 @@ export const DEFAULTS = {
     },
     /** Also write the features and the latents of every collected step (features.npy, latents.npy) beside the cell's scores (output-only). */
     saveFeatures: false,
+    /**
+     * Whether the learner is a control (a floor or a ceiling), compared with the baseline in
+     * the exploratory family only; when a config leaves it out, learners with these objectives are.
+     */
+    controlObjectives: CONTROL_OBJECTIVES,
   },
   probe: {
     /** Latents read out linearly from the frozen features. */
     targets: ['wall_ahead', 'material_ahead', 'nearest_emitter', 'nearest_distance_m', 'heading'] as readonly LatentName[],
+    /**
+     * The per-seed measure of the primary family: noisy (the mean chance-corrected score over
+     * the noisy severities: how much of the world the features still carry under noise), drop
+     * (corrected clean score − noisy) or area (normalised area under the corrected curve).
+     */
+    primary: 'noisy' as SeedMeasure,
   },
   /** Corruptions scored at test time; none by default (clean scores only). */
   noise: [] as readonly never[],
@@ -93,3 +107,8 @@ export const DEFAULTS = {
   /** Output folder when a config names none, relative to the working directory. */
   outRoot: 'runs',
 } as const;
+
+/** Whether a learner is a control: as its config says, else by its objective (DEFAULTS.learner.controlObjectives). */
+export function isControl(objective: ObjectiveName, control: boolean | undefined): boolean {
+  return control ?? DEFAULTS.learner.controlObjectives.includes(objective);
+}

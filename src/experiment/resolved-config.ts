@@ -2,13 +2,15 @@ import type { LatentName } from '../collect/dataset.js';
 import type { BackendName, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
-import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
+import { isControl, type CollectSettings, type OutputSettings, type ProbeSettings } from './defaults.js';
 import type { FilledConfig } from './schema.js';
 
 /** A learner as the sweep runs it: what it learns, and what its cells record beside the numbers. */
 export interface PlannedLearner {
   readonly spec: LearnerSpec;
   readonly output: OutputSettings;
+  /** Compared with the baseline in the exploratory family only (report only: not part of the cell id). */
+  readonly control: boolean;
 }
 
 /** One combination of a sweep's settings, in the camelCase types the modules take. */
@@ -40,8 +42,9 @@ export function resolveSettings(config: FilledConfig, worldPath: string): Resolv
     learners: config.learners.map((learner) => ({
       spec: learnerSpec(learner, probeTargets),
       output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
+      control: isControl(learner.objective, learner.control),
     })),
-    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
+    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name, primary: config.probe.primary },
     noise: config.noise.map((entry) => ({
       channel: entry.channel,
       kind: entry.kind,

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { LATENT_NAMES } from '../collect/dataset.js';
 import { ACTIVATIONS, BACKENDS, OBJECTIVES, OPTIMIZERS, RULES } from '../learn/spec.js';
 import { NOISE_KINDS } from '../noise/spec.js';
+import { SEED_MEASURES } from '../probe/robustness.js';
 import { CHANNELS } from '../senses/channel.js';
 import { POLICY_NAMES } from '../collect/policies.js';
 import { DEFAULTS } from './defaults.js';
@@ -42,6 +43,8 @@ const learner = z.strictObject({
   train: train.prefault({}),
   save_features: z.boolean().default(d.learner.saveFeatures)
     .describe('Also store features.npy and latents.npy of every collected step. Output-only: not part of the cell id.'),
+  control: z.boolean().optional()
+    .describe(`A control (floor or ceiling): compared with the baseline in the exploratory family only. Defaults to true for ${d.learner.controlObjectives.join(' and ')} learners. Report only: not part of the cell id.`),
 });
 
 /** A number, where YAML's .inf (the clean SNR of masking) is allowed too. */
@@ -88,6 +91,8 @@ export const configSchema = z.strictObject({
   probe: z.strictObject({
     targets: z.array(z.enum(LATENT_NAMES)).min(1).default([...d.probe.targets]),
     baseline: z.string().optional().describe('A learner name; defaults to the first learner.'),
+    primary: z.enum(SEED_MEASURES).default(d.probe.primary)
+      .describe('The per-seed robustness measure the primary family tests: noisy, drop or area. Report only: not part of the cell id.'),
   }).prefault({}),
   noise: z.array(noise).default([]),
   vary: z.record(z.string(), z.array(z.unknown()).min(1)).default({})

@@ -5,6 +5,13 @@ import type { LatentName } from '../collect/dataset.js';
 export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'supervised', 'untrained'] as const;
 export type ObjectiveName = (typeof OBJECTIVES)[number];
 
+/**
+ * Objectives whose learners are controls unless their config says otherwise: the floor
+ * (frozen random weights) and the ceiling (trained on the latents themselves). A control
+ * is reported beside the question, never in the primary family of hypotheses.
+ */
+export const CONTROL_OBJECTIVES: readonly ObjectiveName[] = ['untrained', 'supervised'];
+
 /** How weight updates are computed (the config's `rule`). */
 export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'] as const;
 export type RuleName = (typeof RULES)[number];

@@ -7,7 +7,7 @@ import { noiseParameter } from '../noise/severity.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import { preparedCka, prepareCka } from './cka.js';
 import { encodeDistinct, type RowInputs } from './distinct.js';
-import { correctedScore, seedRobustness } from './robustness.js';
+import { correctedScore, seedRobustness, SEED_MEASURES, type SeedMeasure } from './robustness.js';
 import { chanceLevel, evenSubsample, fitProbe, fitRows, scoreProbe, type FitRows, type FittedProbe } from './probe.js';
 import { takeRows } from './rows.js';
 import { probeTarget } from './targets.js';
@@ -27,9 +27,6 @@ export interface EvaluationRow {
   readonly value: number;
 }
 
-/** The per-seed robustness measures of one probe target under one noise setting. */
-export const SEED_MEASURES = ['noisy', 'drop', 'area'] as const;
-
 /**
  * One per-seed robustness measure (seedRobustness) on the chance-corrected scale
  * (correctedScore); `metric` names the probe score it was computed from. NaN when
@@ -39,7 +36,7 @@ export interface SeedMeasureRow {
   readonly target: string;
   readonly channel: string;
   readonly kind: string;
-  readonly measure: (typeof SEED_MEASURES)[number];
+  readonly measure: SeedMeasure;
   readonly metric: 'r2' | 'accuracy';
   readonly value: number;
 }

@@ -19,16 +19,22 @@ export const AREA_MIN_CLEAN = 0.05;
  * A probe score on a chance-corrected scale, so that features that carry nothing score 0
  * and cannot look sturdy: accuracy becomes (accuracy − chance) / (1 − chance), the form of
  * Cohen's kappa (Cohen 1960, eq. 1) with chance the majority class's share of the training
- * rows; R² is floored at 0 (a read-out fitted on clean features can score far below 0 on
- * noisy ones, and below 0 it only measures how far it extrapolates). NaN when chance is 1.
+ * rows; R² is taken as it is. Both are floored at 0: a read-out fitted on clean features
+ * can score far below that on noisy ones (R² of −14, or accuracy so far below a chance of
+ * 0.8 that the corrected value is −3.9), and below 0 it measures only how far the read-out
+ * extrapolates, not what the features carry. NaN when chance is 1.
  */
 export function correctedScore(metric: 'r2' | 'accuracy', score: number, chance: number): number {
-  if (metric === 'r2') return Number.isNaN(score) ? NaN : Math.max(0, score);
-  return chance < 1 ? (score - chance) / (1 - chance) : NaN;
+  const corrected = metric === 'r2' ? score : chance < 1 ? (score - chance) / (1 - chance) : NaN;
+  return Number.isNaN(corrected) ? NaN : Math.max(0, corrected);
 }
 
+/** The per-seed robustness measures, in the order every output lists them. */
+export const SEED_MEASURES = ['noisy', 'drop', 'area'] as const;
+export type SeedMeasure = (typeof SEED_MEASURES)[number];
+
 /** The per-seed robustness measures of one corrected curve. */
-export interface SeedRobustness {
+export interface SeedRobustness extends Record<SeedMeasure, Figure> {
   /** Mean corrected score over the noisy severities: how much the features still carry under noise. */
   readonly noisy: Figure;
   /** Corrected clean score minus `noisy`: how much the noise took away. */

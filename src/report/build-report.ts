@@ -33,8 +33,9 @@ export async function buildReport(outDir: string): Promise<ReportFiles> {
   const run = loadRun(outDir);
   const resultsPath = writeResultsCsv(outDir, run.results);
   const warnings = [...run.warnings];
-  const combos = combinations(run.rows, run.varyKeys);
-  const comparisons = run.baseline == null ? [] : compareWithBaseline(run.rows, run.varyKeys, run.baseline);
+  const combos = combinations(run.rows, run.varyKeys, run.measures);
+  const controls = new Set([...run.learners].filter(([, control]) => control).map(([name]) => name));
+  const comparisons = run.baseline == null ? [] : compareWithBaseline(combos, { baseline: run.baseline, primary: run.primary, controls });
   const learners = unique(run.rows.map((r) => r.learner));
   await mkdir(outputPath(outDir, 'plots'), { recursive: true });
   const plots = new Set<string>();
@@ -67,7 +68,7 @@ async function removeStalePlots(outDir: string, written: ReadonlySet<string>): P
 /** The robustness plots (one per target and noise) and the training plot of one combination. */
 async function comboPlots(run: StoredRun, combo: Combination, index: number | null, learners: readonly string[]): Promise<[string, string][]> {
   const out: [string, string][] = [];
-  for (const { target, metric, channel, kind, rows } of scoreGroups(combo.rows)) {
+  for (const { target, metric, channel, kind, rows } of scoreGroups(combo)) {
     const levels = severities(rows);
     const points = unique(rows.map((r) => r.learner)).flatMap((learner) =>
       learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));

@@ -73,6 +73,10 @@ describe('correctedScore', () => {
     expect(correctedScore('r2', 0.42, NaN)).toBe(0.42);
   });
 
+  it('floors accuracy below chance at 0: 0.1 against chance 0.8 would be −3.5', () => {
+    expect(correctedScore('accuracy', 0.1, 0.8)).toBe(0);
+  });
+
   it('is NaN when every training row has the majority class (chance 1)', () => {
     expect(correctedScore('accuracy', 1, 1)).toBeNaN();
   });
@@ -88,11 +92,11 @@ describe('seedRobustness per seed', () => {
     expect(seed1.area.value).toBeCloseTo(0.6875, 12);
   });
 
-  it('seed 2, accuracy 0.61, 0.6, 0.55 at chance 0.6 → corrected 0.025, 0, −0.125: noisy −0.0625, drop 0.0875, area undefined (clean below 0.05)', () => {
+  it('seed 2, accuracy 0.61, 0.6, 0.55 at chance 0.6 → corrected 0.025, 0, 0 (floored): noisy 0, drop 0.025, area undefined (clean below 0.05)', () => {
     const corrected = [0.61, 0.6, 0.55].map((a) => correctedScore('accuracy', a, 0.6));
     const seed2 = seedRobustness(curve(...corrected));
-    expect(seed2.noisy.value).toBeCloseTo(-0.0625, 12);
-    expect(seed2.drop.value).toBeCloseTo(0.0875, 12);
+    expect(seed2.noisy.value).toBe(0);
+    expect(seed2.drop.value).toBeCloseTo(0.025, 12);
     expect(seed2.area.value).toBeNaN();
     expect(seed2.area.reason).toBe(`the clean score 0.025 is below ${AREA_MIN_CLEAN}`);
   });

@@ -74,7 +74,9 @@ async function comboPlots(run: StoredRun, combo: Combination, index: number | nu
       learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
     const title = `${target} under ${channel} ${kind} noise`;
     out.push([robustnessPlotPath(target, channel, kind, index),
-      await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
+      await bandPlotSvg(points, learners, metric === 'r2'
+        ? { title, x: 'severity', y: 'R² (mean, 95% CI)', range: [-Infinity, 1] }
+        : { title, x: 'severity', y: 'accuracy (mean, 95% CI)', range: [0, 1] }, run.baseline)]);
   }
   const training = trainingPoints(run, combo);
   if (training.length > 0) {

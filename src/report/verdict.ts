@@ -52,15 +52,22 @@ function learnerVerdict(input: VerdictInput, learner: string): string {
   const difference = `${signed(c.meanDiff)} [${signed(c.ciLow)}, ${signed(c.ciHigh)}]`;
   const beside = `clean ${signed(clean.meanDiff)} [${signed(clean.ciLow)}, ${signed(clean.ciHigh)}]`;
   const seeds = `${c.n} seed${c.n === 1 ? '' : 's'}`;
-  if (c.family === 'identical') {
-    return c.note === 'differences have zero variance'
-      ? `${learner} − ${baseline} was ${signed(c.meanDiff)} in every seed (identical features, or noise that changes neither): nothing to test`
-      : `the noise moved neither ${learner}'s nor ${baseline}'s scores in any seed (it reaches neither one's inputs): nothing to test about robustness`;
-  }
+  if (c.family === 'identical') return identicalText(input, learner, c);
   if (isReliable(c)) {
     return `${learner} ${WORDS[primary][c.meanDiff > 0 ? 'up' : 'down']} ${baseline}: ${difference}, Holm p ${pValue(c.pHolm)}, ${seeds}; ${beside}`;
   }
   return `${learner} did not differ reliably from ${baseline}: ${difference}, Holm p ${pValue(c.pHolm)}, ${seeds}; ${beside}; ${detectable(c, input.familySize)}`;
+}
+
+/** Why an identical comparison has nothing to test. */
+function identicalText({ group, baseline, primary }: VerdictInput, learner: string, c: Comparison): string {
+  const values = group.measures.filter((r) => r.measure === primary && (r.learner === learner || r.learner === baseline)).map((r) => r.value);
+  if (values.length > 0 && values.every((v) => v === 0)) {
+    return `both ${learner} and ${baseline} kept nothing of it under this noise (corrected ${primary} 0 in every seed): nothing to compare`;
+  }
+  return c.note === 'differences have zero variance'
+    ? `${learner} − ${baseline} was ${signed(c.meanDiff)} in every seed (identical features, or noise that changes neither): nothing to test`
+    : `the noise moved neither ${learner}'s nor ${baseline}'s scores in any seed (it reaches neither one's inputs): nothing to test about robustness`;
 }
 
 /** What the seeds could have detected, in d_z and in the measure's units; a miss is not evidence of equality. */

@@ -44,6 +44,12 @@ describe('verdictLine', () => {
     expect(verdictLine(input([identical]))).toContain('a − base was +0.000 in every seed (identical features, or noise that changes neither): nothing to test.');
   });
 
+  it('says that both kept nothing when both are at 0 on the corrected scale in every seed', () => {
+    const zero = { ...group, measures: group.measures.map((r) => ({ ...r, value: r.measure === 'noisy' ? 0 : r.value })) };
+    const identical = comparison('a', 0, NaN, { family: 'identical', note: 'differences have zero variance', ciLow: 0, ciHigh: 0 });
+    expect(verdictLine({ ...input([identical]), group: zero })).toContain('both a and base kept nothing of it under this noise (corrected noisy 0 in every seed): nothing to compare.');
+  });
+
   it('says so when the primary family has no learner', () => {
     expect(verdictLine(input([], []))).toBe('x under sight gaussian noise: no learner other than the baseline and the controls, so there is no primary comparison.');
   });

@@ -211,5 +211,13 @@ export function readRecording(dir: string): Recording {
     return data;
   };
   const channels = Object.fromEntries(CHANNELS.map((c) => [c, read(c, '<f4')])) as Record<ChannelName, Float32Array>;
-  return { manifest, channels, latents: read('latents', '<f4'), actions: read('actions', '|u1'), episodes: read('episodes', '<i4'), split: read('split', '|u1') };
+  const named = (name: 'actions' | 'split', count: number) => {
+    const values = read(name, '|u1');
+    const t = values.findIndex((v) => v >= count);
+    if (t >= 0) throw new Error(`${join(dir, arrayFile(name))}: step ${t} holds ${values[t]}, which names none of the ${count} values the manifest lists`);
+    return values;
+  };
+  return {
+    manifest, channels, latents: read('latents', '<f4'), actions: named('actions', ACTIONS.length), episodes: read('episodes', '<i4'), split: named('split', SPLIT_NAMES.length),
+  };
 }

@@ -16,6 +16,8 @@ export function keyNames(input: string, key: Key): ExploreKey[] {
   if (key.downArrow) return ['down'];
   if (key.leftArrow) return ['left'];
   if (key.rightArrow) return ['right'];
+  if (key.home) return ['home'];
+  if (key.end) return ['end'];
   if (key.escape) return ['escape'];
   if (key.return) return ['enter'];
   if (key.backspace || key.delete) return ['backspace'];

@@ -30,7 +30,7 @@ export interface ExploreState {
   readonly recorded?: RecordedStep;
 }
 
-/** A key as the root component names it: a printable character, up/down/left/right, enter, backspace or escape. */
+/** A key as the root component names it: a printable character, up/down/left/right, home/end, enter, backspace or escape. */
 export type ExploreKey = string;
 
 const CLEAN: ChannelNoise = { kind: 'gaussian', severity: 0 };

@@ -26,7 +26,7 @@ export interface ReplayState {
 
 /** The keys as the help lines list them; `reduceReplay` is their meaning. */
 export const REPLAY_KEYS: readonly (readonly [string, string])[] = [
-  ['→ .', 'next step'], ['← ,', 'previous step'], ['↑ ↓', '10 steps on, back'], ['[ ]', 'episode start before, after'],
+  ['→ .', 'next step'], ['← ,', 'previous step'], ['↑ ↓', '10 steps on, back'], ['Home End', 'first, last step'], ['[ ]', 'episode start before, after'],
   ['space p', 'play, pause'], ['< >', 'slower, faster'], ['0-9 Enter', 'go to step'],
   ['n', 'next channel'], ['k', 'noise kind'], ['+ -', 'severity'], ['c', 'colour'], ['l', 'ground truth'], ['?', 'keys'], ['q Esc', 'quit'],
 ];
@@ -86,6 +86,8 @@ export function reduceReplay(state: ReplayState, key: ExploreKey): ReplayState {
   switch (key) {
     case 'right': case '.': return at(state, state.step + 1);
     case 'left': case ',': return at(state, state.step - 1);
+    case 'home': return at(state, 0);
+    case 'end': return at(state, last);
     case 'up': return at(state, state.step + 10);
     case 'down': return at(state, state.step - 10);
     case '[': return at(state, state.episodeStarts.filter((t) => t < state.step).at(-1) ?? 0);

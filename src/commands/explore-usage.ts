@@ -6,7 +6,7 @@ export const exploreUsage = defineCommand({
   summary: 'walk a world with every sense drawn live (an interactive terminal app)',
   details: 'The other demo worlds are a key away; press ? inside for the keys. With --replay, step through a recording '
     + '(crosswise record) instead: every panel and the ground truth as recorded, episode starts marked.',
-  operands: [{ name: 'world', optional: true, orOption: 'config', description: 'a world file (default: worlds/greenhouse.yaml)' }],
+  operands: [{ name: 'world', optional: true, orOption: ['config', 'replay'], description: 'a world file (default: worlds/greenhouse.yaml)' }],
   options: {
     config: { kind: 'text', value: 'FILE', description: "a sweep config, for its world and sense settings" },
     replay: { kind: 'text', value: 'DIR', description: 'a folder written by crosswise record, to step through' },

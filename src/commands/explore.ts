@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { readRecording, type Recording } from '../results/recording.js';
+import type { Recording } from '../results/recording.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
 import { checkWorldFile, loadWorld, parseWorld } from '../world/parse.js';
 import { WorldFileError } from '../world/problems.js';
@@ -11,6 +11,7 @@ import { runAction } from './command-line.js';
 import { configWorldAndSenses } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { exploreUsage } from './explore-usage.js';
+import { readReplayFolder } from './replay-folder.js';
 import { UsageError } from './usage.js';
 
 const DEMO_DIR = fileURLToPath(new URL('../../worlds/', import.meta.url));
@@ -26,7 +27,7 @@ export async function exploreCommand(args: readonly string[]): Promise<number> {
   return runAction(exploreUsage, args, async ({ operands: [world], values }) => {
     const colour = process.env.NO_COLOR == null || process.env.NO_COLOR === '';
     if (values.replay != null) {
-      if (world != null || values.config != null) throw new UsageError('--replay shows the recording\'s own world: drop the world and --config');
+      if (values.config != null) throw new UsageError("--replay shows the recording's own world and senses: drop --config");
       const replay = loadReplay(values.replay);
       requireTerminal();
       const { renderReplay } = await import('../tui/explore/render-explore.js');
@@ -55,12 +56,7 @@ function requireTerminal(): void {
 
 /** A recording and the world it was made in, which must be byte for byte the file it names. */
 export function loadReplay(dir: string): { readonly recording: Recording; readonly world: World } {
-  let recording: Recording;
-  try {
-    recording = readRecording(resolve(dir));
-  } catch (error) {
-    throw new UsageError(`--replay: ${(error as Error).message}`);
-  }
+  const recording = readReplayFolder(dir);
   const { file, sha256 } = recording.manifest.world;
   if (!existsSync(file)) throw new UsageError(`--replay: the recording's world file ${file} is missing`);
   const bytes = readFileSync(file);

@@ -11,7 +11,7 @@ export const recordUsage = defineCommand({
     + 'A world is walked as a config with default collect settings would walk it; with --config and --index the '
     + 'folder holds exactly the data that cell collects. --noise corrupts the test steps of a channel the way the '
     + 'probes do, with the same draws.',
-  operands: [{ name: 'world', orOption: 'config', description: 'a world file (YAML)' }],
+  operands: [{ name: 'world', orOption: ['config'], description: 'a world file (YAML)' }],
   options: {
     config: { kind: 'text', value: 'FILE', description: 'a sweep config; record the data of the cell --index names' },
     index: { kind: 'integer', value: 'I', min: 0, description: 'with --config: the cell, numbered from 0 as crosswise plan lists them' },

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import { existsSync, readdirSync, rmSync } from 'node:fs';
-import { writeFolderAtomic } from './atomic-file.js';
+import { existsSync, readdirSync, renameSync, rmSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { join } from 'node:path';
+import { writeFolderAtomic } from './atomic-file.js';
 import { cellDir, cellPath, outputPath } from './layout.js';
 
 /** Whether a cell is finished (done or failed); only a complete folder ever exists under its id. */
@@ -23,6 +23,22 @@ export function commitCellFolder(out: string, id: string, files: Readonly<Record
     // Another process finished the same cell first; its copy holds the same numbers.
     if (!isFinished(out, id)) throw error;
   }
+}
+
+/**
+ * Removes a stored cell so that it can be computed again. The folder is first renamed to a
+ * temporary name, so no reader ever sees it half deleted; when another process removed it
+ * first, there is nothing left to do.
+ */
+export function discardCell(out: string, id: string): void {
+  const aside = join(outputPath(out, 'cells'), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
+  try {
+    renameSync(cellDir(out, id), aside);
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return;
+    throw error;
+  }
+  rmSync(aside, { recursive: true, force: true });
 }
 
 // Temporary cell folders are named .partial-<host>-<pid>-<uuid>, so a cleanup only

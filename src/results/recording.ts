@@ -8,6 +8,7 @@ import { CHANNELS, type ChannelName, type SenseSettings } from '../senses/channe
 import { bandCentresHz } from '../senses/mel.js';
 import { CHANNEL_UNITS, channelEntryNames, channelShape } from '../senses/registry.js';
 import { ACTIONS } from '../world/types.js';
+import { checkedJson, parseJsonText } from './json-text.js';
 import { decodeNpy, encodeNpy, type NpyData, type NpyDescr } from './npy.js';
 
 /**
@@ -166,23 +167,13 @@ export function recordingFiles(recording: Recording): Record<string, string | Ui
 
 /** Parses manifest.json text; every problem is one line naming the file and the key. */
 export function parseManifest(text: string, fileName: string): RecordingManifest {
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (error) {
-    throw new Error(`${fileName}: not valid JSON (${(error as Error).message})`);
-  }
+  const json = parseJsonText(text, fileName);
   const { format, format_version: version } = (json ?? {}) as { format?: unknown; format_version?: unknown };
   if (format !== 'crosswise recording') throw new Error(`${fileName}: format: expected 'crosswise recording', got ${JSON.stringify(format) ?? 'none'}`);
   if (version !== RECORDING_FORMAT_VERSION) {
     throw new Error(`${fileName}: format_version: expected ${RECORDING_FORMAT_VERSION}, got ${JSON.stringify(version) ?? 'none'} (written by another version of crosswise; record again)`);
   }
-  const parsed = manifestSchema.safeParse(json);
-  if (!parsed.success) {
-    const issue = parsed.error.issues[0];
-    throw new Error(`${fileName}: ${issue.path.join('.') || '(top level)'}: ${issue.message}`);
-  }
-  const manifest = parsed.data;
+  const manifest = checkedJson(manifestSchema, json, fileName);
   const expected = fileEntries(manifest.steps, manifestSenses(manifest), {});
   for (const [file, { shape, dtype }] of Object.entries(expected)) {
     const entry = manifest.files[file];

@@ -9,7 +9,7 @@ export type Rng = () => number;
  * Sub-streams are derived by name, not by offsets into one sequence, so adding a draw
  * in one place never shifts the draws of another. The names in use are:
  * - `collect` (start cells and policies), `split` (episode shuffle);
- * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed);
+ * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed and by its recordings);
  * - `init/encoder/<channels joined by +>/<input width>/<hidden widths joined by x>/<activation>`
  *   (a tower's encoder weights, layer by layer), `init/head/<tower>/<rows>x<cols>` (a tower's
  *   head weights), `feedback/<tower>/<matrix>/<rows>x<cols>` (fixed feedback matrices),

@@ -1,9 +1,8 @@
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import type { FeatureExtractor } from '../learn/spec.js';
-import { corruptChannel, noiseRng } from '../noise/corrupt.js';
 import { checkNoiseEntries } from '../noise/validate.js';
-import { channelReference } from '../noise/reference.js';
 import { noiseParameter } from '../noise/severity.js';
+import { corruptTestRows, trainingReference } from '../noise/test-rows.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import { preparedCka, prepareCka } from './cka.js';
 import { encodeDistinct, type RowInputs } from './distinct.js';
@@ -155,13 +154,12 @@ function inputsOf(encoder: FeatureExtractor, data: Dataset, steps: Int32Array): 
  */
 function corruptedFeatures(args: EvaluationArgs, spec: NoiseSpec, test: RowInputs): (Float32Array | undefined)[] {
   const { encoder, data, split, seed } = args;
-  const size = data.channelSize[spec.channel];
-  const reference = channelReference(data.channels[spec.channel], size, split.train, spec.channel);
+  const reference = trainingReference(data, split, spec.channel);
   const clean = test.channels[spec.channel] as Float32Array;
   const noisy = spec.severities.filter((severity) => severity > 0); // severities never repeat (checkNoiseSpec)
   const encoded = encodeDistinct(encoder, data.channelSize, noisy.map((severity) => {
     const parameter = noiseParameter(spec, spec.severities.indexOf(severity));
-    const values = corruptChannel(clean, size, spec.kind, parameter, reference, noiseRng(seed, spec.channel, spec.kind, severity));
+    const values = corruptTestRows(clean, reference, spec.kind, severity, parameter, seed);
     return { n: test.n, channels: { ...test.channels, [spec.channel]: values } };
   }));
   return spec.severities.map((severity) => {

@@ -1,15 +1,12 @@
-import { existsSync, statSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
 import type { FilledConfig } from './schema.js';
 
 type Learner = FilledConfig['learners'][number];
 
-/** Problems a schema cannot see: cross-references, files on disk, sums and learner consistency. */
-export function checkConfig(config: FilledConfig, configDir: string): ConfigProblem[] {
+/** Problems a schema cannot see: cross-references, sums and learner consistency (world files: world-checks.ts). */
+export function checkConfig(config: FilledConfig): ConfigProblem[] {
   return [
-    ...checkWorld(config, configDir),
     ...checkSeeds(config.seeds),
     ...checkCollect(config),
     ...checkSenses(config),
@@ -18,12 +15,6 @@ export function checkConfig(config: FilledConfig, configDir: string): ConfigProb
     ...checkProbe(config),
     ...noiseProblems(config.noise),
   ];
-}
-
-function checkWorld(config: FilledConfig, configDir: string): ConfigProblem[] {
-  const path = resolve(configDir, config.world);
-  if (existsSync(path) && statSync(path).isFile()) return [];
-  return [{ path: ['world'], message: `world file not found: ${path}` }];
 }
 
 function checkSeeds(seeds: readonly number[]): ConfigProblem[] {

@@ -7,6 +7,8 @@ export interface ConfigProblem {
   readonly message: string;
   /** Point at the key itself rather than its value (unknown keys). */
   readonly atKey?: boolean;
+  /** Lines printed right after this one, already located elsewhere (the problems of a world file it names). */
+  readonly detail?: readonly string[];
 }
 
 /** A config that cannot be used; `lines` holds one `file:line:col: key: reason` line per problem. */
@@ -30,10 +32,11 @@ export function formatProblems(source: ConfigSource, problems: readonly ConfigPr
     const offset = offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
     const key = problem.path.length === 0 ? '(top level)' : problem.path.join('.');
-    return { offset, text: `${source.file}:${line}:${col}: ${key}: ${problem.message}` };
+    return { offset, lines: [`${source.file}:${line}:${col}: ${key}: ${problem.message}`, ...problem.detail ?? []] };
   });
   located.sort((a, b) => a.offset - b.offset);
-  return [...new Set(located.map((entry) => entry.text))];
+  const seen = new Set<string>();
+  return located.flatMap(({ lines }) => (seen.has(lines[0]) ? [] : (seen.add(lines[0]), lines)));
 }
 
 /** Text offset of the node at `path`, or of its deepest existing ancestor (keys brought in by `<<` merges have none of their own). */

@@ -7,6 +7,7 @@ import { DEFAULTS } from './defaults.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
+import { checkNamedWorlds } from './world-checks.js';
 import { problemsFromIssues } from './zod-problems.js';
 
 /** Where the results go when neither the config nor the command line says. */
@@ -25,10 +26,12 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const parsed = configSchema.safeParse(source.doc.toJS(), { reportInput: true });
-  if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
+  const raw: unknown = source.doc.toJS();
+  const named = checkNamedWorlds(raw != null && typeof raw === 'object' ? raw : {}, configDir);
+  const parsed = configSchema.safeParse(raw, { reportInput: true });
+  if (!parsed.success) fail([...problemsFromIssues(configSchema, parsed.error.issues), ...named.problems]);
   const filled = parsed.data as FilledConfig;
-  fail(checkConfig(filled, configDir));
+  fail([...checkConfig(filled), ...named.problems]);
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
   fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
@@ -92,7 +95,7 @@ function parseSource(file: string): ConfigSource {
 function validate(config: FilledConfig, configDir: string): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
   if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
-  return checkConfig(parsed.data, configDir);
+  return checkConfig(parsed.data);
 }
 
 function checkVaryKey(filled: FilledConfig, configDir: string, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {

@@ -38,7 +38,7 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
 
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
-    const problems = validate(config, configDir);
+    const problems = validate(config);
     if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
@@ -92,7 +92,7 @@ function parseSource(file: string): ConfigSource {
   return { file, doc, lineCounter };
 }
 
-function validate(config: FilledConfig, configDir: string): ConfigProblem[] {
+function validate(config: FilledConfig): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
   if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
   return checkConfig(parsed.data);
@@ -107,7 +107,7 @@ function checkVaryKey(filled: FilledConfig, configDir: string, key: string, path
   const texts = values.map(varyText);
   return values.flatMap((value, i) => {
     if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
-    const problems = validate(withValues(filled, [{ paths, value }]), configDir);
+    const problems = validate(withValues(filled, [{ paths, value }]));
     return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
   });
 }

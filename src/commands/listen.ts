@@ -2,15 +2,16 @@ import { existsSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { collect, type CollectOptions } from '../collect/collector.js';
 import { loadSweep } from '../experiment/config.js';
+import { readWorldFile } from '../experiment/file-kind.js';
 import { planCells } from '../experiment/plan.js';
 import { createRng } from '../random.js';
 import { writeWavFile } from '../results/wav.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
 import { audioBandsProblem, createSoundRenderer, FULL_SCALE_DB, SAMPLE_RATE_HZ, STEP_SECONDS } from '../senses/sound-synthesis.js';
-import { loadWorld } from '../world/parse.js';
 import type { World } from '../world/types.js';
 import { runAction } from './command-line.js';
+import { CONFIG_HINT } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { listenUsage } from './listen-usage.js';
 import { printProblem } from './messages.js';
@@ -84,7 +85,7 @@ export async function listenCommand(args: readonly string[]): Promise<number> {
     checkOut(out);
     const problem = audioBandsProblem(bandCentresHz(walk.senses));
     if (problem != null) throw new UsageError(`${problem}; lower senses.sound.max_hz`);
-    return writeWalk(walk, loadWorld(walk.worldPath), out);
+    return writeWalk(walk, readWorldFile(walk.worldPath, CONFIG_HINT), out);
   });
 }
 

@@ -7,6 +7,8 @@ export interface ConfigProblem {
   readonly message: string;
   /** Point at the key itself rather than its value (unknown keys). */
   readonly atKey?: boolean;
+  /** The text offset to point at, when the node at `path` is not the place (the second of two equal keys). */
+  readonly offset?: number;
   /** Lines printed right after this one, already located elsewhere (the problems of a world file it names). */
   readonly detail?: readonly string[];
 }
@@ -29,7 +31,7 @@ export interface ConfigSource {
 /** Formats problems as `file:line:col: key.path: message`, in file order. */
 export function formatProblems(source: ConfigSource, problems: readonly ConfigProblem[]): string[] {
   const located = problems.map((problem) => {
-    const offset = offsetOf(source.doc, problem.path, problem.atKey === true);
+    const offset = problem.offset ?? offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
     const key = problem.path.length === 0 ? '(top level)' : problem.path.join('.');
     return { offset, lines: [`${source.file}:${line}:${col}: ${key}: ${problem.message}`, ...problem.detail ?? []] };
@@ -37,6 +39,29 @@ export function formatProblems(source: ConfigSource, problems: readonly ConfigPr
   located.sort((a, b) => a.offset - b.offset);
   const seen = new Set<string>();
   return located.flatMap(({ lines }) => (seen.has(lines[0]) ? [] : (seen.add(lines[0]), lines)));
+}
+
+/** Each key written twice in one mapping, at its second place (YAML 1.2 §3.2.1.1: keys are unique). */
+export function duplicateKeys(source: ConfigSource): ConfigProblem[] {
+  const problems: ConfigProblem[] = [];
+  const visit = (node: unknown, path: readonly (string | number)[]): void => {
+    if (isSeq(node)) node.items.forEach((item, i) => visit(item, [...path, i]));
+    if (!isMap(node)) return;
+    const first = new Map<string, number>();
+    for (const pair of node.items) {
+      if (!isPair(pair) || !isScalar(pair.key)) continue;
+      const key = String(pair.key.value);
+      const offset = rangeStart(pair.key) ?? 0;
+      const earlier = first.get(key);
+      if (key !== '<<' && earlier != null) {
+        const { line, col } = source.lineCounter.linePos(earlier);
+        problems.push({ path: [...path, key], offset, message: `the key is written twice (first at line ${line}, column ${col}); keep one` });
+      } else first.set(key, offset);
+      visit(pair.value, key === '<<' ? path : [...path, key]);
+    }
+  };
+  visit(source.doc.contents, []);
+  return problems;
 }
 
 /** Text offset of the node at `path`, or of its deepest existing ancestor (keys brought in by `<<` merges have none of their own). */

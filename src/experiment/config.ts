@@ -2,8 +2,9 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { DEFAULTS } from './defaults.js';
+import { wrongKind } from './file-kind.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
@@ -26,12 +27,13 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
+  const duplicates = duplicateKeys(source);
   const raw: unknown = source.doc.toJS();
   const named = checkNamedWorlds(raw != null && typeof raw === 'object' ? raw : {}, configDir);
   const parsed = configSchema.safeParse(raw, { reportInput: true });
-  if (!parsed.success) fail([...problemsFromIssues(configSchema, parsed.error.issues), ...named.problems]);
+  if (!parsed.success) fail([...duplicates, ...problemsFromIssues(configSchema, parsed.error.issues), ...named.problems]);
   const filled = parsed.data as FilledConfig;
-  fail([...checkConfig(filled), ...named.problems]);
+  fail([...duplicates, ...checkConfig(filled), ...named.problems]);
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
   fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
@@ -81,12 +83,15 @@ function parseSource(file: string): ConfigSource {
   } catch (error) {
     throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
+  const wrong = wrongKind(text, file, 'config');
+  if (wrong != null) throw new ConfigError([wrong]);
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false });
+  // Duplicate keys are found by duplicateKeys, with their key path, among the other problems.
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, uniqueKeys: false });
   if (doc.errors.length > 0) {
     throw new ConfigError(doc.errors.map((error) => {
       const { line, col } = lineCounter.linePos(error.pos[0]);
-      return `${file}:${line}:${col}: (YAML): ${error.message.split('\n')[0]}`;
+      return `${file}:${line}:${col}: YAML syntax: ${error.message.split('\n')[0]}`;
     }));
   }
   return { file, doc, lineCounter };

@@ -1,9 +1,9 @@
 import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { loadWorld } from '../world/parse.js';
 import { WorldFileError } from '../world/problems.js';
 import type { World } from '../world/types.js';
 import type { ConfigProblem } from './config-errors.js';
+import { readWorldFile } from './file-kind.js';
 
 /** The worlds a config names, each read and validated once. */
 export interface WorldCheck {
@@ -41,7 +41,7 @@ export function checkNamedWorlds(config: { readonly world?: unknown; readonly va
 function readWorld(path: string): World | string[] {
   if (!existsSync(path) || !statSync(path).isFile()) return [];
   try {
-    return loadWorld(path);
+    return readWorldFile(path);
   } catch (error) {
     if (error instanceof WorldFileError) return [...error.problems];
     throw error;

@@ -14,7 +14,8 @@ export const WORLD_DEFAULTS = {
   wallLossDb: 25, // a light partition wall, dB per solid cell (common practice)
 } as const;
 
-const WORLD_KEYS = [
+/** The top-level keys of a world file. */
+export const WORLD_KEYS: readonly string[] = [
   'name', 'description', 'cell_size_m', 'ambient_db', 'wall_loss_db', 'materials', 'emitters', 'start', 'map',
 ];
 const REQUIRED_KEYS = ['name', 'cell_size_m', 'materials', 'emitters', 'map'];
@@ -180,7 +181,8 @@ export function loadWorld(path: string): World {
   return parseWorld(readWorldText(path), path);
 }
 
-function readWorldText(path: string): string {
+/** The text of a world file; throws WorldFileError with one line when it cannot be read. */
+export function readWorldText(path: string): string {
   try {
     return readFileSync(path, 'utf8');
   } catch (error) {

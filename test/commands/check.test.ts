@@ -37,7 +37,7 @@ describe('crosswise check', () => {
     const path = join(dir, 'other.yaml');
     writeFileSync(path, 'title: hello\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err).toEqual([`crosswise check: ${path}:1:1: not a world or config file (a world file has a 'map' key, a config a 'learners' key)`]);
+    expect(err).toEqual([`crosswise check: ${path}:1:1: not a world or config file (a world has 'map', 'materials' and 'emitters'; a config has 'learners' and 'world')`]);
   });
 
   it('reports a missing file and no arguments as errors', async () => {

@@ -2,11 +2,13 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, duplicateKeys, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { configParts } from './config-parts.js';
 import { DEFAULTS } from './defaults.js';
 import { wrongKind } from './file-kind.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
+import { varyProblems } from './vary-checks.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
 import { checkNamedWorlds } from './world-checks.js';
 import { problemsFromIssues } from './zod-problems.js';
@@ -27,20 +29,20 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const duplicates = duplicateKeys(source);
   const raw: unknown = source.doc.toJS();
-  const named = checkNamedWorlds(raw != null && typeof raw === 'object' ? raw : {}, configDir);
-  const parsed = configSchema.safeParse(raw, { reportInput: true });
-  if (!parsed.success) fail([...duplicates, ...problemsFromIssues(configSchema, parsed.error.issues), ...named.problems]);
-  const filled = parsed.data as FilledConfig;
-  fail([...duplicates, ...checkConfig(filled), ...named.problems]);
+  const parts = configParts(raw);
+  fail([
+    ...duplicateKeys(source),
+    ...configProblems(raw),
+    ...checkNamedWorlds(parts.merged, configDir).problems,
+    ...varyProblems(parts, configProblems),
+  ]);
+  const filled = configSchema.parse(raw);
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
-  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
-
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
-    const problems = validate(config);
+    const problems = configProblems(config);
     if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
@@ -97,38 +99,8 @@ function parseSource(file: string): ConfigSource {
   return { file, doc, lineCounter };
 }
 
-function validate(config: FilledConfig): ConfigProblem[] {
+/** Every problem of the schema and of the checks beyond it, each check run on whatever parts of the config are valid. */
+function configProblems(config: unknown): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
-  if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
-  return checkConfig(parsed.data);
-}
-
-function checkVaryKey(filled: FilledConfig, configDir: string, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
-  const at = ['vary', key];
-  if (paths.length === 0) {
-    return [{ path: at, atKey: true, message: `matches no setting${suggestion(key, settablePaths(filled))}` }];
-  }
-  const values = filled.vary[key];
-  const texts = values.map(varyText);
-  return values.flatMap((value, i) => {
-    if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
-    const problems = validate(withValues(filled, [{ paths, value }]));
-    return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
-  });
-}
-
-/** Dotted paths of every setting a vary key could name, for suggestions. */
-function settablePaths(filled: FilledConfig): string[] {
-  const flatten = (node: unknown, prefix: string): string[] => {
-    if (node == null || typeof node !== 'object' || Array.isArray(node)) return [prefix];
-    return Object.entries(node).flatMap(([key, value]) => flatten(value, `${prefix}.${key}`));
-  };
-  return [
-    'world',
-    ...flatten(filled.collect, 'collect'),
-    ...flatten(filled.senses, 'senses'),
-    ...filled.learners.flatMap((learner) => flatten(learner, 'learners.*')),
-    ...flatten(filled.probe, 'probe'),
-    ...filled.noise.flatMap((entry) => flatten(entry, 'noise.*')),
-  ];
+  return [...(parsed.success ? [] : problemsFromIssues(configSchema, parsed.error.issues)), ...checkConfig(configParts(config))];
 }

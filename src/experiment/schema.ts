@@ -106,3 +106,6 @@ export function configJsonSchema(): Record<string, unknown> {
     override: (context) => { if (context.zodSchema === parameterValue) Object.assign(context.jsonSchema, { type: 'number' }); },
   }) as Record<string, unknown>;
 }
+
+/** One learner, and one noise entry, checked on their own (see config-parts.ts). */
+export { learner as learnerSchema, noise as noiseEntrySchema };

@@ -51,7 +51,7 @@ describe('a config whose world is broken is rejected before anything runs', () =
   });
 
   it('checks every world of a vary list, each at its entry', async () => {
-    const text = `${CONFIG}vary:\n  world: [world.yaml, missing.yaml, world.yaml]\n`;
+    const text = `${CONFIG}vary:\n  world: [world.yaml, missing.yaml]\n`;
     const { dir, code, errors, files } = await attempt(planCommand, text, SHED_WORLD);
     expect(code).toBe(1);
     expect(errors).toEqual([`crosswise plan: ${dir}/config.yaml:8:23: vary.world.1: world file not found: ${dir}/missing.yaml`]);

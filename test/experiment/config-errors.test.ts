@@ -173,22 +173,40 @@ describe('config validation', () => {
     ]);
   });
 
-  it('rejects supervised targets that are not latents, and on learners that are not supervised', async () => {
+  it('rejects supervised targets that are not latents, and on learners that are not supervised, in one pass', async () => {
     const text = `${VALID}  - { name: oracle, objective: supervised, input: [sight], supervised_targets: [wall_ahead, smell] }\n`
       .replace('objective: reconstruct', 'objective: reconstruct\n    supervised_targets: [x]');
     const lines = await rejection(text.replace('noise:\n  - { channel: sight, kind: gaussian }\n', '') + 'noise: []\n');
     expect(lines).toEqual([
-      "config.yaml:13:93: learners.2.supervised_targets.1: expected one of x | y | heading | material_under | material_ahead | wall_ahead | nearest_emitter | nearest_distance_m | nearest_azimuth_deg | emitter_in_view | moved | bumped, got 'smell'",
-    ]);
-    const fixed = text.replace(', smell]', ']').replace('noise:\n  - { channel: sight, kind: gaussian }\n', '') + 'noise: []\n';
-    expect(await rejection(fixed)).toEqual([
       "config.yaml:11:25: learners.1.supervised_targets: only supervised learners have supervised_targets; objective 'reconstruct' does not use it",
+      "config.yaml:13:93: learners.2.supervised_targets.1: expected one of x | y | heading | material_under | material_ahead | wall_ahead | nearest_emitter | nearest_distance_m | nearest_azimuth_deg | emitter_in_view | moved | bumped, got 'smell'",
     ]);
   });
 
   it('reports every problem of a config at once, one line each', async () => {
     const lines = await rejection(VALID.replace('seeds: [1]', 'seeds: []').replace('objective: predict', 'objective: predikt'));
     expect(lines).toHaveLength(2);
+  });
+
+  it('reports four independent problems in one pass, one line each: a type error, a bad baseline, masking on touch, a vary key typo', async () => {
+    const text = VALID
+      .replace('input: [sight]\n    target', 'input: [sight]\n    train: { epochs: ten }\n    target')
+      .replace('kind: gaussian', 'kind: gaussian }\n  - { channel: touch, kind: masking')
+      + 'probe: { baseline: sight-autoencodr }\nvary:\n  learners.*.encoder.hiden: [[8], [16]]\n';
+    expect(await rejection(text)).toEqual([
+      "config.yaml:8:22: learners.0.train.epochs: expected number, got 'ten'",
+      "config.yaml:15:16: noise.1.channel: masking noise applies to sound only, got 'touch'",
+      "config.yaml:16:20: probe.baseline: expected the name of a learner (sound-from-sight, sight-autoencoder), got 'sight-autoencodr' (did you mean 'sight-autoencoder'?)",
+      "config.yaml:18:3: vary.learners.*.encoder.hiden: matches no setting (did you mean 'learners.*.encoder.hidden'?)",
+    ]);
+  });
+
+  it('judges a vary value against the config as written, so its problem shows beside the config\'s own', async () => {
+    const text = VALID.replace('seeds: [1]', 'seeds: []') + 'vary:\n  collect.steps: [1000, 10]\n';
+    expect(await rejection(text)).toEqual([
+      'config.yaml:3:8: seeds: expected at least 1 item, got an empty list',
+      'config.yaml:15:25: vary.collect.steps.1: value 10 is invalid: collect.steps: expected a value ≥ 100, got 10',
+    ]);
   });
 
   it('throws ConfigError from loadSweep with the same lines', () => {

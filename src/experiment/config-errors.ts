@@ -1,4 +1,3 @@
-import { closest, distance } from 'fastest-levenshtein';
 import { isMap, isPair, isScalar, isSeq, type Document, type LineCounter, type Node } from 'yaml';
 
 /** One thing wrong with a config, at a key path inside it. */
@@ -88,12 +87,4 @@ function rangeStart(node: unknown): number | undefined {
   return (node as Node | null)?.range?.[0];
 }
 
-/** ` (did you mean 'x'?)` for the nearest of `options`, or nothing when none is close. */
-export function suggestion(word: string, options: readonly string[]): string {
-  if (options.length === 0) return '';
-  const nearest = closest(word, [...options]);
-  const limit = Math.max(2, Math.floor(word.length / 3));
-  // Only suggest a word that is plausibly a misspelling of the nearest option.
-  const edits = distance(word, nearest);
-  return edits <= limit && edits < word.length ? ` (did you mean '${nearest}'?)` : '';
-}
+export { suggestion } from '../world/spelling.js';

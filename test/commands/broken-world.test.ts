@@ -45,7 +45,7 @@ describe('a config whose world is broken is rejected before anything runs', () =
     expect(code).toBe(1);
     expect(errors).toEqual([
       `crosswise ${name}: ${dir}/config.yaml:2:8: world: the world file ${dir}/world.yaml is invalid (1 problem, listed below)`,
-      `crosswise ${name}: ${dir}/world.yaml:13:4: unknown glyph "X" in map at x=1, y=1: not a material or emitter glyph`,
+      `crosswise ${name}: ${dir}/world.yaml:13:4: map: unknown glyph "X" at x=1, y=1: not a material or emitter glyph`,
     ]);
     expect(files).toEqual(['config.yaml', 'world.yaml']);
   });

@@ -29,7 +29,7 @@ describe('crosswise check', () => {
     const path = join(dir, 'bad.yaml');
     writeFileSync(path, 'name: x\ncell_size_m: 0\nmaterials: []\nemitters: []\nmap: |\n  #\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err[0]).toBe(`crosswise check: ${path}:2:14: 'cell_size_m' in the world must be a number > 0 and <= 100, got 0`);
+    expect(err[0]).toBe(`crosswise check: ${path}:2:14: cell_size_m: expected a number > 0 and <= 100, got 0`);
     expect(err.every((line) => line.startsWith(`crosswise check: ${path}:`))).toBe(true);
   });
 

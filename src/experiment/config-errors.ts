@@ -29,15 +29,31 @@ export interface ConfigSource {
 
 /** Formats problems as `file:line:col: key.path: message`, in file order. */
 export function formatProblems(source: ConfigSource, problems: readonly ConfigProblem[]): string[] {
+  const data: unknown = source.doc.toJS();
   const located = problems.map((problem) => {
     const offset = problem.offset ?? offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
-    const key = problem.path.length === 0 ? '(top level)' : problem.path.join('.');
+    const key = problem.path.length === 0 ? '(top level)' : pathText(problem.path, data);
     return { offset, lines: [`${source.file}:${line}:${col}: ${key}: ${problem.message}`, ...problem.detail ?? []] };
   });
   located.sort((a, b) => a.offset - b.offset);
   const seen = new Set<string>();
   return located.flatMap(({ lines }) => (seen.has(lines[0]) ? [] : (seen.add(lines[0]), lines)));
+}
+
+/**
+ * A key path as messages show it: dotted, list items by their 0-based index (as `vary`
+ * paths count them) followed by the item's name when it has one:
+ * `learners.0 (sound-from-sight).encoder.hidden`.
+ */
+export function pathText(path: readonly (string | number)[], data: unknown): string {
+  let node = data;
+  return path.map((segment) => {
+    const item = node != null && typeof node === 'object' ? (node as Record<string | number, unknown>)[segment] : undefined;
+    const name = Array.isArray(node) && item != null && typeof item === 'object' ? (item as { name?: unknown }).name : undefined;
+    node = item;
+    return typeof name === 'string' ? `${segment} (${name})` : String(segment);
+  }).join('.');
 }
 
 /** Each key written twice in one mapping, at its second place (YAML 1.2 §3.2.1.1: keys are unique). */

@@ -1,4 +1,4 @@
-import { suggestion, type ConfigProblem } from './config-errors.js';
+import { pathText, suggestion, type ConfigProblem } from './config-errors.js';
 import type { ConfigParts } from './config-parts.js';
 import { configSchema } from './schema.js';
 import { matchVaryPath, VARIABLE_SECTIONS, varyText, withValues } from './vary.js';
@@ -48,7 +48,7 @@ export function varyProblems(parts: ConfigParts, problemsOf: (config: unknown) =
       if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
       known ??= new Set(problemsOf(parts.merged).map(problemKey));
       const fresh = problemsOf(withValues(parts.merged, [{ paths, value }])).filter((problem) => !known?.has(problemKey(problem)));
-      return fresh.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${fresh[0].path.join('.')}: ${fresh[0].message}` }];
+      return fresh.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${pathText(fresh[0].path, parts.merged)}: ${fresh[0].message}` }];
     });
   });
 }

@@ -28,7 +28,7 @@ describe('crosswise check on config files', () => {
     vi.spyOn(console, 'error').mockImplementation((line: string) => { errors.push(line); });
     expect(await checkCommand([join(dir, 'config.yaml')])).toBe(1);
     expect(errors).toEqual([
-      `crosswise check: ${join(dir, 'config.yaml')}:4:43: learners.0.objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, got 'reconstrut' (did you mean 'reconstruct'?)`,
+      `crosswise check: ${join(dir, 'config.yaml')}:4:43: learners.0 (sight-autoencoder).objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, got 'reconstrut' (did you mean 'reconstruct'?)`,
     ]);
   });
 

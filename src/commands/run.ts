@@ -6,6 +6,7 @@ import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
@@ -38,6 +39,7 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
   return runAction(runUsage, args, async ({ operands: [config], values }) => {
     const jobs = values.jobs ?? availableParallelism();
     const loaded = loadSweepFrom(config, values.out);
+    for (const warning of loaded.warnings) printProblem('run', warning);
     const sweep = values.backend == null ? loaded : { ...loaded, backend: values.backend };
     const controller = new AbortController();
     const abandon = new AbortController();

@@ -8,6 +8,8 @@ export interface ConfigProblem {
   readonly atKey?: boolean;
   /** The text offset to point at, when the node at `path` is not the place (the second of two equal keys). */
   readonly offset?: number;
+  /** A warning rather than an error: the line reads `file:line:col: warning: key: message` and nothing stops. */
+  readonly warning?: boolean;
   /** Lines printed right after this one, already located elsewhere (the problems of a world file it names). */
   readonly detail?: readonly string[];
 }
@@ -34,7 +36,8 @@ export function formatProblems(source: ConfigSource, problems: readonly ConfigPr
     const offset = problem.offset ?? offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
     const key = problem.path.length === 0 ? '(top level)' : pathText(problem.path, data);
-    return { offset, lines: [`${source.file}:${line}:${col}: ${key}: ${problem.message}`, ...problem.detail ?? []] };
+    const kind = problem.warning === true ? 'warning: ' : '';
+    return { offset, lines: [`${source.file}:${line}:${col}: ${kind}${key}: ${problem.message}`, ...problem.detail ?? []] };
   });
   located.sort((a, b) => a.offset - b.offset);
   const seen = new Set<string>();

@@ -4,6 +4,7 @@ import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
 import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { configParts } from './config-parts.js';
+import { constantTargetWarnings } from './constant-targets.js';
 import { DEFAULTS } from './defaults.js';
 import { wrongKind } from './file-kind.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
@@ -31,10 +32,11 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   };
   const raw: unknown = source.doc.toJS();
   const parts = configParts(raw);
+  const named = checkNamedWorlds(parts.merged, configDir);
   fail([
     ...duplicateKeys(source),
     ...configProblems(raw),
-    ...checkNamedWorlds(parts.merged, configDir).problems,
+    ...named.problems,
     ...varyProblems(parts, configProblems),
   ]);
   const filled = configSchema.parse(raw);
@@ -58,18 +60,23 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
     varyKeys,
     combinations,
     filled,
+    warnings: formatProblems(source, constantTargetWarnings(combinations, named.worlds)),
   };
+}
+
+/** Every problem of a config file as `path:line:col: key: reason` (empty when it is valid), and its warnings when it is. */
+export function inspectConfigFile(path: string): { readonly problems: readonly string[]; readonly warnings: readonly string[] } {
+  try {
+    return { problems: [], warnings: loadSweep(path).warnings };
+  } catch (error) {
+    if (error instanceof ConfigError) return { problems: error.lines, warnings: [] };
+    throw error;
+  }
 }
 
 /** Every problem of a config file as `path:line:col: key: reason`; empty when it is valid. */
 export function checkConfigFile(path: string): string[] {
-  try {
-    loadSweep(path);
-    return [];
-  } catch (error) {
-    if (error instanceof ConfigError) return [...error.lines];
-    throw error;
-  }
+  return [...inspectConfigFile(path).problems];
 }
 
 function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {

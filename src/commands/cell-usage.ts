@@ -9,7 +9,7 @@ export const cellUsage = defineCommand({
   operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
   options: {
     index: { kind: 'integer', value: 'I', min: 0, required: true, description: 'which cell, numbered from 0 as crosswise plan lists them' },
-    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out" },
+    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out, else runs/<name> beside the config" },
   },
   examples: ['crosswise cell configs/quickstart.yaml --index 3 --out runs/quickstart'],
   exitCodes: [0, 1, 3, 5],

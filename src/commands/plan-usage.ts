@@ -7,7 +7,7 @@ export const planUsage = defineCommand({
   details: 'One row per cell: its index (for crosswise cell --index), its id (its folder under cells/), learner, seed and vary values.',
   operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
   options: {
-    out: { kind: 'text', value: 'DIR', description: 'output folder the sweep would write to', defaultText: "the config's out" },
+    out: { kind: 'text', value: 'DIR', description: 'output folder the sweep would write to', defaultText: "the config's out, else runs/<name> beside the config" },
   },
   examples: ['crosswise plan configs/quickstart.yaml'],
   exitCodes: [0, 1],

@@ -60,7 +60,7 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
     varyKeys,
     combinations,
     filled,
-    warnings: formatProblems(source, constantTargetWarnings(combinations, named.worlds)),
+    warnings: formatProblems(source, locatedAtWorld(source, constantTargetWarnings(combinations, named.worlds))),
   };
 }
 
@@ -82,7 +82,7 @@ export function checkConfigFile(path: string): string[] {
 function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {
   if (options.out != null) return resolve(options.out);
   if (filled.out != null) return resolve(configDir, filled.out);
-  return resolve(DEFAULTS.outRoot, filled.name);
+  return resolve(configDir, DEFAULTS.outRoot, filled.name);
 }
 
 function parseSource(file: string): ConfigSource {
@@ -104,6 +104,13 @@ function parseSource(file: string): ConfigSource {
     }));
   }
   return { file, doc, lineCounter };
+}
+
+/** Warnings about default probe targets point at the world they cannot vary in, as the file has no targets to point at. */
+function locatedAtWorld(source: ConfigSource, warnings: readonly ConfigProblem[]): ConfigProblem[] {
+  const world = source.doc.getIn(['world'], true) as { range?: [number] } | undefined;
+  if (source.doc.hasIn(['probe', 'targets']) || world?.range == null) return [...warnings];
+  return warnings.map((warning) => ({ ...warning, offset: world.range?.[0] }));
 }
 
 /** Every problem of the schema and of the checks beyond it, each check run on whatever parts of the config are valid. */

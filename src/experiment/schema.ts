@@ -92,7 +92,7 @@ export const configSchema = z.strictObject({
   noise: z.array(noise).default([]),
   vary: z.record(z.string(), z.array(z.unknown()).min(1)).default({})
     .describe('Dotted setting paths (with * over list items) mapped to the values to sweep.'),
-  out: z.string().min(1).optional().describe('Output folder, relative to this config file; defaults to runs/<name>.'),
+  out: z.string().min(1).optional().describe('Output folder, relative to this config file; defaults to runs/<name> beside the config file.'),
 });
 
 /** A config after schema validation, still in file spelling (snake_case), every default filled. */

@@ -4,11 +4,11 @@ import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Recording } from '../results/recording.js';
 import { DEFAULT_SENSE_SETTINGS } from '../senses/channel.js';
-import { checkWorldFile, loadWorld, parseWorld } from '../world/parse.js';
-import { WorldFileError } from '../world/problems.js';
+import { readWorldFile, worldFileProblems } from '../experiment/file-kind.js';
+import { parseWorld } from '../world/parse.js';
 import type { World } from '../world/types.js';
 import { runAction } from './command-line.js';
-import { configWorldAndSenses } from './config-senses.js';
+import { CONFIG_HINT, configWorldAndSenses } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { exploreUsage } from './explore-usage.js';
 import { readReplayFolder } from './replay-folder.js';
@@ -38,11 +38,10 @@ export async function exploreCommand(args: readonly string[]): Promise<number> {
       ? { worldPath: world ?? resolve(DEMO_DIR, DEFAULT_WORLD), senses: DEFAULT_SENSE_SETTINGS }
       : configWorldAndSenses(values.config);
     const first = resolve(chosen.worldPath);
-    const problems = checkWorldFile(first);
-    if (problems.length > 0) throw new WorldFileError(problems);
+    const opened = readWorldFile(first, CONFIG_HINT);
     requireTerminal();
-    const others = demoWorldPaths().filter((p) => p !== first && checkWorldFile(p).length === 0);
-    const worlds = [first, ...others].map((path) => loadWorld(path));
+    const others = demoWorldPaths().filter((p) => p !== first && worldFileProblems(p).length === 0);
+    const worlds = [opened, ...others.map((path) => readWorldFile(path))];
     // Imported here: Ink and React take a while to load, and only the app needs them.
     const { renderExplore } = await import('../tui/explore/render-explore.js');
     await renderExplore({ worlds, seed: values.seed, colour, settings: chosen.senses }).waitUntilExit();

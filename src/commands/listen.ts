@@ -2,6 +2,7 @@ import { existsSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { collect, type CollectOptions } from '../collect/collector.js';
 import { loadSweep } from '../experiment/config.js';
+import { readWorldFile } from '../experiment/file-kind.js';
 import { planCells } from '../experiment/plan.js';
 import { createRng } from '../random.js';
 import { manifestSenses } from '../results/recording.js';
@@ -9,8 +10,8 @@ import { writeWavFile } from '../results/wav.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
 import { audioBandsProblem, createSoundRenderer, FULL_SCALE_DB, SAMPLE_RATE_HZ, STEP_SECONDS } from '../senses/sound-synthesis.js';
-import { loadWorld } from '../world/parse.js';
 import { runAction } from './command-line.js';
+import { CONFIG_HINT } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { listenUsage } from './listen-usage.js';
 import { printProblem } from './messages.js';
@@ -74,7 +75,7 @@ function chooseWalk(world: string | undefined, args: ListenValues): Walk {
 
 /** Collects a walk: its sound as the agent heard it. */
 function hearWalk(walk: Walk): Heard {
-  const world = loadWorld(walk.worldPath);
+  const world = readWorldFile(walk.worldPath, CONFIG_HINT);
   const data = collect(world, walk.collect, walk.senses, walk.seed);
   return { sound: data.channels.sound, senses: walk.senses, seed: walk.seed, steps: walk.steps, worldName: world.name, label: walk.label };
 }

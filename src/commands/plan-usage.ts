@@ -8,7 +8,7 @@ export const planUsage = defineCommand({
     + 'then the size of the primary family of hypotheses and the smallest effect (d_z) its seeds can detect with 80% power.',
   operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
   options: {
-    out: { kind: 'text', value: 'DIR', description: 'output folder the sweep would write to', defaultText: "the config's out" },
+    out: { kind: 'text', value: 'DIR', description: 'output folder the sweep would write to', defaultText: "the config's out, else runs/<name> beside the config" },
   },
   examples: ['crosswise plan configs/quickstart.yaml'],
   exitCodes: [0, 1],

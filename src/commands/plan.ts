@@ -3,7 +3,7 @@ import type { ResolvedSettings } from '../experiment/resolved-config.js';
 import { powerLine, type PrimaryFamilyPlan } from '../report/power-line.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
-import { count } from './messages.js';
+import { count, printProblem } from './messages.js';
 import { planUsage } from './plan-usage.js';
 import { formatTable } from './table.js';
 
@@ -11,6 +11,7 @@ import { formatTable } from './table.js';
 export async function planCommand(args: readonly string[]): Promise<number> {
   return runAction(planUsage, args, async ({ operands: [config], values }) => {
     const sweep = loadSweepFrom(config, values.out);
+    for (const warning of sweep.warnings) printProblem('plan', warning);
     const cells = planCells(sweep);
     const header = ['index', 'id', 'learner', 'seed', ...sweep.varyKeys];
     const rows = cells.map((cell) => [String(cell.index), cell.id, cell.learner.name, String(cell.seed), ...sweep.varyKeys.map((key) => cell.vary[key])]);

@@ -104,7 +104,7 @@ export const DEFAULTS = {
   noise: [] as readonly never[],
   /** Severities scored when a noise entry names none: clean plus the five documented levels. */
   severities: [0, 1, 2, 3, 4, 5] as readonly number[],
-  /** Output folder when a config names none, relative to the working directory. */
+  /** Output folder when a config names none: runs/<name>, relative to the config file like `out`. */
   outRoot: 'runs',
 } as const;
 

@@ -14,7 +14,7 @@ export function plainLine(event: RunEvent, total: number): string {
   const at = (index: number) => `[${String(index + 1).padStart(String(total).length)}/${total}]`;
   switch (event.type) {
     case 'sweep-start':
-      return `sweep ${event.name}: ${plural(event.total, 'cell')}, ${event.skipped} already finished, ${plural(event.jobs, 'job')}, out ${event.out}`;
+      return `sweep ${event.name}: writing to ${event.out}; ${plural(event.total, 'cell')}, ${event.skipped} already finished, ${plural(event.jobs, 'job')}`;
     case 'cell-start':
       return `${at(event.cell.index)} start ${describe(event.cell)} on worker ${event.worker}`;
     case 'epoch': {

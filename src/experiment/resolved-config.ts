@@ -89,4 +89,6 @@ export interface Sweep {
   readonly combinations: readonly { readonly vary: Readonly<Record<string, string>>; readonly settings: ResolvedSettings }[];
   /** The config with every default filled in, as written to config.resolved.yaml. */
   readonly filled: FilledConfig;
+  /** `file:line:col: warning: key: message` lines: things that are valid but probably not meant (see constant-targets.ts). */
+  readonly warnings: readonly string[];
 }

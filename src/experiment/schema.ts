@@ -97,7 +97,7 @@ export const configSchema = z.strictObject({
   noise: z.array(noise).default([]),
   vary: z.record(z.string(), z.array(z.unknown()).min(1)).default({})
     .describe('Dotted setting paths (with * over list items) mapped to the values to sweep.'),
-  out: z.string().min(1).optional().describe('Output folder, relative to this config file; defaults to runs/<name>.'),
+  out: z.string().min(1).optional().describe('Output folder, relative to this config file; defaults to runs/<name> beside the config file.'),
 });
 
 /** A config after schema validation, still in file spelling (snake_case), every default filled. */
@@ -111,3 +111,6 @@ export function configJsonSchema(): Record<string, unknown> {
     override: (context) => { if (context.zodSchema === parameterValue) Object.assign(context.jsonSchema, { type: 'number' }); },
   }) as Record<string, unknown>;
 }
+
+/** One learner, and one noise entry, checked on their own (see config-parts.ts). */
+export { learner as learnerSchema, noise as noiseEntrySchema };

@@ -81,3 +81,20 @@ function unwrap(schema: z.ZodType): z.ZodType {
     node = inner;
   }
 }
+
+/**
+ * Every dotted path into a schema's objects, lists of objects written `*`
+ * (`learners.*.encoder.hidden`), inner objects included (`collect.split`).
+ */
+export function schemaPaths(schema: z.ZodType): string[] {
+  const walk = (node: z.ZodType, prefix: string): string[] => {
+    const inner = unwrap(node);
+    if (inner instanceof z.ZodObject) {
+      return Object.entries(inner.shape as Record<string, z.ZodType>)
+        .flatMap(([key, value]) => [`${prefix}${key}`, ...walk(value, `${prefix}${key}.`)]);
+    }
+    if (inner instanceof z.ZodArray && unwrap(inner.element as z.ZodType) instanceof z.ZodObject) return walk(inner.element as z.ZodType, `${prefix}*.`);
+    return [];
+  };
+  return walk(schema, '');
+}

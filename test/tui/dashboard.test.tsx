@@ -47,7 +47,7 @@ describe('Dashboard', () => {
     for (const e of SWEEP) events.emit(e);
     const frame = await waitFor(() => app.lastFrame() ?? '', 'epoch 3');
     expect(frame.split('\n')).toEqual([
-      'crosswise run · demo',
+      'crosswise run · demo · writing to runs/demo',
       'cells 2/6 done · 1 failed · 2 running · 1 queued',
       // Every event is stamped at 5 s, so both running cells have the whole mean (15 s) left: (15 + 15 + 15) / 2.
       'elapsed 0s · eta 23s · 2 workers',
@@ -133,7 +133,7 @@ describe('Dashboard at the end of a sweep', () => {
     events.emit({ type: 'sweep-done', done: 2, failed: 1, seconds: 75, summary: '2 done, 1 failed', interrupted: true });
     const frame = await waitFor(() => app.lastFrame() ?? '', 'stopped:');
     expect(frame.split('\n').slice(0, 7)).toEqual([
-      'crosswise run · demo',
+      'crosswise run · demo · writing to runs/demo',
       'cells 2/6 done · 1 failed · 0 running · 3 queued',
       'took 1m15s · 2 workers',
       'stopped: 2 done, 1 failed',

@@ -40,7 +40,7 @@ describe('run state', () => {
 
   it('formats the progress header', () => {
     const p = progressText(fold(0), 5000, false);
-    expect(p.title).toBe('crosswise run · demo');
+    expect(p.title).toBe('crosswise run · demo · writing to runs/demo');
     expect(p.counts).toBe('cells 2/6 done · 1 failed · 2 running · 1 queued');
     expect(p.timing).toBe('elapsed 5s · eta 18s · 2 workers');
     expect(p.notes).toEqual(['last failure: autoencoder seed 2 [c3]: loss became NaN']);

@@ -25,6 +25,8 @@ export interface ScoreSeries {
 /** Everything the run dashboard knows, folded from the event stream. */
 export interface RunState {
   readonly name: string;
+  /** The output folder, once the sweep has started. */
+  readonly out: string | null;
   readonly total: number;
   readonly skipped: number;
   readonly jobs: number;
@@ -46,7 +48,7 @@ export interface RunState {
 /** The state before any event, for a sweep of `total` cells named `name`. */
 export function initialRunState(name: string, total: number, nowMs: number): RunState {
   return {
-    name, total, skipped: 0, jobs: 1, startedMs: nowMs, done: 0, failed: 0, workers: [],
+    name, out: null, total, skipped: 0, jobs: 1, startedMs: nowMs, done: 0, failed: 0, workers: [],
     cellSeconds: [], lastFailure: null, views: [], noises: [], scores: [], finished: null,
   };
 }
@@ -55,7 +57,7 @@ export function initialRunState(name: string, total: number, nowMs: number): Run
 export function reduceRun(state: RunState, event: RunEvent, nowMs: number): RunState {
   switch (event.type) {
     case 'sweep-start':
-      return { ...state, name: event.name, total: event.total, skipped: event.skipped, jobs: Math.max(1, event.jobs), startedMs: nowMs };
+      return { ...state, name: event.name, out: event.out, total: event.total, skipped: event.skipped, jobs: Math.max(1, event.jobs), startedMs: nowMs };
     case 'cell-start':
       return { ...state, workers: withWorker(state.workers, { worker: event.worker, cell: event.cell, startedMs: nowMs, epoch: null, losses: [] }) };
     case 'epoch':

@@ -63,7 +63,8 @@ export function progressText(state: RunState, nowMs: number, stopping: boolean):
   const timing = state.finished == null
     ? `elapsed ${formatDuration(Math.max(0, nowMs - state.startedMs) / 1000)} · eta ${formatDuration(etaSeconds(state, nowMs))} · ${workers}`
     : `took ${formatDuration(state.finished.seconds)} · ${workers}`;
-  return { title: `crosswise run · ${state.name}`, counts, timing, notes: notes(state, stopping) };
+  const title = `crosswise run · ${state.name}${state.out == null ? '' : ` · writing to ${state.out}`}`;
+  return { title, counts, timing, notes: notes(state, stopping) };
 }
 
 function notes(state: RunState, stopping: boolean): string[] {

@@ -45,8 +45,8 @@ export interface ExploreView {
   readonly footer: readonly string[];
 }
 
-/** Labels of the touch and motor bars and the width of their bars. */
-export const BAR_LABEL_WIDTH = 10;
+/** Labels of the touch and motor bars (the channel registry's entry names, as `sense` prints them) and the width of their bars. */
+export const BAR_LABEL_WIDTH = Math.max(...[...TOUCH_NAMES, ...ACTIONS].map((name) => name.length));
 export const BAR_WIDTH = 8;
 const BAR_PANEL_WIDTH = BAR_LABEL_WIDTH + 1 + BAR_WIDTH + 1 + 4;
 /** The map keeps at least this many columns (or the whole map when it is narrower). */
@@ -126,7 +126,7 @@ function panelsInOrder(state: ExploreState, world: World, sample: ExploreSample,
       id: soundId(i), follows: i === 0 ? undefined : soundId(i - 1), width: part.title.length,
       view: { kind: 'text' as const, title: part.title, lines: part.lines.map((text) => ({ text })) },
     })),
-    { id: 'touch', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'touch', bars: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), sample.senses.touch[i])) } },
+    { id: 'touch', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'touch', bars: TOUCH_NAMES.map((name, i) => bar(name, sample.senses.touch[i])) } },
     ...(truth == null ? [] : [{ id: 'ground truth', width: TRUTH_WIDTH, view: { kind: 'text' as const, title: 'ground truth', lines: truth.map((text) => ({ text: cut(text, TRUTH_WIDTH) })) } }]),
     { id: 'noise', width: Math.max(...noise.map((n) => n.text.length)), view: { kind: 'text', title: 'noise · n k + -', lines: noise } },
     { id: 'motor', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'motor · last command', bars: ACTIONS.map((action, i) => bar(action, sample.senses.motor[i])) } },
@@ -152,14 +152,6 @@ function sightPanel(state: ExploreState, sample: ExploreSample, rows: number): P
 
 function bar(label: string, value: number): LabelledBar {
   return { label, fraction: value, value: formatFixed(value, 2) };
-}
-
-function touchLabel(name: string): string {
-  const footfall = /^footfall_(\d+)$/.exec(name);
-  if (footfall != null) return `footfall ${Number(footfall[1]) + 1}`;
-  const whisker = /^whisker_(\w)/.exec(name);
-  if (whisker != null) return `whisker ${whisker[1].toUpperCase()}`;
-  return name === 'bump_force' ? 'bump' : name;
 }
 
 function noiseText(noise: ChannelNoise, parameter: number): string {

@@ -68,8 +68,11 @@ export const DEFAULTS = {
       steps: 16,
       /** spiking only: length of one time step, ms. */
       dtMs: 1,
-      /** spiking only: membrane time constant τ, ms (common practice: 5–20 ms; Gerstner et al. 2014 give ~10 ms for cortical neurons). */
-      tauMs: 5,
+      /**
+       * spiking only: membrane time constant τ, ms. Short beside the simulated window (steps × dt_ms) so the membrane
+       * settles within it; cortical neurons are slower, ~10–20 ms (Gerstner et al. 2014). Tuned on the demo worlds.
+       */
+      tauMs: 2,
       /** spiking only: membrane potential at which a unit spikes; an input current of this size (times resistance) is the rheobase. */
       threshold: 1,
       /** spiking only: after a spike the membrane loses the threshold (subtract) or returns to 0 (zero). */

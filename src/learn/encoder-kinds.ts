@@ -59,7 +59,12 @@ function spikingKind(spec: LearnerSpec, seed: number): EncoderKind {
   const exact = spikingRule('backprop', d);
   const input = towerInput(spec.encoder, d, seed);
   return {
-    createTower: (shape, index) => createTower(shape, null, towerStreams(seed, shape, 'spiking', index), spikingInit((layer) => readsHeldInput(layer, d))),
+    createTower: (shape, index) => {
+      const t = createTower(shape, null, towerStreams(seed, shape, 'spiking', index), spikingInit((layer) => readsHeldInput(layer, d)));
+      // Each unit starts at its rheobase: with no input its membrane rises towards θ, so any excitation fires it.
+      t.encoder.forEach((l) => tf.tidy(() => l.b.assign(tf.fill(l.b.shape, d.lif.threshold))));
+      return t;
+    },
     rule: spikingRule(spec.rule, d),
     reference: (towers, batch, loss) => exact.gradients(towers, towers.map(() => []), batch, loss),
     batch(examples, rows, use) {

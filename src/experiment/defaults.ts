@@ -1,6 +1,6 @@
 import type { LatentName } from '../collect/dataset.js';
 import type { PolicyName } from '../collect/policies.js';
-import type { ActivationName, BackendName, EncoderKindName, InputCodingName, OptimizerName, ResetName, RuleName, SurrogateName } from '../learn/spec.js';
+import type { ActivationName, BackendName, EncoderKindName, InputCodingName, OptimizerName, ResetName, RuleName, SpikingEncoderSpec, SurrogateName } from '../learn/spec.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
 /** How the agent gathers experience for one seed. */
@@ -117,3 +117,8 @@ export const DEFAULTS = {
   /** Output folder when a config names none, relative to the working directory. */
   outRoot: 'runs',
 } as const;
+
+/** A spiking encoder with every default, as `encoder: { kind: spiking }` gives it. */
+export const SPIKING_DEFAULTS: SpikingEncoderSpec = (({ hidden, steps, dtMs, tauMs, threshold, reset, refractoryMs, inputCoding, surrogate, surrogateSlope }) => ({
+  kind: 'spiking', hidden, steps, dtMs, tauMs, threshold, reset, refractoryMs, inputCoding, surrogate, surrogateSlope,
+}))(DEFAULTS.learner.encoder);

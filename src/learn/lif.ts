@@ -67,7 +67,7 @@ export function lifForward(current: Float32Array, batch: number, units: number, 
   const V = new Float32Array(n);
   const refractory = new Int32Array(n);
   const { beta, gain, threshold, steps, refractorySteps } = p;
-  const subtract = p.reset === 'subtract';
+  const zero = p.reset === 'zero' ? 1 : 0; // arithmetic instead of a branch per element
   const { spikes, carry, rate } = out;
   // distance[i] = U[t] − θ, NaN while refractory; turned into the surrogate afterwards.
   const distance = out.surrogate;
@@ -86,21 +86,20 @@ export function lifForward(current: Float32Array, batch: number, units: number, 
         continue;
       }
       const u = Math.fround(beta * V[k] + gain * current[from + k]);
-      const s = u >= threshold ? 1 : 0;
+      const d = u - threshold;
+      const s = d >= 0 ? 1 : 0;
       spikes[i] = s;
-      distance[i] = u - threshold;
-      carry[i] = subtract ? 1 : 1 - s;
-      V[k] = subtract ? u - threshold * s : u * (1 - s);
-      if (s === 1) {
-        refractory[k] = refractorySteps;
-        rate[k] += 1;
-      }
+      distance[i] = d;
+      carry[i] = 1 - zero * s;
+      V[k] = u - s * (zero * u + (1 - zero) * threshold); // U − θ·S, or U·(1 − S)
+      rate[k] += s;
+      refractory[k] = s * refractorySteps;
     }
   }
   for (let k = 0; k < n; k++) rate[k] /= steps;
   for (let i = 0; i < distance.length; i++) {
-    const u = distance[i];
-    distance[i] = Number.isNaN(u) ? 0 : gain * surrogate(u, slope);
+    const d = distance[i];
+    distance[i] = d === d ? gain * surrogate(d, slope) : 0; // NaN (refractory) fails d === d
   }
 }
 

@@ -4,7 +4,8 @@ import { cellLabel, planCells } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
 import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
 import { storeCell, type CellResult } from '../experiment/store.js';
-import { isFinished } from '../results/cell-folder.js';
+import { discardCell } from '../results/cell-folder.js';
+import { cellStates } from '../results/cell-states.js';
 import { cellUsage } from './cell-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
@@ -21,10 +22,16 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     const cells = prepareOutput(sweep);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
-    if (isFinished(sweep.out, cell.id)) {
-      console.log(`cell ${index} (${cell.id}) is already finished in ${sweep.out}`);
+    const [stored] = cellStates(sweep.out, [cell]);
+    if (stored.status === 'done') {
+      console.log(`cell ${index} (${cell.id}) is already done in ${sweep.out}`);
       return EXIT.success;
     }
+    if (stored.status === 'failed' && !values['retry-failed']) {
+      console.log(`cell ${index} (${cell.id}) failed before (${stored.reason}); add --retry-failed to run it again`);
+      return EXIT.cellsFailed;
+    }
+    if (stored.status === 'failed') discardCell(sweep.out, cell.id);
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
     const record = storeCell(sweep.out, cell, result, sweep.varyKeys);

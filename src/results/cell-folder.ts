@@ -27,6 +27,22 @@ export function commitCellFolder(out: string, id: string, files: Readonly<Record
   }
 }
 
+/**
+ * Removes a stored cell so that it can be computed again. The folder is first renamed to a
+ * temporary name, so no reader ever sees it half deleted; when another process removed it
+ * first, there is nothing left to do.
+ */
+export function discardCell(out: string, id: string): void {
+  const aside = join(outputPath(out, 'cells'), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
+  try {
+    renameSync(cellDir(out, id), aside);
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return;
+    throw error;
+  }
+  rmSync(aside, { recursive: true, force: true });
+}
+
 // Temporary cell folders are named .partial-<host>-<pid>-<uuid>, so a cleanup only
 // touches those of dead processes on this machine, never those of a running task.
 const PARTIAL = '.partial-';

@@ -1,5 +1,5 @@
 import type { LatentName } from '../collect/dataset.js';
-import type { BackendName, LearnerSpec } from '../learn/spec.js';
+import type { BackendName, EncoderSpec, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
 import { isControl, type CollectSettings, type OutputSettings, type ProbeSettings } from './defaults.js';
@@ -62,7 +62,7 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
     target: (learner.target ?? []) as ChannelName[],
     offset: learner.offset,
     supervisedTargets: learner.objective === 'supervised' ? learner.supervised_targets ?? probeTargets : [],
-    encoder: { hidden: [...learner.encoder.hidden], activation: learner.encoder.activation },
+    encoder: encoderSpec(learner.encoder),
     rule: learner.rule,
     train: {
       optimizer: learner.train.optimizer,
@@ -72,6 +72,24 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
       patience: learner.train.patience,
       temperature: learner.train.temperature,
     },
+  };
+}
+
+/** An encoder's settings in module spelling. */
+export function encoderSpec(encoder: FilledConfig['learners'][number]['encoder']): EncoderSpec {
+  if (encoder.kind === 'mlp') return { kind: 'mlp', hidden: [...encoder.hidden], activation: encoder.activation };
+  return {
+    kind: 'spiking',
+    hidden: [...encoder.hidden],
+    steps: encoder.steps,
+    dtMs: encoder.dt_ms,
+    tauMs: encoder.tau_ms,
+    threshold: encoder.threshold,
+    reset: encoder.reset,
+    refractoryMs: encoder.refractory_ms,
+    inputCoding: encoder.input_coding,
+    surrogate: encoder.surrogate,
+    surrogateSlope: encoder.surrogate_slope,
   };
 }
 

@@ -11,6 +11,7 @@ import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';
 import { loadRun, type StoredCell, type StoredRun } from './load.js';
 import { bandPlotSvg, robustnessPlotPath, trainingPlotPath, type BandPoint } from './plots.js';
 import { learnerSummaries } from './sections.js';
+import { silentLayerNotes } from './silent-layers.js';
 import { summaryMarkdown } from './summary.js';
 
 /** What `buildReport` wrote. */
@@ -32,7 +33,7 @@ export interface ReportFiles {
 export async function buildReport(outDir: string): Promise<ReportFiles> {
   const run = loadRun(outDir);
   const resultsPath = writeResultsCsv(outDir, run.results);
-  const warnings = [...run.warnings];
+  const warnings = [...run.warnings, ...silentLayerNotes(run.cells)];
   const combos = combinations(run.rows, run.varyKeys, run.measures);
   const controls = new Set([...run.learners].filter(([, control]) => control).map(([name]) => name));
   const comparisons = run.baseline == null ? [] : compareWithBaseline(combos, { baseline: run.baseline, primary: run.primary, controls });

@@ -98,7 +98,7 @@ describe('sweep expansion', () => {
     expect(settings.learners[1]).toEqual({
       spec: {
         name: 'sight-autoencoder', objective: 'reconstruct', input: ['sight'], target: [], offset: 0, supervisedTargets: [],
-        encoder: { hidden: [64], activation: 'relu' }, rule: 'backprop',
+        encoder: { kind: 'mlp', hidden: [64], activation: 'relu' }, rule: 'backprop',
         train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1 },
       },
       output: { saveFeatures: false, alignEvery: 50 },

@@ -115,7 +115,9 @@ export function schemaPaths(schema: z.ZodType): string[] {
         .flatMap(([key, value]) => [`${prefix}${key}`, ...walk(value, `${prefix}${key}.`)]);
     }
     if (inner instanceof z.ZodArray && unwrap(inner.element as z.ZodType) instanceof z.ZodObject) return walk(inner.element as z.ZodType, `${prefix}*.`);
+    // A union (the encoder kinds) offers the paths of every option.
+    if (inner instanceof z.ZodUnion) return (inner.options as readonly z.ZodType[]).flatMap((option) => walk(option, prefix));
     return [];
   };
-  return walk(schema, '');
+  return [...new Set(walk(schema, ''))];
 }

@@ -194,19 +194,19 @@ describe('config validation', () => {
 
   it('rejects an unknown encoder kind, and keys of the other kind, naming the keys this kind has', async () => {
     expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spikng }\n'))).toEqual([
-      "config.yaml:9:22: learners.0.encoder.kind: expected one of mlp | spiking, got 'spikng' (did you mean 'spiking'?)",
+      "config.yaml:9:22: learners.0 (sound-from-sight).encoder.kind: expected one of mlp | spiking, got 'spikng' (did you mean 'spiking'?)",
     ]);
     expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, activation: relu }\n'))).toEqual([
-      'config.yaml:9:31: learners.0.encoder.activation: unknown key; expected one of kind, hidden, steps, dt_ms, tau_ms, threshold, reset, refractory_ms, input_coding, surrogate, surrogate_slope',
+      'config.yaml:9:31: learners.0 (sound-from-sight).encoder.activation: unknown key; expected one of kind, hidden, steps, dt_ms, tau_ms, threshold, reset, refractory_ms, input_coding, surrogate, surrogate_slope',
     ]);
     expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { tau_ms: 3 }\n'))).toEqual([
-      'config.yaml:9:16: learners.0.encoder.tau_ms: unknown key; expected one of kind, hidden, activation',
+      'config.yaml:9:16: learners.0 (sound-from-sight).encoder.tau_ms: unknown key; expected one of kind, hidden, activation',
     ]);
   });
 
   it('rejects a refractory period that is not a whole number of time steps', async () => {
     expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, dt_ms: 0.5, refractory_ms: 1.2 }\n'))).toEqual([
-      'config.yaml:9:58: learners.0.encoder.refractory_ms: expected 0 or a whole number of time steps (dt_ms = 0.5), got 1.2',
+      'config.yaml:9:58: learners.0 (sound-from-sight).encoder.refractory_ms: expected 0 or a whole number of time steps (dt_ms = 0.5), got 1.2',
     ]);
   });
 

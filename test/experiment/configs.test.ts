@@ -10,8 +10,8 @@ const CONFIGS = fileURLToPath(new URL('../../configs/', import.meta.url));
 const files = readdirSync(CONFIGS).filter((name) => name.endsWith('.yaml')).sort();
 
 describe('shipped configs', () => {
-  it('ship the five example sweeps', () => {
-    expect(files).toEqual(['multisense.yaml', 'quickstart.yaml', 'rules.yaml', 'sound-noise.yaml', 'vary.yaml']);
+  it('ship the six example sweeps', () => {
+    expect(files).toEqual(['multisense.yaml', 'quickstart.yaml', 'rules.yaml', 'sound-noise.yaml', 'spiking.yaml', 'vary.yaml']);
   });
 
   it.each(files)('%s is valid and points editors at the schema', (name) => {

@@ -11,6 +11,7 @@ import { listenUsage } from './commands/listen-usage.js';
 import { newUsage } from './commands/new-usage.js';
 import { printProblem } from './commands/messages.js';
 import { planUsage } from './commands/plan-usage.js';
+import { recordUsage } from './commands/record-usage.js';
 import { reportUsage } from './commands/report-usage.js';
 import { runUsage } from './commands/run-usage.js';
 import { schemaUsage } from './commands/schema-usage.js';
@@ -20,7 +21,7 @@ import type { CommandUsage } from './commands/usage.js';
 
 /** Every command, in the order `crosswise --help` lists them. */
 export const COMMANDS: readonly CommandUsage[] = [
-  runUsage, planUsage, cellUsage, clusterUsage, statusUsage, reportUsage, checkUsage, newUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
+  runUsage, planUsage, cellUsage, clusterUsage, statusUsage, reportUsage, checkUsage, newUsage, senseUsage, exploreUsage, listenUsage, recordUsage, benchUsage, schemaUsage,
 ];
 
 /** The package version (src/ and dist/ both sit one folder below package.json). */

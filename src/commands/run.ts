@@ -6,6 +6,7 @@ import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
@@ -38,6 +39,7 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
   return runAction(runUsage, args, async ({ operands: [config], values }) => {
     const jobs = values.jobs ?? availableParallelism();
     const loaded = loadSweepFrom(config, values.out);
+    const warn = () => loaded.warnings.forEach((warning) => printProblem('run', warning));
     const sweep = values.backend == null ? loaded : { ...loaded, backend: values.backend };
     const controller = new AbortController();
     const abandon = new AbortController();
@@ -52,7 +54,12 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
     const dashboard = useDashboard
       ? (parts.dashboard ?? await terminalDashboard())({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
       : undefined;
-    if (dashboard == null) listeners.add(plainLogger((line) => console.log(line)));
+    // Warnings follow the first line (where the sweep writes): right after it in plain mode,
+    // after the dashboard has closed otherwise, so the live screen does not hide them.
+    if (dashboard == null) {
+      const log = plainLogger((line) => console.log(line));
+      listeners.add((event) => { log(event); if (event.type === 'sweep-start') warn(); });
+    }
     process.on('SIGINT', stop);
     process.on('SIGTERM', stop);
     try {
@@ -64,7 +71,10 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         abandon: abandon.signal,
         report: buildSummary,
       });
-      await dashboard?.waitUntilExit();
+      if (dashboard != null) {
+        await dashboard.waitUntilExit();
+        warn();
+      }
       if (outcome.interrupted) {
         console.log(`stopped; finished cells are kept. resume with: crosswise run ${config}${values.out == null ? '' : ` --out ${values.out}`}`);
         return EXIT.interrupted;

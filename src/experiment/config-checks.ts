@@ -1,52 +1,51 @@
-import { existsSync, statSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { OBJECTIVE_TARGET, type ObjectiveName, type TargetUse } from '../learn/spec.js';
+import { spikingProblems } from '../learn/spiking-checks.js';
 import type { NoiseKindDefinition } from '../noise/kind-definition.js';
 import { builtInNoiseKind, noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
+import type { ConfigParts } from './config-parts.js';
 import { isPluginPath } from './plugin-bundle.js';
 import type { PluginCatalog } from './plugin-catalog.js';
 import type { PluginType } from './plugin-shapes.js';
+import { encoderSpec } from './resolved-config.js';
 import type { FilledConfig } from './schema.js';
 
 type Learner = FilledConfig['learners'][number];
 type Path = readonly (string | number)[];
 
-/** Problems a schema cannot see: cross-references, files on disk (world, plug-ins), sums and learner consistency. */
-export function checkConfig(config: FilledConfig, configDir: string, plugins: PluginCatalog): ConfigProblem[] {
+/**
+ * Problems a schema cannot see: cross-references, plug-in files, sums and learner
+ * consistency (world files: world-checks.ts). Each check runs on the parts it needs whenever
+ * they are valid. A plug-in file is loaded (once per catalog) and its problem reported at the
+ * key that names it.
+ */
+export function checkConfig(parts: ConfigParts, plugins: PluginCatalog): ConfigProblem[] {
   const problems: ConfigProblem[] = [];
-  /** The plug-in a value names (its problem recorded at `path`), or undefined for a built-in name. */
-  const plugin = (type: PluginType, value: string, path: Path) => {
+  /** The plug-in a value names (null when it cannot be used: its problem is recorded at `path`), or undefined for a built-in name. */
+  const plugin = (type: PluginType, value: string, path: Path): unknown => {
     if (!isPluginPath(value)) return undefined;
     const loaded = plugins.resolve(type, value);
     if ('problem' in loaded) problems.push({ path, message: loaded.problem });
     return 'problem' in loaded ? null : loaded.definition;
   };
-  plugin('policy', config.collect.policy, ['collect', 'policy']);
-  const noiseKinds = new Map(config.noise.map((entry, i) => [entry.kind, plugin('noise', entry.kind, ['noise', i, 'kind']) as NoiseKindDefinition | null | undefined]));
+  if (parts.collect != null) plugin('policy', parts.collect.policy, ['collect', 'policy']);
+  const noiseKinds = new Map(parts.noise.flatMap((entry, i) => (entry == null ? [] : [[entry.kind, plugin('noise', entry.kind, ['noise', i, 'kind']) as NoiseKindDefinition | null | undefined] as const])));
   problems.push(
-    ...checkWorld(config, configDir),
-    ...checkSeeds(config.seeds),
-    ...checkCollect(config),
-    ...checkSenses(config),
-    ...checkLearnerNames(config.learners),
-    ...config.learners.flatMap((learner, i) => {
+    ...(parts.seeds == null ? [] : checkSeeds(parts.seeds)),
+    ...(parts.collect == null ? [] : checkCollect(parts.collect)),
+    ...(parts.senses == null ? [] : checkSenses(parts.senses)),
+    ...checkLearnerNames(parts.learnerNames),
+    ...parts.learners.flatMap((learner, i) => {
+      if (learner == null) return [];
       const at = ['learners', i];
-      const objective = plugin('objective', learner.objective, [...at, 'objective']) as { target: TargetUse } | null | undefined;
+      const objective = plugin('objective', learner.objective, [...at, 'objective']) as { readonly target: TargetUse } | null | undefined;
       plugin('rule', learner.rule, [...at, 'rule']);
-      const target = objective === undefined ? OBJECTIVE_TARGET[learner.objective as ObjectiveName] : objective?.target;
-      return checkLearner(learner, at, target);
+      return checkLearner(learner, at, objective === undefined ? OBJECTIVE_TARGET[learner.objective as ObjectiveName] : objective?.target);
     }),
-    ...checkProbe(config),
-    ...noiseProblems(config.noise, (kind) => (noiseKinds.get(kind) === undefined ? builtInNoiseKind(kind) : noiseKinds.get(kind))),
+    ...(parts.probe == null ? [] : checkProbe(parts.probe, parts.learnerNames)),
+    ...noiseProblems(parts.noise, (kind) => (noiseKinds.get(kind) === undefined ? builtInNoiseKind(kind) : noiseKinds.get(kind))),
   );
   return problems;
-}
-
-function checkWorld(config: FilledConfig, configDir: string): ConfigProblem[] {
-  const path = resolve(configDir, config.world);
-  if (existsSync(path) && statSync(path).isFile()) return [];
-  return [{ path: ['world'], message: `world file not found: ${path}` }];
 }
 
 function checkSeeds(seeds: readonly number[]): ConfigProblem[] {
@@ -54,7 +53,7 @@ function checkSeeds(seeds: readonly number[]): ConfigProblem[] {
     seeds.indexOf(seed) < i ? [{ path: ['seeds', i], message: `seed ${seed} is listed twice` }] : []);
 }
 
-function checkCollect({ collect }: FilledConfig): ConfigProblem[] {
+function checkCollect(collect: FilledConfig['collect']): ConfigProblem[] {
   const problems: ConfigProblem[] = [];
   const sum = collect.split.train + collect.split.validation + collect.split.test;
   if (Math.abs(sum - 1) > 1e-9) {
@@ -66,16 +65,15 @@ function checkCollect({ collect }: FilledConfig): ConfigProblem[] {
   return problems;
 }
 
-function checkSenses({ senses }: FilledConfig): ConfigProblem[] {
+function checkSenses(senses: FilledConfig['senses']): ConfigProblem[] {
   if (senses.sound.min_hz < senses.sound.max_hz) return [];
   return [{ path: ['senses', 'sound', 'max_hz'], message: `expected more than min_hz (${senses.sound.min_hz}), got ${senses.sound.max_hz}` }];
 }
 
-function checkLearnerNames(learners: readonly Learner[]): ConfigProblem[] {
-  const names = learners.map((learner) => learner.name);
+function checkLearnerNames(names: readonly (string | undefined)[]): ConfigProblem[] {
   return names.flatMap((name, i) => {
     const first = names.indexOf(name);
-    return first < i ? [{ path: ['learners', i, 'name'], message: `duplicate learner name '${name}' (also learners.${first})` }] : [];
+    return name != null && first < i ? [{ path: ['learners', i, 'name'], message: `duplicate learner name '${name}' (also learners.${first})` }] : [];
   });
 }
 
@@ -101,6 +99,10 @@ function checkLearner(learner: Learner, at: Path, target: TargetUse | undefined)
   if (learner.objective === 'supervised' && learner.supervised_targets?.length === 0) {
     problem('supervised_targets', 'expected at least 1 item, got an empty list');
   }
+  const encoder = encoderSpec(learner.encoder);
+  if (encoder.kind === 'spiking') {
+    problems.push(...spikingProblems(encoder, learner.rule).map(({ key, message }) => ({ path: [...at, ...key], message })));
+  }
   return problems;
 }
 
@@ -108,10 +110,10 @@ function sameSet(a: readonly string[], b: readonly string[]): boolean {
   return a.length === b.length && a.every((item) => b.includes(item));
 }
 
-function checkProbe({ probe, learners }: FilledConfig): ConfigProblem[] {
-  if (probe.baseline == null) return [];
-  const names = learners.map((learner) => learner.name);
-  if (names.includes(probe.baseline)) return [];
+function checkProbe(probe: FilledConfig['probe'], learnerNames: readonly (string | undefined)[]): ConfigProblem[] {
+  // A learner whose name is not text may be the one meant; its own problem comes first.
+  if (probe.baseline == null || learnerNames.includes(probe.baseline) || learnerNames.includes(undefined)) return [];
+  const names = learnerNames as readonly string[];
   return [{
     path: ['probe', 'baseline'],
     message: `expected the name of a learner (${names.join(', ')}), got '${probe.baseline}'${suggestion(probe.baseline, names)}`,

@@ -2,12 +2,17 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { configParts } from './config-parts.js';
+import { constantTargetWarnings } from './constant-targets.js';
 import { DEFAULTS } from './defaults.js';
+import { wrongKind } from './file-kind.js';
 import { PluginCatalog } from './plugin-catalog.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
+import { varyProblems } from './vary-checks.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
+import { checkNamedWorlds } from './world-checks.js';
 import { problemsFromIssues } from './zod-problems.js';
 
 /** Where the results go when neither the config nor the command line says. */
@@ -26,18 +31,23 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const parsed = configSchema.safeParse(source.doc.toJS(), { reportInput: true });
-  if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
-  const filled = parsed.data as FilledConfig;
+  const raw: unknown = source.doc.toJS();
+  const parts = configParts(raw);
   const plugins = new PluginCatalog(configDir);
-  fail(checkConfig(filled, configDir, plugins));
+  const configProblems = (config: unknown) => problemsOf(config, plugins);
+  const named = checkNamedWorlds(parts.merged, configDir);
+  fail([
+    ...duplicateKeys(source),
+    ...configProblems(raw),
+    ...named.problems,
+    ...varyProblems(parts, configProblems),
+  ]);
+  const filled = configSchema.parse(raw);
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
-  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, plugins, key, matches[i])));
-
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
-    const problems = validate(config, configDir, plugins);
+    const problems = configProblems(config);
     if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
@@ -53,25 +63,30 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
     varyKeys,
     combinations,
     filled,
+    warnings: formatProblems(source, locatedAtWorld(source, constantTargetWarnings(combinations, named.worlds))),
     plugins: plugins.plugins,
   };
 }
 
-/** Every problem of a config file as `path:line:col: key: reason`; empty when it is valid. */
-export function checkConfigFile(path: string): string[] {
+/** Every problem of a config file as `path:line:col: key: reason` (empty when it is valid), and its warnings when it is. */
+export function inspectConfigFile(path: string): { readonly problems: readonly string[]; readonly warnings: readonly string[] } {
   try {
-    loadSweep(path);
-    return [];
+    return { problems: [], warnings: loadSweep(path).warnings };
   } catch (error) {
-    if (error instanceof ConfigError) return [...error.lines];
+    if (error instanceof ConfigError) return { problems: error.lines, warnings: [] };
     throw error;
   }
+}
+
+/** Every problem of a config file as `path:line:col: key: reason`; empty when it is valid. */
+export function checkConfigFile(path: string): string[] {
+  return [...inspectConfigFile(path).problems];
 }
 
 function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {
   if (options.out != null) return resolve(options.out);
   if (filled.out != null) return resolve(configDir, filled.out);
-  return resolve(DEFAULTS.outRoot, filled.name);
+  return resolve(configDir, DEFAULTS.outRoot, filled.name);
 }
 
 function parseSource(file: string): ConfigSource {
@@ -81,49 +96,29 @@ function parseSource(file: string): ConfigSource {
   } catch (error) {
     throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
+  const wrong = wrongKind(text, file, 'config');
+  if (wrong != null) throw new ConfigError([wrong]);
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false });
+  // Duplicate keys are found by duplicateKeys, with their key path, among the other problems.
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, uniqueKeys: false });
   if (doc.errors.length > 0) {
     throw new ConfigError(doc.errors.map((error) => {
       const { line, col } = lineCounter.linePos(error.pos[0]);
-      return `${file}:${line}:${col}: (YAML): ${error.message.split('\n')[0]}`;
+      return `${file}:${line}:${col}: YAML syntax: ${error.message.split('\n')[0]}`;
     }));
   }
   return { file, doc, lineCounter };
 }
 
-function validate(config: FilledConfig, configDir: string, plugins: PluginCatalog): ConfigProblem[] {
+/** Warnings about default probe targets point at the world they cannot vary in, as the file has no targets to point at. */
+function locatedAtWorld(source: ConfigSource, warnings: readonly ConfigProblem[]): ConfigProblem[] {
+  const world = source.doc.getIn(['world'], true) as { range?: [number] } | undefined;
+  if (source.doc.hasIn(['probe', 'targets']) || world?.range == null) return [...warnings];
+  return warnings.map((warning) => ({ ...warning, offset: world.range?.[0] }));
+}
+
+/** Every problem of the schema and of the checks beyond it, each check run on whatever parts of the config are valid. */
+function problemsOf(config: unknown, plugins: PluginCatalog): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
-  if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
-  return checkConfig(parsed.data, configDir, plugins);
-}
-
-function checkVaryKey(filled: FilledConfig, configDir: string, plugins: PluginCatalog, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
-  const at = ['vary', key];
-  if (paths.length === 0) {
-    return [{ path: at, atKey: true, message: `matches no setting${suggestion(key, settablePaths(filled))}` }];
-  }
-  const values = filled.vary[key];
-  const texts = values.map(varyText);
-  return values.flatMap((value, i) => {
-    if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
-    const problems = validate(withValues(filled, [{ paths, value }]), configDir, plugins);
-    return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
-  });
-}
-
-/** Dotted paths of every setting a vary key could name, for suggestions. */
-function settablePaths(filled: FilledConfig): string[] {
-  const flatten = (node: unknown, prefix: string): string[] => {
-    if (node == null || typeof node !== 'object' || Array.isArray(node)) return [prefix];
-    return Object.entries(node).flatMap(([key, value]) => flatten(value, `${prefix}.${key}`));
-  };
-  return [
-    'world',
-    ...flatten(filled.collect, 'collect'),
-    ...flatten(filled.senses, 'senses'),
-    ...filled.learners.flatMap((learner) => flatten(learner, 'learners.*')),
-    ...flatten(filled.probe, 'probe'),
-    ...filled.noise.flatMap((entry) => flatten(entry, 'noise.*')),
-  ];
+  return [...(parsed.success ? [] : problemsFromIssues(configSchema, parsed.error.issues)), ...checkConfig(configParts(config), plugins)];
 }

@@ -1,8 +1,8 @@
 import type { LatentName } from '../collect/dataset.js';
-import type { BackendName, LearnerSpec } from '../learn/spec.js';
+import type { BackendName, EncoderSpec, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
-import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
+import { isControl, type CollectSettings, type OutputSettings, type ProbeSettings } from './defaults.js';
 import { isPluginPath } from './plugin-bundle.js';
 import type { LoadedPlugin, PluginCatalog, PluginRef } from './plugin-catalog.js';
 import type { PluginType } from './plugin-shapes.js';
@@ -14,6 +14,8 @@ export interface PlannedLearner {
   readonly output: OutputSettings;
   /** The plug-ins its objective and rule come from (none when both are built in). */
   readonly plugins: readonly PluginRef[];
+  /** Compared with the baseline in the exploratory family only (report only: not part of the cell id). */
+  readonly control: boolean;
 }
 
 /** One combination of a sweep's settings, in the camelCase types the modules take. */
@@ -59,10 +61,11 @@ export function resolveSettings(config: FilledConfig, worldPath: string, plugins
       return {
         spec: { ...learnerSpec(learner, probeTargets), objective: objective.name, rule: rule.name },
         output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
+        control: isControl(learner.objective, learner.control),
         plugins: [...objective.refs, ...rule.refs],
       };
     }),
-    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
+    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name, primary: config.probe.primary },
     plugins: [...policy.refs, ...noiseKinds.flatMap((kind) => kind.refs)],
     noise: config.noise.map((entry, i) => ({
       channel: entry.channel,
@@ -81,7 +84,7 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
     target: (learner.target ?? []) as ChannelName[],
     offset: learner.offset,
     supervisedTargets: learner.objective === 'supervised' ? learner.supervised_targets ?? probeTargets : [],
-    encoder: { hidden: [...learner.encoder.hidden], activation: learner.encoder.activation },
+    encoder: encoderSpec(learner.encoder),
     rule: learner.rule,
     train: {
       optimizer: learner.train.optimizer,
@@ -91,6 +94,24 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
       patience: learner.train.patience,
       temperature: learner.train.temperature,
     },
+  };
+}
+
+/** An encoder's settings in module spelling. */
+export function encoderSpec(encoder: FilledConfig['learners'][number]['encoder']): EncoderSpec {
+  if (encoder.kind === 'mlp') return { kind: 'mlp', hidden: [...encoder.hidden], activation: encoder.activation };
+  return {
+    kind: 'spiking',
+    hidden: [...encoder.hidden],
+    steps: encoder.steps,
+    dtMs: encoder.dt_ms,
+    tauMs: encoder.tau_ms,
+    threshold: encoder.threshold,
+    reset: encoder.reset,
+    refractoryMs: encoder.refractory_ms,
+    inputCoding: encoder.input_coding,
+    surrogate: encoder.surrogate,
+    surrogateSlope: encoder.surrogate_slope,
   };
 }
 
@@ -110,4 +131,6 @@ export interface Sweep {
   readonly filled: FilledConfig;
   /** Every plug-in the config names (in any combination), bundled and loaded. */
   readonly plugins: readonly LoadedPlugin[];
+  /** `file:line:col: warning: key: message` lines: things that are valid but probably not meant (see constant-targets.ts). */
+  readonly warnings: readonly string[];
 }

@@ -8,7 +8,7 @@ export function problemsFromIssues(schema: z.ZodType, issues: readonly Issue[]):
   return issues.flatMap((issue) => {
     const path = issue.path.map((segment) => (typeof segment === 'symbol' ? String(segment) : segment));
     if (issue.code === 'unrecognized_keys') {
-      const allowed = keysAt(schema, path);
+      const allowed = keysAt(schema, path, issue.input);
       return issue.keys.map((key) => ({
         path: [...path, key],
         atKey: true,
@@ -41,12 +41,22 @@ function describeIssue(issue: Issue, options: readonly string[]): string {
     case 'invalid_format':
       return `expected ${issue.message}, got ${got}${typeof issue.input === 'string' ? suggestion(issue.input, options) : ''}`;
     case 'invalid_union': {
-      const { text, options } = unionExpectation(issue);
-      return `expected ${text}, got ${got}${typeof issue.input === 'string' ? suggestion(issue.input, options) : ''}`;
+      const expected = unionExpectation(issue);
+      return discriminatorProblem(issue) ?? `expected ${expected.text}, got ${got}${typeof issue.input === 'string' ? suggestion(issue.input, expected.options) : ''}`;
     }
     default:
       return `${issue.message}, got ${got}`;
   }
+}
+
+/** An unknown value of a discriminated union's key (`encoder.kind`), reported at that key. */
+function discriminatorProblem(issue: z.core.$ZodIssueInvalidUnion & { readonly input?: unknown }): string | null {
+  const { discriminator, options } = issue as { discriminator?: string; options?: unknown[] };
+  if (discriminator == null || options == null) return null;
+  const values = options.filter((o) => o != null).map(String);
+  const value = (issue.input as Record<string, unknown> | undefined)?.[discriminator];
+  const near = typeof value === 'string' ? suggestion(value, values) : '';
+  return `expected one of ${values.join(' | ')}, got ${value === undefined ? 'nothing' : shown(value)}${near}`;
 }
 
 /** What a union accepts: the values of its enums, then the formats of its patterns ("or a plug-in file (...)"). */
@@ -66,6 +76,16 @@ function shown(value: unknown): string {
   return String(value);
 }
 
+/**
+ * Keys the schema allows at an object path (through defaults, optionals and arrays); at a
+ * discriminated union, those of the option the object's discriminator picks (else the first).
+ */
+function keysAt(schema: z.ZodType, path: readonly (string | number)[], input: unknown): string[] {
+  let node = nodeAt(schema, path);
+  if (node instanceof z.ZodDiscriminatedUnion) node = optionFor(node, input);
+  return node instanceof z.ZodObject ? Object.keys(node.shape) : [];
+}
+
 /** The schema node at a path (through defaults, optionals, arrays and records). */
 function nodeAt(schema: z.ZodType, path: readonly (string | number)[]): z.ZodType | undefined {
   let node: z.ZodType | undefined = schema;
@@ -79,17 +99,18 @@ function nodeAt(schema: z.ZodType, path: readonly (string | number)[]): z.ZodTyp
   return node == null ? undefined : unwrap(node);
 }
 
-/** Keys the schema allows at an object path. */
-function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
-  const node = nodeAt(schema, path);
-  return node instanceof z.ZodObject ? Object.keys(node.shape) : [];
-}
-
 /** The values of the enum at a path, or of an enum among a union's options there. */
 function enumOptionsAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
   const node = nodeAt(schema, path);
   const candidates = node instanceof z.ZodUnion ? (node.options as z.ZodType[]) : node == null ? [] : [node];
   return candidates.flatMap((option) => (option instanceof z.ZodEnum ? option.options.map(String) : []));
+}
+
+function optionFor(union: z.ZodDiscriminatedUnion, input: unknown): z.ZodType {
+  const key = union._zod.def.discriminator;
+  const value = input != null && typeof input === 'object' ? (input as Record<string, unknown>)[key] : undefined;
+  const options = union.options as z.ZodType[];
+  return options.find((o) => o instanceof z.ZodObject && (unwrap(o.shape[key] as z.ZodType) as z.ZodLiteral).values.has(value as never)) ?? options[0];
 }
 
 function unwrap(schema: z.ZodType): z.ZodType {
@@ -99,4 +120,23 @@ function unwrap(schema: z.ZodType): z.ZodType {
     if (inner == null) return node;
     node = inner;
   }
+}
+
+/**
+ * Every dotted path into a schema's objects, lists of objects written `*`
+ * (`learners.*.encoder.hidden`), inner objects included (`collect.split`).
+ */
+export function schemaPaths(schema: z.ZodType): string[] {
+  const walk = (node: z.ZodType, prefix: string): string[] => {
+    const inner = unwrap(node);
+    if (inner instanceof z.ZodObject) {
+      return Object.entries(inner.shape as Record<string, z.ZodType>)
+        .flatMap(([key, value]) => [`${prefix}${key}`, ...walk(value, `${prefix}${key}.`)]);
+    }
+    if (inner instanceof z.ZodArray && unwrap(inner.element as z.ZodType) instanceof z.ZodObject) return walk(inner.element as z.ZodType, `${prefix}*.`);
+    // A union (the encoder kinds) offers the paths of every option.
+    if (inner instanceof z.ZodUnion) return (inner.options as readonly z.ZodType[]).flatMap((option) => walk(option, prefix));
+    return [];
+  };
+  return [...new Set(walk(schema, ''))];
 }

@@ -5,6 +5,7 @@ import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
 import { channelWidth } from './matrix.js';
 import type { ObjectiveDefinition } from './objective-definition.js';
 import { OBJECTIVE_TARGET, type LearnerSpec, type ObjectiveName } from './spec.js';
+import { spikingProblems } from './spiking-checks.js';
 
 // The built-in objectives, each in the shape a plug-in file default-exports
 // (objective-definition.ts). Inputs and targets are standardised with the training split's
@@ -179,4 +180,8 @@ export function checkSpec(spec: LearnerSpec, objective: ObjectiveDefinition): vo
   if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);
   if (!(spec.train.temperature > 0)) fail(`temperature must be positive, got ${spec.train.temperature}`);
+  if (spec.encoder.kind === 'spiking') {
+    const [first] = spikingProblems(spec.encoder, spec.rule);
+    if (first != null) fail(`${first.key.join('.')}: ${first.message}`);
+  }
 }

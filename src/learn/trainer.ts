@@ -1,22 +1,22 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import { permutation, type Rng } from '../random.js';
-import { batchOf } from './batches.js';
 import { BatchLosses } from './batch-losses.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
 import { batchLoss, bindObjective, splitExamples, type BoundObjective } from './bound-objective.js';
 import { TrainingStatistics, type ExampleSet } from './examples.js';
+import { encoderKind, type EncoderKind } from './encoder-kinds.js';
 import { createExtractor } from './extractor.js';
-import { createTower, disposeTower, type Tower } from './network.js';
+import { disposeTower, type Tower } from './network.js';
 import { createOptimizer, type Optimizer } from './optimizers.js';
 import type { ObjectiveDefinition } from './objective-definition.js';
 import { checkSpec, OBJECTIVE_REGISTRY } from './objectives.js';
 import { RULE_REGISTRY } from './learning-rules.js';
 import type { RuleDefinition } from './rule-definition.js';
-import { allVariables, applyRuleUpdate, createRuleState, ruleGradients, towerOutputs, trueGradients, weightSnapshot, type RuleState } from './rules.js';
+import { allVariables, applyRuleUpdate, createRuleState, weightSnapshot, type RuleState } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
-import { batchOrderStream, feedbackStream, towerStreams } from './streams.js';
+import { batchOrderStream, feedbackStream } from './streams.js';
 
 /** Options of one training run. */
 export interface TrainOptions {
@@ -46,6 +46,8 @@ export interface TrainedLearner {
 /** Every tower with its heads, for callers that need the objective's outputs (the caller disposes). */
 export interface TrainedNetwork {
   readonly towers: Tower[];
+  /** How the towers run (rate or spiking units). */
+  readonly kind: EncoderKind;
   readonly objective: BoundObjective;
   readonly stats: TrainingStatistics;
   readonly log: EpochLog[];
@@ -55,6 +57,7 @@ export interface TrainedNetwork {
 interface EpochContext {
   readonly spec: LearnerSpec;
   readonly towers: Tower[];
+  readonly kind: EncoderKind;
   readonly rule: RuleDefinition;
   readonly state: RuleState;
   readonly objective: BoundObjective;
@@ -70,7 +73,7 @@ interface EpochContext {
  * fails the epoch with that value (the steps after it only move weights that are lost anyway).
  */
 function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
-  const { spec, towers, rule, state, objective, optimizer } = ctx;
+  const { spec, towers, kind, rule, state, objective, optimizer } = ctx;
   const vars = allVariables(towers);
   const order = permutation(train.n, ctx.shuffle);
   const angles = new AngleAverage();
@@ -83,10 +86,10 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
       const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
       const record = rule.name !== 'backprop' && (due || (last && !angles.recorded));
       losses.add(tf.tidy(() => {
-        const batch = batchOf(train, rows);
+        const batch = kind.batch(train, rows, 'train');
         const lossOf = (outputs: readonly tf.Tensor2D[]) => batchLoss(objective, outputs, batch.target);
-        const { loss, grads } = ruleGradients(rule, towers, state, batch, lossOf);
-        if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
+        const { loss, grads } = kind.gradients(rule, towers, state, batch, lossOf);
+        if (record) angles.add(weightAngles(grads, kind.reference(towers, batch, lossOf).grads));
         const before = rule.update == null ? [] : weightSnapshot(towers);
         optimizer.applyGradients(vars, grads);
         applyRuleUpdate(rule, towers, state, before);
@@ -107,7 +110,7 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
  * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
  * of them would be far harder than the shuffled training batches.
  */
-function evaluate(spec: LearnerSpec, towers: Tower[], objective: BoundObjective, split: ExampleSet, order: Int32Array): number {
+function evaluate(spec: LearnerSpec, kind: EncoderKind, towers: Tower[], objective: BoundObjective, split: ExampleSet, order: Int32Array): number {
   const losses = new BatchLosses();
   try {
     for (let start = 0; start < split.n; start += spec.train.batch) {
@@ -115,8 +118,8 @@ function evaluate(spec: LearnerSpec, towers: Tower[], objective: BoundObjective,
       if (end - start < objective.minBatch && losses.count > 0) continue;
       const rows = order.subarray(start, end);
       losses.add(tf.tidy(() => {
-        const batch = batchOf(split, rows);
-        return batchLoss(objective, towerOutputs(towers, batch), batch.target);
+        const batch = kind.batch(split, rows, 'evaluate');
+        return batchLoss(objective, kind.outputs(towers, batch), batch.target);
       }), end - start);
     }
     return losses.read().mean;
@@ -134,7 +137,7 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
 async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: ExampleSet, options: TrainOptions, log: EpochLog[]): Promise<number> {
-  const { spec, towers, objective } = ctx;
+  const { spec, towers, kind, objective } = ctx;
   const vars = allVariables(towers);
   const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
   let best: tf.Tensor[] = [];
@@ -145,9 +148,11 @@ async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: Examp
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
       const started = performance.now();
       const { loss, angles } = trainEpoch(ctx, train, epoch);
-      const validationLoss = evaluate(spec, towers, objective, validation, validationOrder);
+      const validationLoss = evaluate(spec, kind, towers, objective, validation, validationOrder);
       if (!Number.isFinite(validationLoss)) throw new LearnerDivergedError(spec.name, 'validation', epoch, validationLoss);
-      const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds: (performance.now() - started) / 1000, alignmentDeg: angles };
+      const seconds = (performance.now() - started) / 1000; // the firing measurement is not training time
+      const firing = kind.firing?.(towers[0], validation);
+      const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds, alignmentDeg: angles, ...(firing == null ? {} : { firing }) };
       log.push(entry);
       options.onEpoch?.(entry);
       if (validationLoss < bestLoss) {
@@ -189,16 +194,17 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     const n = examples?.[i].n ?? Infinity;
     if (n < objective.minBatch) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
   }
-  const towers = objective.towers.map((shape, i) => createTower(shape, spec.encoder.activation, towerStreams(options.seed, shape, spec.encoder.activation, i)));
+  const kind = encoderKind(spec, options.seed);
+  const towers = objective.towers.map((shape, i) => kind.createTower(shape, i));
   const log: EpochLog[] = [];
-  if (examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
+  if (examples == null) return { towers, kind, objective, stats, log, bestEpoch: 0 };
   const [train, validation] = examples;
   const optimizer = createOptimizer(spec.train);
   let state: RuleState = [];
   let bestEpoch = 0;
   try {
     state = createRuleState(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
-    const ctx: EpochContext = { spec, towers, rule, state, objective, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
+    const ctx: EpochContext = { spec, towers, kind, rule, state, objective, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);
@@ -207,15 +213,15 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     tf.dispose(state.flat());
     optimizer.dispose();
   }
-  return { towers, objective, stats, log, bestEpoch };
+  return { towers, kind, objective, stats, log, bestEpoch };
 }
 
 /** Trains a learner and keeps only its frozen encoder (input tower without head). */
 export async function trainLearner(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedLearner> {
-  const { towers, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
+  const { towers, kind, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
   const [first, ...others] = towers;
   others.forEach(disposeTower);
   if (first.head != null) tf.dispose([first.head.W, first.head.b]);
-  const encoder = createExtractor(spec.input, data.channelSize, { ...first, head: null }, stats.channels(spec.input));
+  const encoder = createExtractor(spec.input, data.channelSize, kind.representation({ ...first, head: null }), stats.channels(spec.input));
   return { encoder, log, bestEpoch };
 }

@@ -34,14 +34,15 @@ const yamlNumber = (p: number): string => (p === Infinity ? '.inf' : p === -Infi
  * whole numbers ≥ 0, severities beyond the table without explicit parameters, a parameter
  * list whose length differs from the severities', a parameter outside its kind's range or
  * other than the clean value at severity 0, and two entries with the same channel and kind
- * (they would share result rows and noise draws). Empty when the list is valid.
+ * (they would share result rows and noise draws). Empty when the list is valid. An
+ * undefined entry (one its caller found malformed) is skipped but keeps its index.
  */
-export function noiseProblems(entries: readonly NoiseEntry[], lookup: NoiseKindLookup = builtInNoiseKind): NoiseProblem[] {
-  const problems = entries.flatMap((entry, i) => entryProblems(entry, ['noise', i], lookup));
-  const names = entries.map((entry) => lookup(entry.kind)?.name ?? entry.kind);
+export function noiseProblems(entries: readonly (NoiseEntry | undefined)[], lookup: NoiseKindLookup = builtInNoiseKind): NoiseProblem[] {
+  const problems = entries.flatMap((entry, i) => (entry == null ? [] : entryProblems(entry, ['noise', i], lookup)));
+  const names = entries.map((entry) => (entry == null ? undefined : lookup(entry.kind)?.name ?? entry.kind));
   entries.forEach((entry, i) => {
-    const first = entries.findIndex((other, j) => other.channel === entry.channel && names[j] === names[i]);
-    if (first < i) {
+    const first = entries.findIndex((other, j) => other?.channel === entry?.channel && names[j] === names[i]);
+    if (entry != null && first < i) {
       problems.push({
         path: ['noise', i],
         message: `${entry.channel} ${names[i]} is already noise.${first}; entries with the same channel and kind would share result rows and noise draws`,

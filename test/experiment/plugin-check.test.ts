@@ -35,13 +35,13 @@ ${learner('a', 'rule: ./missing.ts')}${learner('b', 'rule: ./no-default.ts')}${l
     const at = (line: number, col: number, key: string, message: string) => `${join(dir, 'config.yaml')}:${line}:${col}: ${key}: ${message}`;
     expect(checkConfigFile(join(dir, 'config.yaml'))).toEqual([
       at(4, 32, 'collect.policy', "./named-wander.js: its name 'wander' is a built-in policy's; give the plug-in another name"),
-      at(6, 62, 'learners.0.rule', `./missing.ts: plug-in file not found: ${join(dir, 'missing.ts')}`),
-      at(7, 62, 'learners.1.rule', "./no-default.ts: expected a default export: export default { type: 'rule', name: '...', ... } (crosswise new rule NAME writes a starter)"),
-      at(8, 62, 'learners.2.rule', "./a-noise.js: expected a learning rule (type: 'rule'), but it is a noise kind (type: 'noise')"),
-      at(9, 62, 'learners.3.rule', "./no-deltas.js: its default export's deltas is missing"),
-      at(10, 62, 'learners.4.rule', `./tensorflow.ts: ${join(dir, 'tensorflow.ts')} imports @tensorflow/tfjs-core: a plug-in uses the tf it is given (context.tf), never its own TensorFlow.js`),
-      at(11, 62, 'learners.5.rule', `./syntax.ts: cannot bundle the plug-in: ${join(dir, 'syntax.ts')}:1:24: Unexpected ";"`),
-      at(12, 62, 'learners.6.rule', './throws.mjs: loading the plug-in threw: not ready'),
+      at(6, 62, 'learners.0 (a).rule', `./missing.ts: plug-in file not found: ${join(dir, 'missing.ts')}`),
+      at(7, 62, 'learners.1 (b).rule', "./no-default.ts: expected a default export: export default { type: 'rule', name: '...', ... } (crosswise new rule NAME writes a starter)"),
+      at(8, 62, 'learners.2 (c).rule', "./a-noise.js: expected a learning rule (type: 'rule'), but it is a noise kind (type: 'noise')"),
+      at(9, 62, 'learners.3 (d).rule', "./no-deltas.js: its default export's deltas is missing"),
+      at(10, 62, 'learners.4 (e).rule', `./tensorflow.ts: ${join(dir, 'tensorflow.ts')} imports @tensorflow/tfjs-core: a plug-in uses the tf it is given (context.tf), never its own TensorFlow.js`),
+      at(11, 62, 'learners.5 (f).rule', `./syntax.ts: cannot bundle the plug-in: ${join(dir, 'syntax.ts')}:1:24: Unexpected ";"`),
+      at(12, 62, 'learners.6 (g).rule', './throws.mjs: loading the plug-in threw: not ready'),
       at(14, 29, 'noise.0.kind', './bad-table.cjs: its own severity parameter -5 fails its valid()'),
     ]);
   });
@@ -51,7 +51,7 @@ ${learner('a', 'rule: ./missing.ts')}${learner('b', 'rule: ./no-default.ts')}${l
     const rule = "export default { type: 'rule', name: 'same', description: 'x', deltas: ({ weights, chain }) => chain(weights.slice(1)) };\n";
     const dir = pluginFolder(config, { 'one.js': rule, 'two.js': rule });
     expect(checkConfigFile(join(dir, 'config.yaml'))).toEqual([
-      `${join(dir, 'config.yaml')}:5:62: learners.1.rule: ./two.js: its name 'same' is also the name of ${join(dir, 'one.js')}; plug-ins of one kind need distinct names`,
+      `${join(dir, 'config.yaml')}:5:62: learners.1 (b).rule: ./two.js: its name 'same' is also the name of ${join(dir, 'one.js')}; plug-ins of one kind need distinct names`,
     ]);
   });
 

@@ -90,7 +90,7 @@ function parseSource(file: string): ConfigSource {
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
-    throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
+    throw new ConfigError([`${file}:1:1: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
   const wrong = wrongKind(text, file, 'config');
   if (wrong != null) throw new ConfigError([wrong]);

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument } from 'yaml';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, pathText, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { configParts } from './config-parts.js';
 import { constantTargetWarnings } from './constant-targets.js';
 import { DEFAULTS } from './defaults.js';
@@ -48,7 +48,7 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
     const problems = configProblems(config);
-    if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
+    if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${pathText(problems[0].path, config)}: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
       settings: resolveSettings(config, resolve(configDir, config.world), plugins),
@@ -94,7 +94,7 @@ function parseSource(file: string): ConfigSource {
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
-    throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
+    throw new ConfigError([`${file}:1:1: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
   const wrong = wrongKind(text, file, 'config');
   if (wrong != null) throw new ConfigError([wrong]);

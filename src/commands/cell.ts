@@ -2,12 +2,12 @@ import { failureReason, PIPELINE_MODULE, type CellWorkModule } from '../experime
 import type { EpochLog } from '../learn/spec.js';
 import { cellLabel, planCells } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
-import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
+import { cellEndEvent, prepareOutput, storedCells } from '../experiment/runner.js';
 import { storeCell, type CellResult } from '../experiment/store.js';
-import { isFinished } from '../results/cell-folder.js';
 import { cellUsage } from './cell-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 import { UsageError } from './usage.js';
 
 /** `crosswise cell`: runs exactly one cell, one task of a cluster job array (see cell-usage.ts). */
@@ -21,7 +21,7 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     const cells = prepareOutput(sweep);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
-    if (isFinished(sweep.out, cell.id)) {
+    if (storedCells(sweep.out, [cell], (line) => printProblem('cell', `warning: ${line}`)).has(cell.id)) {
       console.log(`cell ${index} (${cell.id}) is already finished in ${sweep.out}`);
       return EXIT.success;
     }

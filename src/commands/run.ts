@@ -6,6 +6,7 @@ import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
@@ -63,6 +64,7 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         signal: controller.signal,
         abandon: abandon.signal,
         report: buildSummary,
+        warn: (line) => printProblem('run', `warning: ${line}`),
       });
       await dashboard?.waitUntilExit();
       if (outcome.interrupted) {

@@ -1,12 +1,14 @@
 import { mkdirSync } from 'node:fs';
 import { writeFileAtomic } from '../results/atomic-file.js';
-import { isFinished, removePartialCells } from '../results/cell-folder.js';
-import { readCellRecord } from '../results/cell-record.js';
+import { moveCellAside, removeLeftovers } from '../results/cell-folder.js';
+import { cellIdentity } from '../results/cell-identity.js';
+import type { CellRecord } from '../results/cell-record.js';
 import { outputPath } from '../results/layout.js';
 import { formatPlanCsv, readPlan } from '../results/plan-table.js';
-import { readStoredResults, writeResultsCsv } from '../results/stored-results.js';
+import { cellFaultLine, inspectStoredCell } from '../results/stored-cell.js';
+import { readStoredRun, writeResultsCsv } from '../results/stored-results.js';
 import type { RunEvent, RunListener } from './events.js';
-import { cellLabel, planCells, planTable, type PlannedCell } from './plan.js';
+import { cellLabel, cellSettings, planCells, planTable, type PlannedCell } from './plan.js';
 import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
@@ -24,6 +26,8 @@ export interface RunOptions {
   readonly abandon?: AbortSignal;
   /** Builds the report from the stored results and returns a line saying where its summary is. */
   readonly report?: (out: string) => Promise<string>;
+  /** Told one line about each thing the run works around (a damaged cell moved aside and recomputed). */
+  readonly warn?: (line: string) => void;
 }
 
 /** How a sweep ended. */
@@ -41,8 +45,10 @@ export interface SweepOutcome {
 export async function runSweep(sweep: Sweep, options: RunOptions): Promise<SweepOutcome> {
   const started = performance.now();
   const emit = (event: RunEvent) => options.listeners.forEach((listener) => listener(event));
+  const warn = options.warn ?? (() => undefined);
   const cells = prepareOutput(sweep);
-  const pending = cells.filter((cell) => !isFinished(sweep.out, cell.id));
+  const stored = storedCells(sweep.out, cells, warn);
+  const pending = cells.filter((cell) => !stored.has(cell.id));
   emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
   const phases = { collect: 0, train: 0, probe: 0 };
   await runOnPool(pending, options, {
@@ -50,14 +56,15 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
     onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
     onFinish: (cell, worker, result) => {
       if (options.abandon?.aborted === true) return;
-      storeCell(sweep.out, cell, result, sweep.varyKeys);
+      stored.set(cell.id, storeCell(sweep.out, cell, result, sweep.varyKeys));
       if (result.status === 'done') for (const phase of ['collect', 'train', 'probe'] as const) phases[phase] += result.outcome.seconds[phase];
       emit(cellEndEvent(cell, worker, result));
     },
   });
   const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
-  const outcome = countCells(sweep.out, cells, interrupted);
-  const results = writeResultsCsv(sweep.out, readStoredResults(sweep.out, readPlan(sweep.out)));
+  const outcome = countCells(stored, interrupted);
+  const { results: rows } = readStoredRun(sweep.out, readPlan(sweep.out), (id, fault) => warn(cellFaultLine(id, fault, 'left out of results.csv (run again to recompute it)')));
+  const results = writeResultsCsv(sweep.out, rows);
   const reportStarted = performance.now();
   const where = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${results}`;
   const reportSeconds = (performance.now() - reportStarted) / 1000;
@@ -79,11 +86,26 @@ export function prepareOutput(sweep: Sweep): PlannedCell[] {
   mkdirSync(outputPath(sweep.out, 'cells'), { recursive: true });
   writeFileAtomic(outputPath(sweep.out, 'config'), resolvedConfigYaml(sweep));
   writeFileAtomic(outputPath(sweep.out, 'plan'), formatPlanCsv(planTable(cells, sweep.varyKeys)));
-  removePartialCells(sweep.out);
+  removeLeftovers(sweep.out);
   return cells;
 }
 
-function countCells(out: string, cells: readonly PlannedCell[], interrupted: boolean): SweepOutcome {
-  const statuses = cells.filter((cell) => isFinished(out, cell.id)).map((cell) => readCellRecord(out, cell.id).status);
+/**
+ * The records of the cells already stored and trusted. A damaged cell (see
+ * inspectStoredCell) is moved aside, never deleted, with one warning line, and is then
+ * computed again like a cell never run.
+ */
+export function storedCells(out: string, cells: readonly PlannedCell[], warn: (line: string) => void): Map<string, CellRecord> {
+  const records = new Map<string, CellRecord>();
+  for (const cell of cells) {
+    const stored = inspectStoredCell(out, cell.id, cellIdentity(cellSettings(cell)));
+    if (stored.state === 'trusted') records.set(cell.id, stored.record);
+    if (stored.state === 'damaged') warn(cellFaultLine(cell.id, stored.fault, `moved to cells/${moveCellAside(out, cell.id)}, recomputing`));
+  }
+  return records;
+}
+
+function countCells(stored: ReadonlyMap<string, CellRecord>, interrupted: boolean): SweepOutcome {
+  const statuses = [...stored.values()].map((record) => record.status);
   return { done: statuses.filter((s) => s === 'done').length, failed: statuses.filter((s) => s === 'failed').length, interrupted };
 }

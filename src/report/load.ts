@@ -1,13 +1,12 @@
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import type { EpochLog } from '../learn/spec.js';
-import { isFinished } from '../results/cell-folder.js';
-import { readCellRecord, type CellRecord } from '../results/cell-record.js';
+import type { CellRecord } from '../results/cell-record.js';
 import { cellArrayPath, cellPath, TEST_FEATURES } from '../results/layout.js';
-import { outputOrder } from '../results/output-order.js';
 import { readPlan } from '../results/plan-table.js';
 import { isScore, type ResultsTable, type ScoreRow } from '../results/results-table.js';
 import { readRunSettings } from '../results/run-settings.js';
-import { readStoredResults } from '../results/stored-results.js';
+import { cellFaultLine } from '../results/stored-cell.js';
+import { readStoredRun } from '../results/stored-results.js';
 import { parseTrainCsv } from '../results/train-table.js';
 
 /** A stored cell as the report uses it: its record, its training log and whether it kept test features. */
@@ -35,18 +34,18 @@ export interface StoredRun {
 
 /**
  * Reads an output folder: its plan, the stored cells and config.resolved.yaml. Throws a
- * one-line error when there is nothing to report; damaged cell files become warnings.
+ * one-line error when there is nothing to report. A cell that cannot be trusted (see
+ * inspectStoredCell) is left out with a warning; an unreadable train.csv is a warning.
  */
 export function loadRun(outDir: string): StoredRun {
   if (!existsSync(outDir) || !statSync(outDir).isDirectory()) throw new Error(`${outDir}: no such directory`);
   const plan = readPlan(outDir);
-  const results = readStoredResults(outDir, plan);
-  if (results.rows.length === 0) throw new Error(`${outDir}: no cell of the plan has results yet (nothing to report)`);
   const warnings: string[] = [];
+  const stored = readStoredRun(outDir, plan, (id, fault) => warnings.push(cellFaultLine(id, fault, 'left out (crosswise run recomputes it)')));
+  const { results } = stored;
+  if (results.rows.length === 0) throw new Error(`${outDir}: no cell of the plan has results yet (nothing to report)`);
   const settings = readRunSettings(outDir, warnings);
-  const cells = outputOrder(plan.entries, plan.varyKeys)
-    .filter((entry) => isFinished(outDir, entry.cell))
-    .flatMap((entry) => storedCell(outDir, entry.cell, warnings));
+  const cells = stored.cells.map(({ record }) => storedCell(outDir, record, warnings));
   const rows = results.rows.filter(isScore);
   let baseline = settings.baseline;
   if (baseline == null) warnings.push('config.resolved.yaml: probe.baseline: not set, so no paired comparisons or CE');
@@ -57,14 +56,8 @@ export function loadRun(outDir: string): StoredRun {
   return { outDir, name: settings.name, baseline, varyKeys: plan.varyKeys, results, rows, cells, warnings };
 }
 
-function storedCell(outDir: string, id: string, warnings: string[]): StoredCell[] {
-  let record: CellRecord;
-  try {
-    record = readCellRecord(outDir, id);
-  } catch (error) {
-    warnings.push((error as Error).message);
-    return [];
-  }
+function storedCell(outDir: string, record: CellRecord, warnings: string[]): StoredCell {
+  const { id } = record;
   const trainPath = cellPath(outDir, id, 'train');
   let log: EpochLog[] = [];
   try {
@@ -72,5 +65,5 @@ function storedCell(outDir: string, id: string, warnings: string[]): StoredCell[
   } catch (error) {
     warnings.push(`${(error as Error).message} (training curve left out)`);
   }
-  return [{ record, log, hasFeatures: existsSync(cellArrayPath(outDir, id, TEST_FEATURES)) }];
+  return { record, log, hasFeatures: existsSync(cellArrayPath(outDir, id, TEST_FEATURES)) };
 }

@@ -1,4 +1,4 @@
-import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdtemp, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -145,17 +145,21 @@ describe('buildReport errors', () => {
 });
 
 describe('buildReport with damaged cell files', () => {
-  it('warns about a bad train.csv and a bad cell.json, naming the file, and still reports', async () => {
+  it('leaves out a cell whose train.csv or cell.json was damaged after it was stored, with one warning naming cell and file', async () => {
     const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
     try {
       writeFixture(damaged);
       const [one, two] = fixtureCells().filter((c) => c.learner === 'untrained').map(testCellId);
-      await writeFile(join(damaged, 'cells', one, 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
+      const stored = (await stat(join(damaged, 'cells', one, 'train.csv'))).size;
+      const shorter = 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n';
+      await writeFile(join(damaged, 'cells', one, 'train.csv'), shorter);
       await writeFile(join(damaged, 'cells', two, 'cell.json'), '{ not json');
       const report = await buildReport(damaged);
-      expect(report.warnings).toContain(`${join(damaged, 'cells', one, 'train.csv')}:2: epoch: expected 1, got 'first' (training curve left out)`);
-      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', two, 'cell.json')}: not valid JSON`))).toBe(true);
+      expect(report.warnings).toContain(`cell ${one}: train.csv truncated (${shorter.length} of ${stored} bytes) — left out (crosswise run recomputes it)`);
+      expect(report.warnings.some((w) => w.startsWith(`cell ${two}: cell.json not valid JSON`) && w.endsWith('— left out (crosswise run recomputes it)'))).toBe(true);
       expect(await readFile(report.summaryPath, 'utf8')).toContain('## Warnings');
+      const results = await readFile(report.resultsPath, 'utf8');
+      expect(results.includes(one) || results.includes(two)).toBe(false);
     } finally {
       await rm(damaged, { recursive: true, force: true });
     }

@@ -28,7 +28,7 @@ describe('canonical JSON', () => {
 describe('cell id', () => {
   it('is the first 10 hex digits of the SHA-256 of the canonical JSON of the format version and the identity', () => {
     const identity = cellIdentity(settings);
-    const text = `{"format_version":1,"identity":${canonicalJson(identity)}}`;
+    const text = `{"format_version":2,"identity":${canonicalJson(identity)}}`;
     expect(cellId(identity)).toBe(createHash('sha256').update(text).digest('hex').slice(0, 10));
     expect(cellId(identity)).toMatch(/^[0-9a-f]{10}$/);
   });

@@ -4,6 +4,7 @@ import { cellLabel, planCells } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
 import { cellEndEvent, prepareOutput, storedCells } from '../experiment/runner.js';
 import { storeCell, type CellResult } from '../experiment/store.js';
+import { writeFailure } from '../results/write-failure.js';
 import { cellUsage } from './cell-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
@@ -27,9 +28,16 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     }
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
-    const record = storeCell(sweep.out, cell, result, sweep.varyKeys);
+    try {
+      storeCell(sweep.out, cell, result, sweep.varyKeys);
+    } catch (error) {
+      const failure = writeFailure(error);
+      if (failure == null) throw error;
+      printProblem('cell', `cell ${index} (${cell.id}): ${failure}`);
+      return EXIT.writeFailed;
+    }
     print(cellEndEvent(cell, 1, result));
-    return record.status === 'done' ? EXIT.success : EXIT.cellsFailed;
+    return result.status === 'done' ? EXIT.success : EXIT.cellsFailed;
   });
 }
 

@@ -1,6 +1,7 @@
 import { ConfigError } from '../experiment/config-errors.js';
 import { loadSweep } from '../experiment/config.js';
 import type { Sweep } from '../experiment/resolved-config.js';
+import { writeFailure } from '../results/write-failure.js';
 import { WorldFileError } from '../world/problems.js';
 import { EXIT } from './exit-codes.js';
 import { commandHelp, wantsHelp } from './help.js';
@@ -14,18 +15,6 @@ function inputProblems(error: unknown): readonly string[] | null {
   if (error instanceof WorldFileError) return error.problems;
   if (error instanceof UsageError) return [error.message];
   return null;
-}
-
-/** File-system calls that only ever write; `open` counts as a write only for errors no read gives. */
-const WRITE_CALLS = new Set(['mkdir', 'rename', 'write', 'copyfile', 'chmod', 'unlink', 'rmdir', 'symlink', 'link']);
-const WRITE_ONLY_CODES = new Set(['EROFS', 'ENOSPC', 'EDQUOT', 'EISDIR', 'EEXIST']);
-
-/** `cannot write <path>: <code>` when the error is a failed write to the file system, else null. */
-export function writeFailure(error: unknown): string | null {
-  const { syscall, code, path } = error as Partial<NodeJS.ErrnoException>;
-  if (!(error instanceof Error) || syscall == null || code == null) return null;
-  const writing = WRITE_CALLS.has(syscall) || (syscall === 'open' && WRITE_ONLY_CODES.has(code));
-  return writing ? `cannot write ${path ?? 'a file'}: ${code} (${syscall})` : null;
 }
 
 /**

@@ -1,4 +1,5 @@
-import { runAction, writeFailure } from './command-line.js';
+import { writeFailure } from '../results/write-failure.js';
+import { runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
 import { printProblem } from './messages.js';
 import { reportUsage } from './report-usage.js';

@@ -67,8 +67,13 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         warn: (line) => printProblem('run', `warning: ${line}`),
       });
       await dashboard?.waitUntilExit();
+      if (outcome.writeFailures.length > 0) {
+        for (const line of outcome.writeFailures) printProblem('run', line);
+        printProblem('run', `no new cells were started after a write failed; free space or fix the folder's permissions, then resume with: ${resumeCommand(config, values.out)}`);
+        return EXIT.writeFailed;
+      }
       if (outcome.interrupted) {
-        console.log(`stopped; finished cells are kept. resume with: crosswise run ${config}${values.out == null ? '' : ` --out ${values.out}`}`);
+        console.log(`stopped; finished cells are kept. resume with: ${resumeCommand(config, values.out)}`);
         return EXIT.interrupted;
       }
       return outcome.failed > 0 ? EXIT.cellsFailed : EXIT.success;
@@ -79,11 +84,15 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
   });
 }
 
+/** The command that picks the sweep up where it stopped. */
+function resumeCommand(config: string, out: string | undefined): string {
+  return `crosswise run ${config}${out == null ? '' : ` --out ${out}`}`;
+}
+
 /** Builds summary.md, comparisons.csv and the plots; returns where the summary is. */
 async function buildSummary(out: string): Promise<string> {
   // Imported on demand: the plotting library takes a moment to load.
   const { buildReport } = await import('../report/build-report.js');
-  const files = await buildReport(out).catch((error: unknown) => error as Error);
-  if (files instanceof Error) return `the report could not be built: ${files.message}`;
+  const files = await buildReport(out);
   return `summary: ${files.summaryPath}${files.warnings.length > 0 ? ` (${files.warnings.length} warnings: ${files.warnings[0]})` : ''}`;
 }

@@ -4,9 +4,10 @@ import { moveCellAside, removeLeftovers } from '../results/cell-folder.js';
 import { cellIdentity } from '../results/cell-identity.js';
 import type { CellRecord } from '../results/cell-record.js';
 import { outputPath } from '../results/layout.js';
-import { formatPlanCsv, readPlan } from '../results/plan-table.js';
+import { formatPlanCsv } from '../results/plan-table.js';
 import { cellFaultLine, inspectStoredCell } from '../results/stored-cell.js';
 import { readStoredRun, writeResultsCsv } from '../results/stored-results.js';
+import { writeFailure } from '../results/write-failure.js';
 import type { RunEvent, RunListener } from './events.js';
 import { cellLabel, cellSettings, planCells, planTable, type PlannedCell } from './plan.js';
 import { runOnPool } from './pool.js';
@@ -24,7 +25,7 @@ export interface RunOptions {
   readonly signal?: AbortSignal;
   /** Aborting stops the sweep at once: running cells are abandoned unwritten; finished ones stay. */
   readonly abandon?: AbortSignal;
-  /** Builds the report from the stored results and returns a line saying where its summary is. */
+  /** Builds the report from the stored results and returns a line saying where its summary is; rejects when it cannot. */
   readonly report?: (out: string) => Promise<string>;
   /** Told one line about each thing the run works around (a damaged cell moved aside and recomputed). */
   readonly warn?: (line: string) => void;
@@ -35,12 +36,16 @@ export interface SweepOutcome {
   readonly done: number;
   readonly failed: number;
   readonly interrupted: boolean;
+  /** One line per write that failed (a cell, results.csv, the report): each names what and the OS error. */
+  readonly writeFailures: readonly string[];
 }
 
 /**
  * Runs every unfinished cell of a sweep and stores each as it finishes, then rebuilds
- * results.csv from the stored cells (in config order) and the report. Finished cells (done or failed) are skipped,
- * so rerunning after an interruption completes the sweep.
+ * results.csv from the stored cells (in config order) and the report. Finished cells
+ * (done or failed) are skipped, so rerunning after an interruption completes the sweep.
+ * A cell that cannot be stored (a full disk, a folder made unwritable) fails with one
+ * line naming it and the file; running cells finish, but no new cell starts.
  */
 export async function runSweep(sweep: Sweep, options: RunOptions): Promise<SweepOutcome> {
   const started = performance.now();
@@ -51,26 +56,51 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   const pending = cells.filter((cell) => !stored.has(cell.id));
   emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
   const phases = { collect: 0, train: 0, probe: 0 };
-  await runOnPool(pending, options, {
+  const writeFailures: string[] = [];
+  const stopStarting = new AbortController();
+  const signal = options.signal == null ? stopStarting.signal : AbortSignal.any([options.signal, stopStarting.signal]);
+  await runOnPool(pending, { ...options, signal }, {
     onStart: (cell, worker) => emit({ type: 'cell-start', cell: cellLabel(cell), worker }),
     onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
     onFinish: (cell, worker, result) => {
       if (options.abandon?.aborted === true) return;
-      stored.set(cell.id, storeCell(sweep.out, cell, result, sweep.varyKeys));
+      const failure = attemptWrite(() => stored.set(cell.id, storeCell(sweep.out, cell, result, sweep.varyKeys)));
+      if (failure != null) {
+        writeFailures.push(`cell ${cell.index} (${cell.id}): ${failure}`);
+        stopStarting.abort();
+        emit({ type: 'cell-failed', cell: cellLabel(cell), worker, reason: `not stored: ${failure}` });
+        return;
+      }
       if (result.status === 'done') for (const phase of ['collect', 'train', 'probe'] as const) phases[phase] += result.outcome.seconds[phase];
       emit(cellEndEvent(cell, worker, result));
     },
   });
   const interrupted = options.signal?.aborted === true || options.abandon?.aborted === true;
-  const outcome = countCells(stored, interrupted);
-  const { results: rows } = readStoredRun(sweep.out, readPlan(sweep.out), (id, fault) => warn(cellFaultLine(id, fault, 'left out of results.csv (run again to recompute it)')));
-  const results = writeResultsCsv(sweep.out, rows);
+  const { done, failed } = countCells(stored);
+  const { results: rows } = readStoredRun(sweep.out, planTable(cells, sweep.varyKeys), (id, fault) => warn(cellFaultLine(id, fault, 'left out of results.csv (run again to recompute it)')));
+  let where = `results: ${outputPath(sweep.out, 'results')}`;
+  const resultsFailure = attemptWrite(() => writeResultsCsv(sweep.out, rows));
+  if (resultsFailure != null) writeFailures.push(`results.csv: ${resultsFailure}`);
   const reportStarted = performance.now();
-  const where = !interrupted && outcome.done > 0 && options.report != null ? await options.report(sweep.out) : `results: ${results}`;
+  if (!interrupted && resultsFailure == null && done > 0 && options.report != null) {
+    const report = await options.report(sweep.out).catch((error: unknown) => error as Error);
+    if (report instanceof Error) writeFailures.push(`the report could not be written: ${writeFailure(report) ?? report.message}`);
+    else where = report;
+  }
   const reportSeconds = (performance.now() - reportStarted) / 1000;
   const summary = `${where}; time in cells run now: collect ${phases.collect.toFixed(1)} s, train ${phases.train.toFixed(1)} s, probe ${phases.probe.toFixed(1)} s (summed over workers); report ${reportSeconds.toFixed(1)} s`;
-  emit({ type: 'sweep-done', done: outcome.done, failed: outcome.failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
-  return outcome;
+  emit({ type: 'sweep-done', done, failed, seconds: (performance.now() - started) / 1000, summary, interrupted });
+  return { done, failed, interrupted, writeFailures };
+}
+
+/** Runs a write; returns null when it worked, else one line saying what could not be written and why. */
+function attemptWrite(write: () => unknown): string | null {
+  try {
+    write();
+    return null;
+  } catch (error) {
+    return writeFailure(error) ?? (error as Error).message;
+  }
 }
 
 /** The `cell-done` or `cell-failed` event that reports a cell's result. */
@@ -105,7 +135,7 @@ export function storedCells(out: string, cells: readonly PlannedCell[], warn: (l
   return records;
 }
 
-function countCells(stored: ReadonlyMap<string, CellRecord>, interrupted: boolean): SweepOutcome {
+function countCells(stored: ReadonlyMap<string, CellRecord>): { done: number; failed: number } {
   const statuses = [...stored.values()].map((record) => record.status);
-  return { done: statuses.filter((s) => s === 'done').length, failed: statuses.filter((s) => s === 'failed').length, interrupted };
+  return { done: statuses.filter((s) => s === 'done').length, failed: statuses.filter((s) => s === 'failed').length };
 }

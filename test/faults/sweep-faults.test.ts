@@ -1,0 +1,181 @@
+// Faults injected into real tiny sweeps (the test double stands in for the cell work, so
+// each cell takes milliseconds). After each fault: the message names the cell and the
+// fault, no result is lost or invented, and a rerun gives results.csv byte-identical to
+// an undisturbed run of the same config.
+import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, truncateSync, unlinkSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
+import { reportCommand } from '../../src/commands/report.js';
+import { createRng, randomInt } from '../../src/random.js';
+import { parsePlanCsv } from '../../src/results/plan-table.js';
+import { configFolder, spawnWithFake, type Finished } from '../experiment/helpers.js';
+
+const CONFIG = `name: faults
+world: world.yaml
+seeds: [1, 2]
+learners:
+  - { name: sound-from-sight, objective: predict, input: [sight], target: [sound], train: { epochs: 2 } }
+  - { name: sight-autoencoder, objective: reconstruct, input: [sight], train: { epochs: 2 } }
+noise:
+  - { channel: sight, kind: gaussian, severities: [0, 2] }
+out: out
+`;
+
+/** Runs the sweep of `dir` with two jobs; `env` may install a fault (CROSSWISE_FAULT) or slow the cells down. */
+function run(dir: string, args: readonly string[] = [], env: Record<string, string> = {}, onLine?: Parameters<typeof spawnWithFake>[1]): Promise<Finished> {
+  return spawnWithFake(['run', join(dir, 'config.yaml'), '--jobs', '2', ...args], onLine, env);
+}
+
+const out = (dir: string) => join(dir, 'out');
+const results = (dir: string) => readFileSync(join(out(dir), 'results.csv'), 'utf8');
+const planIds = (dir: string) => parsePlanCsv(readFileSync(join(out(dir), 'plan.csv'), 'utf8'), 'plan.csv').entries.map((e) => e.cell);
+const cellFile = (dir: string, id: string, file: string) => join(out(dir), 'cells', id, file);
+const folders = (dir: string) => readdirSync(join(out(dir), 'cells')).sort();
+const lines = (text: string) => text.split('\n').filter((line) => line !== '');
+
+describe('faults in a real tiny sweep', () => {
+  let reference: string;
+  let undisturbed: string;
+  beforeAll(async () => {
+    reference = configFolder(CONFIG);
+    const first = await run(reference);
+    expect(first.code).toBe(0);
+    undisturbed = results(reference);
+    // 4 cells × 5 probe targets × 2 severities, plus the header.
+    expect(lines(undisturbed)).toHaveLength(4 * 5 * 2 + 1);
+  });
+
+  /** A copy of the finished reference sweep, to damage. */
+  const finishedCopy = (): string => {
+    const dir = mkdtempSync(join(tmpdir(), 'crosswise-faults-'));
+    cpSync(reference, dir, { recursive: true });
+    return dir;
+  };
+
+  it('recomputes cells whose cell.json was truncated, emptied or deleted, or whose scores.csv was truncated, moving each aside', async () => {
+    const dir = finishedCopy();
+    const [a, b, c, d] = planIds(dir);
+    truncateSync(cellFile(dir, a, 'cell.json'), 100);
+    truncateSync(cellFile(dir, b, 'cell.json'), 0);
+    unlinkSync(cellFile(dir, c, 'cell.json'));
+    const scoresBytes = readFileSync(cellFile(dir, d, 'scores.csv')).byteLength;
+    truncateSync(cellFile(dir, d, 'scores.csv'), 50);
+    const rerun = await run(dir);
+    expect(rerun.code).toBe(0);
+    const warnings = lines(rerun.stderr);
+    expect(warnings).toHaveLength(4);
+    expect(warnings).toContain(`crosswise run: warning: cell ${b}: cell.json empty — moved to cells/.damaged-${b}-1, recomputing`);
+    expect(warnings).toContain(`crosswise run: warning: cell ${c}: cell.json missing — moved to cells/.damaged-${c}-1, recomputing`);
+    expect(warnings).toContain(`crosswise run: warning: cell ${d}: scores.csv truncated (50 of ${scoresBytes} bytes) — moved to cells/.damaged-${d}-1, recomputing`);
+    expect(warnings.some((line) => line.startsWith(`crosswise run: warning: cell ${a}: cell.json not valid JSON (`) && line.endsWith(`moved to cells/.damaged-${a}-1, recomputing`))).toBe(true);
+    expect(rerun.stdout).toContain('4 cells, 0 already finished');
+    expect(folders(dir)).toEqual([...[a, b, c, d].map((id) => `.damaged-${id}-1`), a, b, c, d].sort());
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('recomputes a cell whose scores.csv was deleted, and report leaves it out with a warning instead of reporting fewer rows silently', async () => {
+    const dir = finishedCopy();
+    const [a] = planIds(dir);
+    unlinkSync(cellFile(dir, a, 'scores.csv'));
+    const errors = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    const log = vi.spyOn(console, 'log').mockImplementation(() => undefined);
+    try {
+      expect(await reportCommand([out(dir)])).toBe(0);
+      expect(errors.mock.calls.map((call) => String(call[0]))).toContain(`crosswise report: warning: cell ${a}: scores.csv missing — left out (crosswise run recomputes it)`);
+    } finally {
+      errors.mockRestore();
+      log.mockRestore();
+    }
+    expect(lines(results(dir))).toHaveLength(3 * 5 * 2 + 1);
+    const rerun = await run(dir);
+    expect(rerun.code).toBe(0);
+    expect(lines(rerun.stderr)).toEqual([`crosswise run: warning: cell ${a}: scores.csv missing — moved to cells/.damaged-${a}-1, recomputing`]);
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('recomputes a cell whose folder cannot be read (EACCES injected on reading it)', async () => {
+    const dir = finishedCopy();
+    const [, b] = planIds(dir);
+    const rerun = await run(dir, [], { CROSSWISE_FAULT: `readdirSync:EACCES:cells/${b}:1` });
+    expect(rerun.code).toBe(0);
+    expect(lines(rerun.stderr)).toEqual([`crosswise run: warning: cell ${b}: folder unreadable (EACCES) — moved to cells/.damaged-${b}-1, recomputing`]);
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('on a full disk (ENOSPC injected on every scores.csv) fails the cells that hit it, one line each, starts no new ones and exits 5', async () => {
+    const dir = configFolder(CONFIG);
+    const full = await run(dir, [], { CROSSWISE_FAULT: 'writeFileSync:ENOSPC:scores.csv' });
+    expect(full.code).toBe(5);
+    const failures = lines(full.stderr).filter((line) => !line.includes('no new cells were started'));
+    // Both cells that were running when the disk filled finish and fail to be stored; the other two never start.
+    expect(failures).toHaveLength(2);
+    for (const line of failures) {
+      expect(line).toMatch(/^crosswise run: cell [0-3] \([0-9a-f]{10}\): cannot write \S+\/cells\/\.partial-\S+\/scores\.csv: ENOSPC: no space left on device \(write\)$/);
+    }
+    expect(full.stderr).toContain(`no new cells were started after a write failed; free space or fix the folder's permissions, then resume with: crosswise run ${join(dir, 'config.yaml')}`);
+    expect(lines(full.stdout).filter((line) => line.includes('] start '))).toHaveLength(2);
+    // Nothing half-written stays behind: no cell folder, no temporary folder.
+    expect(folders(dir)).toEqual([]);
+    const rerun = await run(dir);
+    expect(rerun.code).toBe(0);
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('when one cell cannot be stored (EACCES injected once on its temporary folder), the running cell is still stored and no new one starts', async () => {
+    const dir = configFolder(CONFIG);
+    const denied = await run(dir, [], { CROSSWISE_FAULT: 'mkdirSync:EACCES:.partial-:1' });
+    expect(denied.code).toBe(5);
+    const failures = lines(denied.stderr).filter((line) => !line.includes('no new cells were started'));
+    expect(failures).toHaveLength(1);
+    expect(failures[0]).toMatch(/^crosswise run: cell [0-3] \([0-9a-f]{10}\): cannot write \S+\/cells\/\.partial-\S+: EACCES: permission denied \(mkdir\)$/);
+    const started = lines(denied.stdout).filter((line) => line.includes('] start ')).length;
+    expect(started).toBeLessThan(4);
+    expect(folders(dir)).toHaveLength(started - 1);
+    const rerun = await run(dir);
+    expect(rerun.code).toBe(0);
+    expect(rerun.stdout).toContain(`4 cells, ${started - 1} already finished`);
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('exits 5 when the report cannot be written (ENOSPC injected on summary.md), naming the file', async () => {
+    const dir = configFolder(CONFIG);
+    const failed = await run(dir, [], { CROSSWISE_FAULT: 'writeFileSync:ENOSPC:summary.md' });
+    expect(failed.code).toBe(5);
+    expect(lines(failed.stderr)[0]).toMatch(/^crosswise run: the report could not be written: cannot write \S+\/summary\.md\.partial-\S+: ENOSPC: no space left on device \(write\)$/);
+    expect(results(dir)).toBe(undisturbed);
+  });
+
+  it('fails only the cells whose worker thread dies (exit code 134 injected), stores the rest and exits 3', async () => {
+    const dir = configFolder(CONFIG);
+    const dying = await run(dir, [], { FAKE_DYING: 'sight-autoencoder' });
+    expect(dying.code).toBe(3);
+    expect(lines(dying.stdout).filter((line) => line.includes('FAILED sight-autoencoder'))).toHaveLength(2);
+    expect(dying.stdout).toMatch(/FAILED sight-autoencoder seed 1 \([0-9a-f]{10}\): worker exited with code 134/);
+    const rows = lines(results(dir));
+    expect(rows.slice(1).every((row) => row.includes(',sound-from-sight,'))).toBe(true);
+    expect(rows).toEqual(lines(undisturbed).filter((row, i) => i === 0 || row.includes(',sound-from-sight,')));
+  });
+
+  it('survives SIGKILLs at random moments: each rerun resumes, and the last gives the undisturbed results.csv', async () => {
+    const dir = configFolder(CONFIG);
+    const env = { FAKE_EPOCH_MS: '60' };
+    // Kill points drawn from a fixed seed: after the k-th line of output (start, epoch or done lines).
+    const rng = createRng(14, 'kill-points');
+    for (let attempt = 0; attempt < 3; attempt++) {
+      const killAt = 1 + randomInt(rng, 8);
+      let seen = 0;
+      const killed = await run(dir, [], env, (_, kill) => { if (++seen === killAt) kill(); });
+      if (killed.code === 0) break;
+      expect(killed.code).toBe(null);
+      // Whatever is stored is complete: every cell folder is a whole cell.
+      for (const name of folders(dir).filter((n) => !n.startsWith('.'))) expect(existsSync(cellFile(dir, name, 'cell.json'))).toBe(true);
+    }
+    const last = await run(dir, [], env);
+    expect(last.code).toBe(0);
+    expect(lines(last.stderr).filter((line) => !line.includes('lock'))).toEqual([]);
+    expect(folders(dir).filter((name) => name.startsWith('.'))).toEqual([]);
+    expect(readdirSync(out(dir)).filter((name) => name.includes('.partial-'))).toEqual([]);
+    expect(results(dir)).toBe(undisturbed);
+  });
+});

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { existsSync, readdirSync, rmSync } from 'node:fs';
+import { readdirSync, rmSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { join } from 'node:path';
 
@@ -20,10 +20,15 @@ export function isPartialName(name: string): boolean {
 
 /** Removes the temporary files and folders in `dir` that killed processes on this machine left behind; returns their names. */
 export function removeStalePartials(dir: string): string[] {
-  if (!existsSync(dir)) return [];
+  let entries: string[];
+  try {
+    entries = readdirSync(dir);
+  } catch {
+    return []; // no such folder, or not one: nothing to clean up
+  }
   const mine = `${PARTIAL}${hostname()}-`;
   const removed: string[] = [];
-  for (const entry of readdirSync(dir)) {
+  for (const entry of entries) {
     const at = entry.indexOf(mine);
     if (at < 0) continue;
     const pid = Number(entry.slice(at + mine.length).split('-')[0]);

@@ -12,6 +12,6 @@ export const cellUsage = defineCommand({
     out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out" },
   },
   examples: ['crosswise cell configs/quickstart.yaml --index 3 --out runs/quickstart'],
-  exitCodes: [0, 1, 3, 5],
+  exitCodes: [0, 1, 3, 4, 5],
   load: async () => (await import('./cell.js')).cellCommand,
 });

@@ -19,10 +19,11 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     // Checked before prepareOutput writes anything: an invalid command line leaves no trace.
     const planned = planCells(sweep).length;
     if (index >= planned) throw new UsageError(`--index: expected a whole number from 0 to ${planned - 1}, got '${index}'`);
-    const cells = prepareOutput(sweep);
+    const warn = (line: string) => printProblem('cell', `warning: ${line}`);
+    const cells = prepareOutput(sweep, false, warn);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
-    if (storedCells(sweep.out, [cell], (line) => printProblem('cell', `warning: ${line}`)).has(cell.id)) {
+    if (storedCells(sweep.out, [cell], warn).has(cell.id)) {
       console.log(`cell ${index} (${cell.id}) is already finished in ${sweep.out}`);
       return EXIT.success;
     }

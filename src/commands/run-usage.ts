@@ -13,8 +13,9 @@ export const runUsage = defineCommand({
     jobs: { kind: 'integer', value: 'N', min: 1, description: 'cells run at once, each on its own worker thread', defaultText: 'the number of cores' },
     plain: { kind: 'flag', description: 'one line per event instead of the live dashboard', defaultText: 'on when stdout is not a terminal' },
     backend: { kind: 'choice', choices: BACKENDS, description: 'TensorFlow.js backend for training', defaultText: "the config's backend" },
+    force: { kind: 'flag', description: "take over an output folder that belongs to another experiment or results format, or that another machine's run holds; only this config's cells are then read" },
   },
   examples: ['crosswise run configs/quickstart.yaml --jobs 2'],
-  exitCodes: [0, 1, 3, 5, 130],
+  exitCodes: [0, 1, 3, 4, 5, 130],
   load: async () => (await import('./run.js')).runCommand,
 });

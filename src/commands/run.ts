@@ -27,7 +27,7 @@ export interface RunCommandParts {
   readonly dashboard?: Dashboard;
 }
 
-type Dashboard = (hooks: DashboardHooks) => { waitUntilExit(): Promise<void> };
+type Dashboard = (hooks: DashboardHooks) => { waitUntilExit(): Promise<void>; unmount(): void };
 
 /** The Ink dashboard, loaded only when a run shows it (Ink and React take a while to load). */
 async function terminalDashboard(): Promise<Dashboard> {
@@ -65,6 +65,10 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         abandon: abandon.signal,
         report: buildSummary,
         warn: (line) => printProblem('run', `warning: ${line}`),
+        force: values.force,
+      }).catch((error: unknown) => {
+        dashboard?.unmount(); // the sweep never started (a busy or foreign output folder): take the screen down before the message
+        throw error;
       });
       await dashboard?.waitUntilExit();
       if (outcome.writeFailures.length > 0) {

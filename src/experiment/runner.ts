@@ -10,6 +10,7 @@ import { readStoredRun, writeResultsCsv } from '../results/stored-results.js';
 import { writeFailure } from '../results/write-failure.js';
 import type { RunEvent, RunListener } from './events.js';
 import { cellLabel, cellSettings, planCells, planTable, type PlannedCell } from './plan.js';
+import { claimOutput } from './ownership.js';
 import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
 import { resolvedConfigYaml } from './resolved-yaml.js';
@@ -29,6 +30,8 @@ export interface RunOptions {
   readonly report?: (out: string) => Promise<string>;
   /** Told one line about each thing the run works around (a damaged cell moved aside and recomputed). */
   readonly warn?: (line: string) => void;
+  /** Take over an output folder that belongs to another experiment or results format (see claimOutput). */
+  readonly force?: boolean;
 }
 
 /** How a sweep ended. */
@@ -51,7 +54,7 @@ export async function runSweep(sweep: Sweep, options: RunOptions): Promise<Sweep
   const started = performance.now();
   const emit = (event: RunEvent) => options.listeners.forEach((listener) => listener(event));
   const warn = options.warn ?? (() => undefined);
-  const cells = prepareOutput(sweep);
+  const cells = prepareOutput(sweep, options.force === true, warn);
   const stored = storedCells(sweep.out, cells, warn);
   const pending = cells.filter((cell) => !stored.has(cell.id));
   emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
@@ -110,9 +113,14 @@ export function cellEndEvent(cell: PlannedCell, worker: number, result: CellResu
     : { type: 'cell-failed', cell: cellLabel(cell), worker, reason: result.reason };
 }
 
-/** Creates the output folder, writes config.resolved.yaml and plan.csv, clears leftovers of killed runs; returns the plan. */
-export function prepareOutput(sweep: Sweep): PlannedCell[] {
+/**
+ * Claims the output folder for the sweep's experiment (claimOutput: an OutputBusyError,
+ * and nothing written, when it belongs to another), creates it, writes
+ * config.resolved.yaml and plan.csv, clears leftovers of killed runs; returns the plan.
+ */
+export function prepareOutput(sweep: Sweep, force: boolean, warn: (line: string) => void): PlannedCell[] {
   const cells = planCells(sweep);
+  claimOutput(sweep.out, cells, sweep.varyKeys, force, warn);
   mkdirSync(outputPath(sweep.out, 'cells'), { recursive: true });
   writeFileAtomic(outputPath(sweep.out, 'config'), resolvedConfigYaml(sweep));
   writeFileAtomic(outputPath(sweep.out, 'plan'), formatPlanCsv(planTable(cells, sweep.varyKeys)));

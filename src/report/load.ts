@@ -2,7 +2,8 @@ import { existsSync, readFileSync, statSync } from 'node:fs';
 import type { EpochLog } from '../learn/spec.js';
 import type { CellRecord } from '../results/cell-record.js';
 import { cellArrayPath, cellPath, TEST_FEATURES } from '../results/layout.js';
-import { readPlan } from '../results/plan-table.js';
+import { armKey, otherFormatMessage, OutputBusyError, readFolderOwner } from '../results/experiment-record.js';
+import { readPlan, type PlanEntry } from '../results/plan-table.js';
 import { isScore, type ResultsTable, type ScoreRow } from '../results/results-table.js';
 import { readRunSettings } from '../results/run-settings.js';
 import { cellFaultLine } from '../results/stored-cell.js';
@@ -33,15 +34,25 @@ export interface StoredRun {
 }
 
 /**
- * Reads an output folder: its plan, the stored cells and config.resolved.yaml. Throws a
- * one-line error when there is nothing to report. A cell that cannot be trusted (see
- * inspectStoredCell) is left out with a warning; an unreadable train.csv is a warning.
+ * Reads an output folder: its plan, the experiment that owns it, the stored cells and
+ * config.resolved.yaml. Throws a one-line error when there is nothing to report, and an
+ * OutputBusyError for a folder of another results format. A cell that cannot be trusted
+ * (see inspectStoredCell; its settings must be those experiment.json gives its learner
+ * and vary values) is left out with a warning; an unreadable train.csv is a warning.
  */
 export function loadRun(outDir: string): StoredRun {
   if (!existsSync(outDir) || !statSync(outDir).isDirectory()) throw new Error(`${outDir}: no such directory`);
   const plan = readPlan(outDir);
   const warnings: string[] = [];
-  const stored = readStoredRun(outDir, plan, (id, fault) => warnings.push(cellFaultLine(id, fault, 'left out (crosswise run recomputes it)')));
+  const owner = readFolderOwner(outDir);
+  if (owner.kind === 'other-format') throw new OutputBusyError(otherFormatMessage(outDir, owner.version));
+  if (owner.kind === 'unreadable') warnings.push(`${owner.reason} (cells are read without checking them against their experiment)`);
+  const arms = owner.kind === 'experiment' ? new Map(owner.record.arms.map((arm) => [armKey(arm), arm])) : null;
+  const identityOf = (entry: PlanEntry) => {
+    const arm = arms?.get(armKey({ learner: { name: entry.learner }, vary: entry.vary }));
+    return arm == null ? undefined : { ...arm, seed: entry.seed };
+  };
+  const stored = readStoredRun(outDir, plan, (id, fault) => warnings.push(cellFaultLine(id, fault, 'left out (crosswise run recomputes it)')), identityOf);
   const { results } = stored;
   if (results.rows.length === 0) throw new Error(`${outDir}: no cell of the plan has results yet (nothing to report)`);
   const settings = readRunSettings(outDir, warnings);

@@ -19,7 +19,7 @@ export type StoredCellState =
 
 /**
  * Whether the stored cell `id` can be trusted: its cell.json parses, is the record of
- * this id (and of `identity`, the plan's settings for it, when given), and every file it
+ * this id (and of `identity`, the experiment's settings for it, when given), and every file it
  * lists is there with the size and SHA-256 recorded when the cell was committed.
  * Anything else is `damaged`, naming the first file at fault; nothing throws.
  */
@@ -36,7 +36,7 @@ export function inspectStoredCell(out: string, id: string, identity?: CellIdenti
   const record = attempt(() => parseCellRecord(text, CELL_FILES.record));
   if (record instanceof Error) return damaged(CELL_FILES.record, record.message.slice(`${CELL_FILES.record}: `.length));
   if (record.id !== id) return damaged(CELL_FILES.record, `holds cell ${record.id}`);
-  if (identity != null && canonicalJson(record.identity) !== canonicalJson(identity)) return damaged(CELL_FILES.record, "settings differ from the plan's");
+  if (identity != null && canonicalJson(record.identity) !== canonicalJson(identity)) return damaged(CELL_FILES.record, "settings differ from the experiment's");
   for (const [name, expected] of Object.entries(record.files)) {
     const fault = fileFault(join(dir, name), expected);
     if (fault != null) return damaged(name, fault);

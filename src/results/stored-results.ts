@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { writeFileAtomic } from './atomic-file.js';
+import type { CellIdentity } from './cell-identity.js';
 import type { CellRecord } from './cell-record.js';
 import { cellPath, outputPath } from './layout.js';
 import { outputOrder } from './output-order.js';
@@ -28,12 +29,13 @@ export type OnDamaged = (id: string, fault: CellFault) => void;
  * cell's rows are stored in output order already). Unfinished and failed cells add no
  * rows; damaged cells (see inspectStoredCell) are passed to `onDamaged` and left out;
  * cells outside the plan (of an earlier config) and temporary folders are never read.
+ * `identityOf` gives the settings a cell must have been stored with, when known.
  */
-export function readStoredRun(out: string, plan: Plan, onDamaged: OnDamaged): StoredRun {
+export function readStoredRun(out: string, plan: Plan, onDamaged: OnDamaged, identityOf?: (entry: PlanEntry) => CellIdentity | undefined): StoredRun {
   const cells: TrustedCell[] = [];
   const rows: ResultRow[] = [];
   for (const entry of outputOrder(plan.entries, plan.varyKeys)) {
-    const stored = inspectStoredCell(out, entry.cell);
+    const stored = inspectStoredCell(out, entry.cell, identityOf?.(entry));
     if (stored.state === 'damaged') onDamaged(entry.cell, stored.fault);
     if (stored.state !== 'trusted') continue;
     if (stored.record.status === 'done') {

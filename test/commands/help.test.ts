@@ -92,7 +92,7 @@ describe('crosswise <command> --help', () => {
     expect(out).toEqual([
       'crosswise run: run every cell of a sweep, then build the report; resumable',
       '',
-      'usage: crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu]',
+      'usage: crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu] [--force]',
       '',
       'Finished cells in the output folder are skipped, so the same command resumes an',
       'interrupted sweep. The numbers do not depend on --jobs. Ctrl-C lets running',
@@ -109,13 +109,16 @@ describe('crosswise <command> --help', () => {
       '                      on when stdout is not a terminal)',
       "  --backend wasm|cpu  TensorFlow.js backend for training (default: the config's",
       '                      backend)',
+      '  --force             take over an output folder that belongs to another',
+      '                      experiment or results format, or that another machine\'s',
+      "                      run holds; only this config's cells are then read",
       '  -h, --help          this help',
       '',
       'example:',
       '  crosswise run configs/quickstart.yaml --jobs 2',
       '',
       'exit codes:',
-      ...EXIT_CODE_LINES.filter((line) => !line.startsWith('  4 ')),
+      ...EXIT_CODE_LINES,
     ]);
   });
 

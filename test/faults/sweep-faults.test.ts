@@ -2,7 +2,7 @@
 // each cell takes milliseconds). After each fault: the message names the cell and the
 // fault, no result is lost or invented, and a rerun gives results.csv byte-identical to
 // an undisturbed run of the same config.
-import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, truncateSync, unlinkSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, truncateSync, unlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
@@ -155,6 +155,55 @@ describe('faults in a real tiny sweep', () => {
     const rows = lines(results(dir));
     expect(rows.slice(1).every((row) => row.includes(',sound-from-sight,'))).toBe(true);
     expect(rows).toEqual(lines(undisturbed).filter((row, i) => i === 0 || row.includes(',sound-from-sight,')));
+  });
+
+  it('refuses a folder owned by another config (other hidden sizes) with one line and exit 4, writing nothing; more seeds and learners extend it; --force takes it over', async () => {
+    const dir = finishedCopy();
+    const snapshot = () => readdirSync(out(dir)).sort().map((name) => [name, name.endsWith('.csv') || name.endsWith('.yaml') || name.endsWith('.json') ? readFileSync(join(out(dir), name), 'utf8') : '']);
+    const before = snapshot();
+    const smaller = CONFIG.replace('target: [sound], train', 'target: [sound], encoder: { hidden: [32] }, train');
+    writeFileSync(join(dir, 'other.yaml'), smaller);
+    const refused = await spawnWithFake(['run', join(dir, 'other.yaml')]);
+    expect(refused.code).toBe(4);
+    expect(lines(refused.stderr)).toEqual([
+      `crosswise run: ${out(dir)} belongs to another experiment: learner 'sound-from-sight' has other settings there: learner.encoder.hidden: [32] here, [128,64] there. `
+      + "Adding seeds, learners or vary values extends a sweep; changing the settings of existing ones is a new experiment: use another --out, or --force to take the folder over (only this config's cells are then read)",
+    ]);
+    expect(snapshot()).toEqual(before);
+
+    writeFileSync(join(dir, 'more.yaml'), CONFIG.replace('seeds: [1, 2]', 'seeds: [1, 2, 3]').replace('noise:', '  - { name: untrained, objective: untrained, input: [sight] }\nnoise:'));
+    const extended = await spawnWithFake(['run', join(dir, 'more.yaml'), '--jobs', '2']);
+    expect(extended.code).toBe(0);
+    expect(extended.stdout).toContain('9 cells, 4 already finished');
+    const grown = lines(results(dir));
+    expect(grown).toHaveLength(9 * 5 * 2 + 1);
+    expect(lines(undisturbed).every((row) => grown.includes(row))).toBe(true);
+
+    const forced = await spawnWithFake(['run', join(dir, 'other.yaml'), '--jobs', '2', '--force']);
+    expect(forced.code).toBe(0);
+    expect(lines(forced.stderr)).toEqual([`crosswise run: warning: ${out(dir)}: taken over with --force; only this config's cells are read from now on`]);
+    // The autoencoder's cells are the same cells (same settings); the predictor's are new.
+    expect(forced.stdout).toContain('4 cells, 2 already finished');
+    const taken = lines(results(dir));
+    expect(taken).toHaveLength(4 * 5 * 2 + 1);
+    expect(taken.filter((row) => row.includes(',sight-autoencoder,'))).toEqual(lines(undisturbed).filter((row) => row.includes(',sight-autoencoder,')));
+    expect(taken.filter((row) => row.includes(',sound-from-sight,')).some((row) => undisturbed.includes(row.split(',')[0]))).toBe(false);
+  });
+
+  it('refuses a folder of an older results format in run and report (exit 4), saying how to recompute', async () => {
+    const dir = finishedCopy();
+    unlinkSync(join(out(dir), 'experiment.json'));
+    const refused = await run(dir);
+    expect(refused.code).toBe(4);
+    expect(lines(refused.stderr)).toEqual([`crosswise run: ${out(dir)} was written by an older crosswise (results format 1); this crosswise reads format 2 and does not reuse those cells. `
+      + 'To recompute them, run the config again with --out <new folder> (or move this folder away, or --force to recompute into it)']);
+    const errors = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    try {
+      expect(await reportCommand([out(dir)])).toBe(4);
+      expect(errors.mock.calls.map((call) => String(call[0]))).toEqual([expect.stringMatching(/^crosswise report: \S+ was written by an older crosswise \(results format 1\); .* --out <new folder>$/)]);
+    } finally {
+      errors.mockRestore();
+    }
   });
 
   it('survives SIGKILLs at random moments: each rerun resumes, and the last gives the undisturbed results.csv', async () => {

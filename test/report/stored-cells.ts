@@ -1,6 +1,6 @@
 // Writes output folders for report tests through the one results contract (src/results/),
-// as `crosswise run` would: cells/<id>/ with cell.json, train.csv and scores.csv, plan.csv
-// and config.resolved.yaml. The numbers are test data, not measurements.
+// as `crosswise run` would: cells/<id>/ with cell.json, train.csv and scores.csv, plan.csv,
+// experiment.json and config.resolved.yaml. The numbers are test data, not measurements.
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { EpochLog, LearnerSpec } from '../../src/learn/spec.js';
@@ -8,6 +8,7 @@ import type { NoiseSpec } from '../../src/noise/spec.js';
 import { commitCell } from '../../src/results/cell-folder.js';
 import { cellId, cellIdentity } from '../../src/results/cell-identity.js';
 import type { CellRecord } from '../../src/results/cell-record.js';
+import { armIdentity, armKey, formatExperimentRecord } from '../../src/results/experiment-record.js';
 import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { encodeNpy, type NpyArray } from '../../src/results/npy.js';
 import { formatPlanCsv } from '../../src/results/plan-table.js';
@@ -78,6 +79,11 @@ export function writeRun(dir: string, cells: readonly TestCell[], options: { nam
   }
   const entries = (options.planOrder ?? cells).map((cell, index) => ({ index, cell: testCellId(cell), learner: cell.learner, seed: cell.seed, vary: cell.vary ?? {} }));
   writeFileSync(join(dir, 'plan.csv'), formatPlanCsv({ varyKeys, entries }));
+  const arms = [...new Map((options.planOrder ?? cells).map((cell) => {
+    const arm = armIdentity(identityOf(cell));
+    return [armKey(arm), arm] as const;
+  })).values()];
+  writeFileSync(join(dir, 'experiment.json'), formatExperimentRecord({ format_version: RESULTS_FORMAT_VERSION, vary_keys: [...varyKeys], arms }));
   const baseline = options.baseline == null ? '' : `probe:\n  baseline: ${options.baseline}\n`;
   writeFileSync(join(dir, 'config.resolved.yaml'), `name: ${options.name}\n${baseline}`);
 }

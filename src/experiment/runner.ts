@@ -10,6 +10,7 @@ import { readStoredRun, writeResultsCsv } from '../results/stored-results.js';
 import { writeFailure } from '../results/write-failure.js';
 import type { RunEvent, RunListener } from './events.js';
 import { cellLabel, cellSettings, planCells, planTable, type PlannedCell } from './plan.js';
+import { lockOutput } from './output-lock.js';
 import { claimOutput } from './ownership.js';
 import { runOnPool } from './pool.js';
 import type { Sweep } from './resolved-config.js';
@@ -30,7 +31,7 @@ export interface RunOptions {
   readonly report?: (out: string) => Promise<string>;
   /** Told one line about each thing the run works around (a damaged cell moved aside and recomputed). */
   readonly warn?: (line: string) => void;
-  /** Take over an output folder that belongs to another experiment or results format (see claimOutput). */
+  /** Take over an output folder that belongs to another experiment or results format (claimOutput), or another machine's lock (lockOutput). */
   readonly force?: boolean;
 }
 
@@ -48,12 +49,22 @@ export interface SweepOutcome {
  * results.csv from the stored cells (in config order) and the report. Finished cells
  * (done or failed) are skipped, so rerunning after an interruption completes the sweep.
  * A cell that cannot be stored (a full disk, a folder made unwritable) fails with one
- * line naming it and the file; running cells finish, but no new cell starts.
+ * line naming it and the file; running cells finish, but no new cell starts. The output
+ * folder is locked for the whole run (lockOutput).
  */
 export async function runSweep(sweep: Sweep, options: RunOptions): Promise<SweepOutcome> {
+  const warn = options.warn ?? (() => undefined);
+  const release = lockOutput(sweep.out, options.force === true, warn);
+  try {
+    return await runLocked(sweep, options, warn);
+  } finally {
+    release();
+  }
+}
+
+async function runLocked(sweep: Sweep, options: RunOptions, warn: (line: string) => void): Promise<SweepOutcome> {
   const started = performance.now();
   const emit = (event: RunEvent) => options.listeners.forEach((listener) => listener(event));
-  const warn = options.warn ?? (() => undefined);
   const cells = prepareOutput(sweep, options.force === true, warn);
   const stored = storedCells(sweep.out, cells, warn);
   const pending = cells.filter((cell) => !stored.has(cell.id));

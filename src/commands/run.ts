@@ -6,7 +6,7 @@ import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
-import { printProblem } from './messages.js';
+import { count, printProblem } from './messages.js';
 import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
@@ -66,6 +66,7 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         report: buildSummary,
         warn: (line) => printProblem('run', `warning: ${line}`),
         force: values.force,
+        retryFailed: values['retry-failed'],
       }).catch((error: unknown) => {
         dashboard?.unmount(); // the sweep never started (a busy or foreign output folder): take the screen down before the message
         throw error;
@@ -80,7 +81,11 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         console.log(`stopped; finished cells are kept. resume with: ${resumeCommand(config, values.out)}`);
         return EXIT.interrupted;
       }
-      return outcome.failed > 0 ? EXIT.cellsFailed : EXIT.success;
+      if (outcome.failed > 0) {
+        printProblem('run', `${count(outcome.failed, 'cell')} failed; compute them again with: ${resumeCommand(config, values.out)} --retry-failed`);
+        return EXIT.cellsFailed;
+      }
+      return EXIT.success;
     } finally {
       process.off('SIGINT', stop);
       process.off('SIGTERM', stop);

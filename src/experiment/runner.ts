@@ -31,6 +31,8 @@ export interface RunOptions {
   readonly report?: (out: string) => Promise<string>;
   /** Told one line about each thing the run works around (a damaged cell moved aside and recomputed). */
   readonly warn?: (line: string) => void;
+  /** Compute failed cells again instead of skipping them. */
+  readonly retryFailed?: boolean;
   /** Take over an output folder that belongs to another experiment or results format (claimOutput), or another machine's lock (lockOutput). */
   readonly force?: boolean;
 }
@@ -47,7 +49,8 @@ export interface SweepOutcome {
 /**
  * Runs every unfinished cell of a sweep and stores each as it finishes, then rebuilds
  * results.csv from the stored cells (in config order) and the report. Finished cells
- * (done or failed) are skipped, so rerunning after an interruption completes the sweep.
+ * (done, and failed unless `retryFailed`) are skipped, so rerunning after an
+ * interruption completes the sweep.
  * A cell that cannot be stored (a full disk, a folder made unwritable) fails with one
  * line naming it and the file; running cells finish, but no new cell starts. The output
  * folder is locked for the whole run (lockOutput).
@@ -67,6 +70,8 @@ async function runLocked(sweep: Sweep, options: RunOptions, warn: (line: string)
   const emit = (event: RunEvent) => options.listeners.forEach((listener) => listener(event));
   const cells = prepareOutput(sweep, options.force === true, warn);
   const stored = storedCells(sweep.out, cells, warn);
+  const retried = new Set(options.retryFailed === true ? [...stored.values()].filter((r) => r.status === 'failed').map((r) => r.id) : []);
+  for (const id of retried) stored.delete(id);
   const pending = cells.filter((cell) => !stored.has(cell.id));
   emit({ type: 'sweep-start', name: sweep.name, out: sweep.out, total: cells.length, skipped: cells.length - pending.length, jobs: options.jobs });
   const phases = { collect: 0, train: 0, probe: 0 };
@@ -78,7 +83,7 @@ async function runLocked(sweep: Sweep, options: RunOptions, warn: (line: string)
     onEpoch: (cell, worker, log) => emit({ type: 'epoch', cell: cellLabel(cell), worker, log }),
     onFinish: (cell, worker, result) => {
       if (options.abandon?.aborted === true) return;
-      const failure = attemptWrite(() => stored.set(cell.id, storeCell(sweep.out, cell, result, sweep.varyKeys)));
+      const failure = attemptWrite(() => stored.set(cell.id, storeCell(sweep.out, cell, result, sweep.varyKeys, retried.has(cell.id))));
       if (failure != null) {
         writeFailures.push(`cell ${cell.index} (${cell.id}): ${failure}`);
         stopStarting.abort();

@@ -146,7 +146,7 @@ describe('faults in a real tiny sweep', () => {
     expect(results(dir)).toBe(undisturbed);
   });
 
-  it('fails only the cells whose worker thread dies (exit code 134 injected), stores the rest and exits 3', async () => {
+  it('fails only the cells whose worker thread dies (exit code 134 injected), stores the rest and exits 3; --retry-failed computes them', async () => {
     const dir = configFolder(CONFIG);
     const dying = await run(dir, [], { FAKE_DYING: 'sight-autoencoder' });
     expect(dying.code).toBe(3);
@@ -155,6 +155,12 @@ describe('faults in a real tiny sweep', () => {
     const rows = lines(results(dir));
     expect(rows.slice(1).every((row) => row.includes(',sound-from-sight,'))).toBe(true);
     expect(rows).toEqual(lines(undisturbed).filter((row, i) => i === 0 || row.includes(',sound-from-sight,')));
+    expect(lines(dying.stderr)).toEqual([`crosswise run: 2 cells failed; compute them again with: crosswise run ${join(dir, 'config.yaml')} --retry-failed`]);
+    const retried = await run(dir, ['--retry-failed']);
+    expect(retried.code).toBe(0);
+    expect(retried.stdout).toContain('4 cells, 2 already finished');
+    expect(folders(dir)).toHaveLength(4);
+    expect(results(dir)).toBe(undisturbed);
   });
 
   it('refuses a folder owned by another config (other hidden sizes) with one line and exit 4, writing nothing; more seeds and learners extend it; --force takes it over', async () => {

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { isMap, parseDocument } from 'yaml';
 import { checkConfigFile } from '../experiment/config.js';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkWorldFile } from '../world/parse.js';
 import { checkUsage } from './check-usage.js';
 import { runAction } from './command-line.js';
@@ -31,12 +32,17 @@ function topLevelKeys(text: string): Set<string> | null {
 
 /** The problems of one file, whatever kind it is. */
 export function checkFile(path: string): { kind: string | null; problems: string[] } {
+  // The largest file crosswise reads is a world file; anything larger is refused unread.
+  const tooLarge = fileSizeProblem(path, INPUT_LIMITS.worldBytes, 'file');
+  if (tooLarge != null) return { kind: null, problems: [tooLarge] };
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
   } catch (error) {
     return { kind: null, problems: [`${path}:1:1: cannot read the file (${(error as NodeJS.ErrnoException).code ?? String(error)})`] };
   }
+  const tooDeep = yamlNestingProblem(text, path);
+  if (tooDeep != null) return { kind: null, problems: [tooDeep] };
   const keys = topLevelKeys(text);
   // A file that does not parse goes to the world checker, which reports YAML syntax errors with positions.
   const checker = keys == null ? CHECKERS[0] : CHECKERS.find((c) => c.accepts(keys));

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
-import { LineCounter, parseDocument } from 'yaml';
+import { LineCounter, parseDocument, visit } from 'yaml';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkConfig } from './config-checks.js';
 import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { DEFAULTS } from './defaults.js';
@@ -25,9 +26,10 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const parsed = configSchema.safeParse(source.doc.toJS(), { reportInput: true });
+  const parsed = configSchema.safeParse(plainData(source), { reportInput: true });
   if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
   const filled = parsed.data as FilledConfig;
+  fail(sweepSizeProblems(filled));
   fail(checkConfig(filled, configDir));
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
@@ -72,12 +74,16 @@ function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions
 }
 
 function parseSource(file: string): ConfigSource {
+  const tooLarge = fileSizeProblem(file, INPUT_LIMITS.configBytes, 'config file');
+  if (tooLarge != null) throw new ConfigError([tooLarge]);
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
     throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
+  const tooDeep = yamlNestingProblem(text, file);
+  if (tooDeep != null) throw new ConfigError([tooDeep]);
   const lineCounter = new LineCounter();
   const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false });
   if (doc.errors.length > 0) {
@@ -87,6 +93,54 @@ function parseSource(file: string): ConfigSource {
     }));
   }
   return { file, doc, lineCounter };
+}
+
+/**
+ * The config as plain data. Aliases are expanded with the `yaml` package's guard against
+ * alias bombs (a few lines whose aliases nest into billions of nodes); tripping it is one
+ * line at the first alias that brings in other aliases.
+ */
+function plainData(source: ConfigSource): unknown {
+  try {
+    return source.doc.toJS({ maxAliasCount: INPUT_LIMITS.aliasNodes });
+  } catch (error) {
+    if (!(error instanceof ReferenceError)) throw error;
+    const { line, col } = source.lineCounter.linePos(nestedAliasOffset(source.doc));
+    throw new ConfigError([`${source.file}:${line}:${col}: (YAML): an alias here expands to more than ${INPUT_LIMITS.aliasNodes} nodes (aliases of aliases; see "Limits" in the README)`]);
+  }
+}
+
+/** Offset of the first alias whose anchored node holds aliases itself, else of the first alias. */
+function nestedAliasOffset(doc: ConfigSource['doc']): number {
+  let first: number | undefined;
+  let nested: number | undefined;
+  visit(doc, {
+    Alias(_, alias) {
+      first ??= alias.range?.[0];
+      let holdsAliases = false;
+      const target = alias.resolve(doc);
+      if (target != null) visit(target, { Alias: () => { holdsAliases = true; return visit.BREAK; } });
+      if (holdsAliases) {
+        nested = alias.range?.[0];
+        return visit.BREAK;
+      }
+      return undefined;
+    },
+  });
+  return nested ?? first ?? 0;
+}
+
+/** A sweep of more cells than INPUT_LIMITS.sweepCells, counted before anything is expanded. */
+function sweepSizeProblems(filled: FilledConfig): ConfigProblem[] {
+  const combinations = Object.values(filled.vary).reduce((n, values) => n * Math.max(1, values.length), 1);
+  const cells = combinations * filled.seeds.length * filled.learners.length;
+  if (cells <= INPUT_LIMITS.sweepCells) return [];
+  const counted = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
+  const factors = [counted(combinations, 'vary combination'), counted(filled.seeds.length, 'seed'), counted(filled.learners.length, 'learner')].join(' × ');
+  return [{
+    path: [Object.keys(filled.vary).length > 0 ? 'vary' : 'seeds'], atKey: true,
+    message: `the sweep has ${cells} cells (${factors}); at most ${INPUT_LIMITS.sweepCells} are run from one config (see "Limits" in the README): split it into several configs`,
+  }];
 }
 
 function validate(config: FilledConfig, configDir: string): ConfigProblem[] {

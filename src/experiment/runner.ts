@@ -103,8 +103,12 @@ async function runLocked(sweep: Sweep, options: RunOptions, warn: (line: string)
   const reportStarted = performance.now();
   if (!interrupted && resultsFailure == null && done > 0 && options.report != null) {
     const report = await options.report(sweep.out).catch((error: unknown) => error as Error);
-    if (report instanceof Error) writeFailures.push(`the report could not be written: ${writeFailure(report) ?? report.message}`);
-    else where = report;
+    const failed = report instanceof Error ? writeFailure(report) : null;
+    if (failed != null) writeFailures.push(`the report could not be written: ${failed}`);
+    else if (report instanceof Error) {
+      where = `the report could not be built: ${report.message}`;
+      warn(where);
+    } else where = report;
   }
   const reportSeconds = (performance.now() - reportStarted) / 1000;
   const summary = `${where}; time in cells run now: collect ${phases.collect.toFixed(1)} s, train ${phases.train.toFixed(1)} s, probe ${phases.probe.toFixed(1)} s (summed over workers); report ${reportSeconds.toFixed(1)} s`;

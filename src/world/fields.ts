@@ -71,11 +71,17 @@ function breaks(value: number, rule: NumberRule): boolean {
 export function numberAt(node: YamlNode, what: string, rule: NumberRule, problems: Problems): number | null {
   const value = isScalar(node) ? node.value : undefined;
   if (typeof value !== 'number' || breaks(value, rule)) {
-    const shown = isScalar(node) ? JSON.stringify(node.value) : 'a list or mapping';
-    problems.report(node, `${what} must be ${describeRule(rule)}, got ${shown}`);
+    problems.report(node, `${what} must be ${describeRule(rule)}, got ${shownValue(node)}`);
     return null;
   }
   return value;
+}
+
+/** A value as a message shows it: JSON, except numbers that are not finite (JSON would say null), which keep their spelling. */
+function shownValue(node: YamlNode): string {
+  if (!isScalar(node)) return 'a list or mapping';
+  if (typeof node.value === 'number' && !Number.isFinite(node.value)) return `${node.source ?? String(node.value)} (not a finite number)`;
+  return JSON.stringify(node.value);
 }
 
 /** A required or optional number field; the default is used when the key is absent. */
@@ -87,7 +93,11 @@ export function numberField(
   return numberAt(node, `'${key}' in ${fields.label}`, rule, problems);
 }
 
-/** A string field; `oneChar` demands a single visible character (a map glyph). */
+/**
+ * A string field; `oneChar` demands a map glyph: one visible character that takes one
+ * column in a terminal, so map rows stay aligned (wide characters such as emoji and CJK
+ * ideographs take two, UAX #11).
+ */
 export function stringField(
   fields: Fields, key: string, problems: Problems, options: { oneChar?: boolean; fallback?: string } = {},
 ): string | null {
@@ -99,8 +109,8 @@ export function stringField(
     return null;
   }
   const text = String(value);
-  if (options.oneChar === true && (text.length !== 1 || /\s/.test(text))) {
-    problems.report(node, `'${key}' in ${fields.label} must be one visible character, got ${JSON.stringify(text)}`);
+  if (options.oneChar === true && !isNarrowGlyph(text)) {
+    problems.report(node, `'${key}' in ${fields.label} must be one single-width visible character (emoji and other wide characters are not allowed), got ${JSON.stringify(text)}`);
     return null;
   }
   if (options.oneChar !== true && text.trim() === '') {
@@ -108,6 +118,22 @@ export function stringField(
     return null;
   }
   return text;
+}
+
+/**
+ * Whether text is one visible character one terminal column wide: a single UTF-16 unit
+ * (map rows are indexed by it), not a space, control, combining mark or emoji, and
+ * outside the East Asian Wide and Fullwidth blocks (Unicode UAX #11: Hangul Jamo, CJK,
+ * Hangul syllables, compatibility ideographs, vertical and fullwidth forms).
+ */
+function isNarrowGlyph(text: string): boolean {
+  if (text.length !== 1 || /[\s\p{C}\p{M}\p{Emoji_Presentation}]/u.test(text)) return false;
+  const code = text.charCodeAt(0);
+  const wide: readonly [number, number][] = [
+    [0x1100, 0x115f], [0x2e80, 0x303e], [0x3041, 0x33ff], [0x3400, 0x4dbf], [0x4e00, 0x9fff], [0xa000, 0xa4cf],
+    [0xac00, 0xd7a3], [0xf900, 0xfaff], [0xfe30, 0xfe4f], [0xff00, 0xff60], [0xffe0, 0xffe6],
+  ];
+  return !wide.some(([low, high]) => code >= low && code <= high);
 }
 
 /** A true/false field with a default. */

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { closest } from 'fastest-levenshtein';
 import { LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { listField, numberField, readFields, stringField, type Fields } from './fields.js';
 import { readMap, type MapGrid } from './map-text.js';
 import { readEmitter, readMaterial, readStart, type EmitterEntry, type MaterialEntry, type StartEntry } from './parts.js';
@@ -126,6 +127,8 @@ function readPalette(fields: Fields, problems: Problems): Palette | null {
  * runs only when the earlier ones found nothing, so one mistake is not reported many times.
  */
 function readWorld(text: string, path: string): { world: World | null; problems: string[] } {
+  const tooDeep = yamlNestingProblem(text, path);
+  if (tooDeep != null) return { world: null, problems: [tooDeep] };
   const lines = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: false });
   const problems = createProblems(path, lines);
@@ -181,6 +184,8 @@ export function loadWorld(path: string): World {
 }
 
 function readWorldText(path: string): string {
+  const tooLarge = fileSizeProblem(path, INPUT_LIMITS.worldBytes, 'world file');
+  if (tooLarge != null) throw new WorldFileError([tooLarge]);
   try {
     return readFileSync(path, 'utf8');
   } catch (error) {

@@ -19,6 +19,12 @@ export const INPUT_LIMITS = {
   sweepCells: 10_000,
 } as const;
 
+/** Text as one line whatever a file held: line breaks and other control characters are escaped as in JSON. */
+export function oneLine(text: string): string {
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is matched
+  return text.replace(/[\u0000-\u001f\u007f]/g, (c) => JSON.stringify(c).slice(1, -1));
+}
+
 /**
  * Why a file is too large to read, as one `path:1:1: ...` line, or null when it is small
  * enough. Asks the file system first, so a huge file is refused before it is read.

@@ -1,5 +1,6 @@
 import { closest, distance } from 'fastest-levenshtein';
 import { isMap, isPair, isScalar, isSeq, type Document, type LineCounter, type Node } from 'yaml';
+import { oneLine } from '../input-limits.js';
 
 /** One thing wrong with a config, at a key path inside it. */
 export interface ConfigProblem {
@@ -30,7 +31,8 @@ export function formatProblems(source: ConfigSource, problems: readonly ConfigPr
     const offset = offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
     const key = problem.path.length === 0 ? '(top level)' : problem.path.join('.');
-    return { offset, text: `${source.file}:${line}:${col}: ${key}: ${problem.message}` };
+    // One problem, one line, whatever the config held in its keys and values.
+    return { offset, text: oneLine(`${source.file}:${line}:${col}: ${key}: ${problem.message}`) };
   });
   located.sort((a, b) => a.offset - b.offset);
   return [...new Set(located.map((entry) => entry.text))];

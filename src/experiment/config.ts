@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
-import { LineCounter, parseDocument, visit } from 'yaml';
+import { isAlias, isMap, isScalar, isSeq, LineCounter, parseDocument, visit } from 'yaml';
 import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkConfig } from './config-checks.js';
 import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
@@ -85,7 +85,8 @@ function parseSource(file: string): ConfigSource {
   const tooDeep = yamlNestingProblem(text, file);
   if (tooDeep != null) throw new ConfigError([tooDeep]);
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false });
+  // logLevel 'error': a collection used as a key is reported as an unknown key, not as a Node warning on stderr.
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, logLevel: 'error' });
   if (doc.errors.length > 0) {
     throw new ConfigError(doc.errors.map((error) => {
       const { line, col } = lineCounter.linePos(error.pos[0]);
@@ -98,20 +99,25 @@ function parseSource(file: string): ConfigSource {
 /**
  * The config as plain data. Aliases are expanded with the `yaml` package's guard against
  * alias bombs (a few lines whose aliases nest into billions of nodes); tripping it is one
- * line at the first alias that brings in other aliases.
+ * line at the first alias that brings in other aliases. A merge (`<<`) of something that
+ * is not a mapping is one line at that merge.
  */
 function plainData(source: ConfigSource): unknown {
   try {
     return source.doc.toJS({ maxAliasCount: INPUT_LIMITS.aliasNodes });
   } catch (error) {
-    if (!(error instanceof ReferenceError)) throw error;
-    const { line, col } = source.lineCounter.linePos(nestedAliasOffset(source.doc));
-    throw new ConfigError([`${source.file}:${line}:${col}: (YAML): an alias here expands to more than ${INPUT_LIMITS.aliasNodes} nodes (aliases of aliases; see "Limits" in the README)`]);
+    if (!(error instanceof Error)) throw error;
+    const bomb = error instanceof ReferenceError;
+    const { line, col } = source.lineCounter.linePos((bomb ? nestedAliasOffset(source.doc) : badMergeOffset(source.doc)) ?? 0);
+    const reason = bomb
+      ? `an alias here expands to more than ${INPUT_LIMITS.aliasNodes} nodes (aliases of aliases; see "Limits" in the README)`
+      : error.message.split('\n')[0];
+    throw new ConfigError([`${source.file}:${line}:${col}: (YAML): ${reason}`]);
   }
 }
 
 /** Offset of the first alias whose anchored node holds aliases itself, else of the first alias. */
-function nestedAliasOffset(doc: ConfigSource['doc']): number {
+function nestedAliasOffset(doc: ConfigSource['doc']): number | undefined {
   let first: number | undefined;
   let nested: number | undefined;
   visit(doc, {
@@ -120,14 +126,28 @@ function nestedAliasOffset(doc: ConfigSource['doc']): number {
       let holdsAliases = false;
       const target = alias.resolve(doc);
       if (target != null) visit(target, { Alias: () => { holdsAliases = true; return visit.BREAK; } });
-      if (holdsAliases) {
-        nested = alias.range?.[0];
-        return visit.BREAK;
-      }
-      return undefined;
+      if (!holdsAliases) return undefined;
+      nested = alias.range?.[0];
+      return visit.BREAK;
     },
   });
-  return nested ?? first ?? 0;
+  return nested ?? first;
+}
+
+/** Offset of the first merge key (`<<`) whose value is not a mapping or a list of them. */
+function badMergeOffset(doc: ConfigSource['doc']): number | undefined {
+  let found: number | undefined;
+  const isMapping = (node: unknown): boolean => isMap(isAlias(node) ? node.resolve(doc) : node);
+  visit(doc, {
+    Pair(_, pair) {
+      if (!isScalar(pair.key) || pair.key.value !== '<<') return undefined;
+      const ok = isSeq(pair.value) ? pair.value.items.every(isMapping) : isMapping(pair.value);
+      if (ok) return undefined;
+      found = pair.key.range?.[0];
+      return visit.BREAK;
+    },
+  });
+  return found;
 }
 
 /** A sweep of more cells than INPUT_LIMITS.sweepCells, counted before anything is expanded. */

@@ -1,4 +1,5 @@
 import type { LineCounter, Node as YamlNode } from 'yaml';
+import { oneLine } from '../input-limits.js';
 
 /** Where in a file a problem was found: a YAML node or a raw character offset. */
 export type Place = YamlNode | number | null | undefined;
@@ -21,7 +22,8 @@ export function createProblems(path: string, lines: LineCounter): Problems {
     return `${path}:${line}:${col}`;
   };
   const list: string[] = [];
-  return { path, list, where, report: (place, reason) => list.push(`${where(place)}: ${reason}`) };
+  // Line breaks and other control characters from the file are escaped: one problem, one line.
+  return { path, list, where, report: (place, reason) => list.push(`${where(place)}: ${oneLine(reason)}`) };
 }
 
 /** Thrown by loadWorld: its message holds every problem, one per line. */

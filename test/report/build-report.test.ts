@@ -1,4 +1,4 @@
-import { mkdtemp, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises';
+import { cp, mkdtemp, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -145,6 +145,25 @@ describe('buildReport errors', () => {
 });
 
 describe('buildReport with damaged cell files', () => {
+  it('never reads a temporary .partial-* cell folder, even with results.csv gone', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-partial-'));
+    try {
+      writeFixture(dir);
+      const before = await readFile((await buildReport(dir)).resultsPath, 'utf8');
+      const [one] = fixtureCells().map(testCellId);
+      // An uncommitted copy of a cell with other scores, as a killed run on another machine would leave it.
+      await cp(join(dir, 'cells', one), join(dir, 'cells', '.partial-elsewhere.example-1-aaaa'), { recursive: true });
+      const scores = join(dir, 'cells', '.partial-elsewhere.example-1-aaaa', 'scores.csv');
+      await writeFile(scores, (await readFile(scores, 'utf8')).replace(/,0\.\d+(\n|$)/, ',0.123$1'));
+      await rm(join(dir, 'results.csv'));
+      const report = await buildReport(dir);
+      expect(await readFile(report.resultsPath, 'utf8')).toBe(before);
+      expect(report.warnings.filter((w) => w.startsWith('cell '))).toEqual([]);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
+  });
+
   it('leaves out a cell whose train.csv or cell.json was damaged after it was stored, with one warning naming cell and file', async () => {
     const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
     try {

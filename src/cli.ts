@@ -14,11 +14,12 @@ import { reportUsage } from './commands/report-usage.js';
 import { runUsage } from './commands/run-usage.js';
 import { schemaUsage } from './commands/schema-usage.js';
 import { senseUsage } from './commands/sense-usage.js';
+import { statusUsage } from './commands/status-usage.js';
 import type { CommandUsage } from './commands/usage.js';
 
 /** Every command, in the order `crosswise --help` lists them. */
 export const COMMANDS: readonly CommandUsage[] = [
-  runUsage, planUsage, cellUsage, clusterUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
+  runUsage, planUsage, cellUsage, clusterUsage, statusUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
 ];
 
 /** The package version (src/ and dist/ both sit one folder below package.json). */

@@ -23,14 +23,20 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     const cells = prepareOutput(sweep, false, warn);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
-    if (storedCells(sweep.out, [cell], warn).has(cell.id)) {
-      console.log(`cell ${index} (${cell.id}) is already finished in ${sweep.out}`);
+    const stored = storedCells(sweep.out, [cell], warn).get(cell.id);
+    if (stored?.status === 'done') {
+      console.log(`cell ${index} (${cell.id}) is already done in ${sweep.out}`);
       return EXIT.success;
+    }
+    if (stored?.status === 'failed' && !values['retry-failed']) {
+      console.log(`cell ${index} (${cell.id}) failed before (${stored.reason}); add --retry-failed to run it again`);
+      return EXIT.cellsFailed;
     }
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
     try {
-      storeCell(sweep.out, cell, result, sweep.varyKeys);
+      // A failed cell being retried keeps its record until the new one is stored in its place.
+      storeCell(sweep.out, cell, result, sweep.varyKeys, stored?.status === 'failed');
     } catch (error) {
       const failure = writeFailure(error);
       if (failure == null) throw error;

@@ -2,6 +2,7 @@
 export const EXIT_CODES = {
   0: 'success',
   1: 'invalid input (config, world, arguments); nothing written',
+  2: 'some cells are missing: not run yet, still running, or lost (status)',
   3: 'some cells failed; the rest completed and are stored (run --retry-failed computes them again)',
   4: 'the output folder is busy (another run holds it) or belongs to another experiment or results format; nothing written',
   5: 'a write failed (a full disk, no permission); what was stored is kept',
@@ -15,6 +16,7 @@ export type ExitCode = keyof typeof EXIT_CODES;
 export const EXIT = {
   success: 0,
   invalidInput: 1,
+  cellsMissing: 2,
   cellsFailed: 3,
   outputBusy: 4,
   writeFailed: 5,

@@ -1,5 +1,4 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { clusterCommand } from '../../src/commands/cluster.js';
@@ -7,17 +6,7 @@ import { planCommand } from '../../src/commands/plan.js';
 import { schemaCommand } from '../../src/commands/schema.js';
 import { readCellRecord } from '../../src/results/cell-record.js';
 import { configFolder, spawnWithFake } from '../experiment/helpers.js';
-
-const CONFIG = `name: commands
-world: world.yaml
-seeds: [1, 2]
-learners:
-  - { name: sound-from-sight, objective: predict, input: [sight], target: [sound], train: { epochs: 1 } }
-  - { name: untrained, objective: untrained, input: [sight] }
-vary:
-  learners.*.encoder.hidden: [[8], [16, 8]]
-out: out
-`;
+import { EIGHT_CELLS, FAILURE, plannedIds, storeCells } from './cluster-helpers.js';
 
 function captureLog(): string[] {
   const lines: string[] = [];
@@ -39,7 +28,7 @@ describe('experiment commands', () => {
   });
 
   it('plan lists index, id, learner, seed and vary values, and writes nothing', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const lines = captureLog();
     expect(await planCommand([join(dir, 'config.yaml')])).toBe(0);
     expect(lines[0]).toBe('index  id          learner           seed  learners.*.encoder.hidden');
@@ -50,31 +39,17 @@ describe('experiment commands', () => {
     expect(existsSync(join(dir, 'out'))).toBe(false);
   });
 
-  it('cluster writes one job-array script with one task per cell and a report step', async () => {
-    const dir = configFolder(CONFIG);
-    const out = join(dir, 'cluster-out');
-    captureLog();
-    expect(await clusterCommand([join(dir, 'config.yaml'), '--out', out])).toBe(0);
-    expect(readdirSync(out)).toEqual(['array-job.sh']);
-    const script = readFileSync(join(out, 'array-job.sh'), 'utf8');
-    expect(script).toContain('#SBATCH --array=0-7\n');
-    expect(script).toContain('cell "$CONFIG" --index "$SLURM_ARRAY_TASK_ID" --out "$OUT"');
-    expect(script).toContain('report \\"$OUT\\"');
-    expect(statSync(join(out, 'array-job.sh')).mode & 0o111).not.toBe(0);
-    execFileSync('bash', ['-n', join(out, 'array-job.sh')]); // throws on a syntax error
-  });
-
   it('cluster reports a folder it cannot create in one line and exits 5 (a write failed)', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const errors: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     // config.yaml is a file, so no folder can be made beneath it.
     expect(await clusterCommand([join(dir, 'config.yaml'), '--out', join(dir, 'config.yaml', 'out')])).toBe(5);
-    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out')}: ENOTDIR: not a directory (mkdir)`]);
+    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out', 'cells')}: ENOTDIR: not a directory (mkdir)`]);
   });
 
   it('cluster requires --out', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const errors: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     expect(await clusterCommand([join(dir, 'config.yaml')])).toBe(1);
@@ -82,7 +57,7 @@ describe('experiment commands', () => {
   });
 
   it('cell runs exactly the cell at --index and rejects an index outside the plan', async () => {
-    const dir = configFolder(CONFIG);
+    const dir = configFolder(EIGHT_CELLS);
     const run = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '3']);
     expect(run.code).toBe(0);
     const cells = readdirSync(join(dir, 'out', 'cells'));
@@ -92,5 +67,27 @@ describe('experiment commands', () => {
     const wrong = await spawnWithFake(['cell', join(dir, 'config.yaml'), '--index', '8']);
     expect(wrong.code).toBe(1);
     expect(wrong.stderr.trim()).toBe("crosswise cell: --index: expected a whole number from 0 to 7, got '8'");
+  });
+
+  it('cell leaves a failed cell as it is (exit 3) unless --retry-failed, which computes it again', async () => {
+    const dir = configFolder(EIGHT_CELLS);
+    const [config, out] = [join(dir, 'config.yaml'), join(dir, 'out')];
+    await storeCells(config, out, { failed: [3] });
+    const id = plannedIds(config)[3];
+    const kept = await spawnWithFake(['cell', config, '--index', '3']);
+    expect([kept.code, kept.stdout]).toEqual([3, `cell 3 (${id}) failed before (${FAILURE}); add --retry-failed to run it again\n`]);
+    expect(readCellRecord(out, id).status).toBe('failed');
+    const retried = await spawnWithFake(['cell', config, '--index', '3', '--retry-failed']);
+    expect(retried.code).toBe(0);
+    expect([readCellRecord(out, id).status, readCellRecord(out, id).reason]).toEqual(['done', '']);
+    expect(readdirSync(join(out, 'cells'))).toEqual([id]); // the failed folder is gone, no temporary one left
+  });
+
+  it('cell takes no lock: tasks of one array run at once in one folder, even two on the same cell', async () => {
+    const dir = configFolder(EIGHT_CELLS);
+    const config = join(dir, 'config.yaml');
+    const runs = await Promise.all(['0', '1', '1'].map((index) => spawnWithFake(['cell', config, '--index', index], undefined, { FAKE_EPOCH_MS: '300' })));
+    expect(runs.map((run) => [run.code, run.stderr])).toEqual([[0, ''], [0, ''], [0, '']]);
+    expect(readdirSync(join(dir, 'out', 'cells')).sort()).toEqual(plannedIds(config).slice(0, 2).sort());
   });
 });

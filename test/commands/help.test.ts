@@ -20,6 +20,7 @@ const VERSION = (JSON.parse(readFileSync(new URL('../../package.json', import.me
 const EXIT_CODE_LINES = [
   '  0    success',
   '  1    invalid input (config, world, arguments); nothing written',
+  '  2    some cells are missing: not run yet, still running, or lost (status)',
   '  3    some cells failed; the rest completed and are stored (run --retry-failed',
   '       computes them again)',
   '  4    the output folder is busy (another run holds it) or belongs to another',
@@ -40,7 +41,8 @@ describe('crosswise --help', () => {
       '  run      run every cell of a sweep, then build the report; resumable',
       "  plan     list a sweep's cells; runs and writes nothing",
       '  cell     run one cell of a sweep (one task of a cluster job array)',
-      '  cluster  write a job-array script for a cluster scheduler (Slurm)',
+      '  cluster  write a Slurm job-array script for the cells still missing',
+      '  status   list finished, failed and missing cells, and how to resubmit',
       '  report   rebuild summary.md, comparisons.csv and the plots from stored results',
       '  check    validate config and world files',
       '  sense    every channel and latent at one pose of a world',
@@ -123,7 +125,7 @@ describe('crosswise <command> --help', () => {
       '  crosswise run configs/quickstart.yaml --jobs 2',
       '',
       'exit codes:',
-      ...EXIT_CODE_LINES,
+      ...EXIT_CODE_LINES.filter((line) => !line.startsWith('  2 ')),
     ]);
   });
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { initialExploreState, reduceExplore, stepsToNextSwitch, type ExploreState } from '../../src/tui/explore/explore-state.js';
+import { initialExploreState, reduceExplore, type ExploreState } from '../../src/tui/explore/explore-state.js';
+import { stepsToNextSwitch } from '../../src/world/emitter.js';
 import { BELL_AHEAD, bellRoom, plainRoom } from './worlds.js';
 
 const start = (): ExploreState => initialExploreState([bellRoom(BELL_AHEAD), plainRoom()], 7, true);

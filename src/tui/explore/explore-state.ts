@@ -3,7 +3,7 @@ import type { ChannelNoise } from '../../noise/explore-sample.js';
 import { MAX_SEVERITY } from '../../noise/severity.js';
 import { NOISE_KINDS, type NoiseKind } from '../../noise/spec.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName, type SenseSettings } from '../../senses/channel.js';
-import { emitterIsOn } from '../../world/emitter.js';
+import { stepsToNextSwitch } from '../../world/emitter.js';
 import { step } from '../../world/movement.js';
 import { type Action, type Pose, type Transition, type World } from '../../world/types.js';
 
@@ -102,16 +102,4 @@ function withNoise(state: ExploreState, change: Partial<ChannelNoise>): ExploreS
 function nextKind(channel: ChannelName, kind: NoiseKind): NoiseKind {
   const allowed = NOISE_KINDS.filter((k) => NOISE_CHANNELS[k].includes(channel));
   return allowed[(allowed.indexOf(kind) + 1) % allowed.length];
-}
-
-/**
- * Clock steps until some emitter turns on or off, searched over the longest period; 1
- * when every emitter is steady.
- */
-export function stepsToNextSwitch(world: World, stepIndex: number): number {
-  const longest = Math.max(0, ...world.emitters.map((e) => e.periodSteps));
-  const states = (t: number) => world.emitters.map((e) => emitterIsOn(e, t)).join();
-  const now = states(stepIndex);
-  for (let dt = 1; dt <= longest; dt++) if (states(stepIndex + dt) !== now) return dt;
-  return 1;
 }

@@ -1,18 +1,13 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { hostname, tmpdir } from 'node:os';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { lockOutput } from '../../src/experiment/output-lock.js';
+import { scratchFolders } from '../scratch.js';
 
 describe('the run lock of an output folder', () => {
-  const dirs: string[] = [];
-  afterEach(() => { for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true }); });
-  const folder = () => {
-    const dir = mkdtempSync(join(tmpdir(), 'crosswise-lock-'));
-    dirs.push(dir);
-    return dir;
-  };
+  const folder = scratchFolders('crosswise-lock-');
   const lockFile = (out: string) => join(out, 'run.lock');
   const warnings: string[] = [];
   const warn = (line: string) => warnings.push(line);

@@ -1,18 +1,13 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { hostname, tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { hostname } from 'node:os';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { commitCellFolder, isFinished, moveCellAside, removeLeftovers } from '../../src/results/cell-folder.js';
+import { scratchFolders } from '../scratch.js';
 
 describe('cell folders', () => {
-  const dirs: string[] = [];
-  afterEach(() => { for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true }); });
-  const output = () => {
-    const out = mkdtempSync(join(tmpdir(), 'crosswise-cells-'));
-    dirs.push(out);
-    return out;
-  };
+  const output = scratchFolders('crosswise-cells-');
 
   it('commits every file of a cell at once and leaves no temporary folder', () => {
     const out = output();

@@ -1,12 +1,12 @@
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { cellIdentity, type CellSettings } from '../../src/results/cell-identity.js';
 import {
   armIdentity, experimentConflict, extendExperiment, formatExperimentRecord, readFolderOwner, type ExperimentRecord,
 } from '../../src/results/experiment-record.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
+import { scratchFolders } from '../scratch.js';
 
 // Test data: the settings of invented cells.
 const base: CellSettings = {
@@ -57,13 +57,7 @@ describe('experiment identity', () => {
 });
 
 describe('readFolderOwner', () => {
-  const dirs: string[] = [];
-  afterEach(() => { for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true }); });
-  const folder = () => {
-    const dir = mkdtempSync(join(tmpdir(), 'crosswise-owner-'));
-    dirs.push(dir);
-    return dir;
-  };
+  const folder = scratchFolders('crosswise-owner-');
 
   it('finds no owner in an empty or new folder', () => {
     expect(readFolderOwner(folder())).toEqual({ kind: 'none' });

@@ -1,10 +1,10 @@
-import { mkdtempSync, readFileSync, rmSync, truncateSync, unlinkSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, truncateSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { inspectStoredCell } from '../../src/results/stored-cell.js';
 import { injectFault } from '../faults/fs-faults.js';
 import { testCellId, writeRun, type TestCell } from '../report/stored-cells.js';
+import { scratchFolders } from '../scratch.js';
 
 // Test data: one stored done cell with made-up scores.
 const CELL: TestCell = {
@@ -15,11 +15,9 @@ const CELL: TestCell = {
 const ID = testCellId(CELL);
 
 describe('inspectStoredCell: a stored cell is trusted only when every file it lists verifies', () => {
-  const dirs: string[] = [];
-  afterEach(() => { for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true }); });
+  const folder = scratchFolders('crosswise-inspect-');
   const stored = () => {
-    const out = mkdtempSync(join(tmpdir(), 'crosswise-inspect-'));
-    dirs.push(out);
+    const out = folder();
     writeRun(out, [CELL], { name: 'inspect' });
     return { out, file: (name: string) => join(out, 'cells', ID, name) };
   };

@@ -10,7 +10,7 @@ export const cellUsage = defineCommand({
   operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
   options: {
     index: { kind: 'integer', value: 'I', min: 0, required: true, description: 'which cell, numbered from 0 as crosswise plan lists them' },
-    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out" },
+    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out, else runs/<name> beside the config" },
     'retry-failed': { kind: 'flag', description: 'run the cell again if it failed before' },
   },
   examples: ['crosswise cell configs/quickstart.yaml --index 3 --out runs/quickstart'],

@@ -9,3 +9,6 @@ export function configWorldAndSenses(configPath: string): { readonly worldPath: 
   const { settings } = loadSweep(configPath).combinations[0];
   return { worldPath: settings.worldPath, senses: settings.senses };
 }
+
+/** What to do when a config is given where a world is expected. */
+export const CONFIG_HINT = 'give a config with --config to use its world and senses';

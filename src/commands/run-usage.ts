@@ -10,7 +10,7 @@ export const runUsage = defineCommand({
     + 'The numbers do not depend on --jobs. Ctrl-C lets running cells finish; a second Ctrl-C abandons them.',
   operands: [{ name: 'config', description: 'the sweep config (YAML)' }],
   options: {
-    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out" },
+    out: { kind: 'text', value: 'DIR', description: 'output folder', defaultText: "the config's out, else runs/<name> beside the config" },
     jobs: { kind: 'integer', value: 'N', min: 1, description: 'cells run at once, each on its own worker thread', defaultText: 'the number of cores' },
     plain: { kind: 'flag', description: 'one line per event instead of the live dashboard', defaultText: 'on when stdout is not a terminal' },
     backend: { kind: 'choice', choices: BACKENDS, description: 'TensorFlow.js backend for training', defaultText: "the config's backend" },

@@ -39,6 +39,7 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
   return runAction(runUsage, args, async ({ operands: [config], values }) => {
     const jobs = values.jobs ?? availableParallelism();
     const loaded = loadSweepFrom(config, values.out);
+    const warn = () => loaded.warnings.forEach((warning) => printProblem('run', warning));
     const sweep = values.backend == null ? loaded : { ...loaded, backend: values.backend };
     const controller = new AbortController();
     const abandon = new AbortController();
@@ -53,7 +54,12 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
     const dashboard = useDashboard
       ? (parts.dashboard ?? await terminalDashboard())({ name: sweep.name, total: planCells(sweep).length, subscribe: (l) => { listeners.add(l); return () => listeners.delete(l); }, onStop: stop })
       : undefined;
-    if (dashboard == null) listeners.add(plainLogger((line) => console.log(line)));
+    // Warnings follow the first line (where the sweep writes): right after it in plain mode,
+    // after the dashboard has closed otherwise, so the live screen does not hide them.
+    if (dashboard == null) {
+      const log = plainLogger((line) => console.log(line));
+      listeners.add((event) => { log(event); if (event.type === 'sweep-start') warn(); });
+    }
     process.on('SIGINT', stop);
     process.on('SIGTERM', stop);
     try {
@@ -71,7 +77,10 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         dashboard?.unmount(); // the sweep never started (a busy or foreign output folder): take the screen down before the message
         throw error;
       });
-      await dashboard?.waitUntilExit();
+      if (dashboard != null) {
+        await dashboard.waitUntilExit();
+        warn();
+      }
       if (outcome.writeFailures.length > 0) {
         for (const line of outcome.writeFailures) printProblem('run', line);
         printProblem('run', `no new cells were started after a write failed; free space or fix the folder's permissions, then resume with: ${resumeCommand(config, values.out)}`);

@@ -1,16 +1,16 @@
 import { LATENT_KIND, LATENT_NAMES, type LatentName } from '../collect/dataset.js';
 import { latentClassNames } from '../collect/collector.js';
 import { latentsAt } from '../collect/latents.js';
+import { readWorldFile } from '../experiment/file-kind.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 import { bandCentresHz } from '../senses/mel.js';
 import { CHANNEL_UNITS, channelEntryNames, channelShape } from '../senses/registry.js';
 import { senseAll } from '../senses/sense-all.js';
 import { arrivalTransition } from '../world/arrival.js';
 import { isBlocked } from '../world/movement.js';
-import { loadWorld } from '../world/parse.js';
 import { HEADINGS, type Action, type Heading, type Pose, type World } from '../world/types.js';
 import { runAction } from './command-line.js';
-import { configWorldAndSenses } from './config-senses.js';
+import { CONFIG_HINT, configWorldAndSenses } from './config-senses.js';
 import { EXIT } from './exit-codes.js';
 import { senseUsage } from './sense-usage.js';
 import { UsageError } from './usage.js';
@@ -102,7 +102,7 @@ export async function senseCommand(args: readonly string[]): Promise<number> {
     const { worldPath: path, senses } = values.config == null
       ? { worldPath, senses: DEFAULT_SENSE_SETTINGS }
       : configWorldAndSenses(values.config);
-    const world = loadWorld(path);
+    const world = readWorldFile(path, CONFIG_HINT);
     const pose = parsePose(world, values.at);
     const report = typeof pose === 'string' ? pose : senseReport(world, pose, values.action, values.step, senses);
     if (typeof report === 'string') throw new UsageError(report);

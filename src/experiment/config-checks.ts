@@ -1,29 +1,26 @@
-import { existsSync, statSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { spikingProblems } from '../learn/spiking-checks.js';
 import { noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
+import type { ConfigParts } from './config-parts.js';
+import { encoderSpec } from './resolved-config.js';
 import type { FilledConfig } from './schema.js';
 
 type Learner = FilledConfig['learners'][number];
 
-/** Problems a schema cannot see: cross-references, files on disk, sums and learner consistency. */
-export function checkConfig(config: FilledConfig, configDir: string): ConfigProblem[] {
+/**
+ * Problems a schema cannot see: cross-references, sums and learner consistency (world
+ * files: world-checks.ts). Each check runs on the parts it needs whenever they are valid.
+ */
+export function checkConfig(parts: ConfigParts): ConfigProblem[] {
   return [
-    ...checkWorld(config, configDir),
-    ...checkSeeds(config.seeds),
-    ...checkCollect(config),
-    ...checkSenses(config),
-    ...checkLearnerNames(config.learners),
-    ...config.learners.flatMap((learner, i) => checkLearner(learner, ['learners', i])),
-    ...checkProbe(config),
-    ...noiseProblems(config.noise),
+    ...(parts.seeds == null ? [] : checkSeeds(parts.seeds)),
+    ...(parts.collect == null ? [] : checkCollect(parts.collect)),
+    ...(parts.senses == null ? [] : checkSenses(parts.senses)),
+    ...checkLearnerNames(parts.learnerNames),
+    ...parts.learners.flatMap((learner, i) => (learner == null ? [] : checkLearner(learner, ['learners', i]))),
+    ...(parts.probe == null ? [] : checkProbe(parts.probe, parts.learnerNames)),
+    ...noiseProblems(parts.noise),
   ];
-}
-
-function checkWorld(config: FilledConfig, configDir: string): ConfigProblem[] {
-  const path = resolve(configDir, config.world);
-  if (existsSync(path) && statSync(path).isFile()) return [];
-  return [{ path: ['world'], message: `world file not found: ${path}` }];
 }
 
 function checkSeeds(seeds: readonly number[]): ConfigProblem[] {
@@ -31,7 +28,7 @@ function checkSeeds(seeds: readonly number[]): ConfigProblem[] {
     seeds.indexOf(seed) < i ? [{ path: ['seeds', i], message: `seed ${seed} is listed twice` }] : []);
 }
 
-function checkCollect({ collect }: FilledConfig): ConfigProblem[] {
+function checkCollect(collect: FilledConfig['collect']): ConfigProblem[] {
   const problems: ConfigProblem[] = [];
   const sum = collect.split.train + collect.split.validation + collect.split.test;
   if (Math.abs(sum - 1) > 1e-9) {
@@ -43,16 +40,15 @@ function checkCollect({ collect }: FilledConfig): ConfigProblem[] {
   return problems;
 }
 
-function checkSenses({ senses }: FilledConfig): ConfigProblem[] {
+function checkSenses(senses: FilledConfig['senses']): ConfigProblem[] {
   if (senses.sound.min_hz < senses.sound.max_hz) return [];
   return [{ path: ['senses', 'sound', 'max_hz'], message: `expected more than min_hz (${senses.sound.min_hz}), got ${senses.sound.max_hz}` }];
 }
 
-function checkLearnerNames(learners: readonly Learner[]): ConfigProblem[] {
-  const names = learners.map((learner) => learner.name);
+function checkLearnerNames(names: readonly (string | undefined)[]): ConfigProblem[] {
   return names.flatMap((name, i) => {
     const first = names.indexOf(name);
-    return first < i ? [{ path: ['learners', i, 'name'], message: `duplicate learner name '${name}' (also learners.${first})` }] : [];
+    return name != null && first < i ? [{ path: ['learners', i, 'name'], message: `duplicate learner name '${name}' (also learners.${first})` }] : [];
   });
 }
 
@@ -78,6 +74,10 @@ function checkLearner(learner: Learner, at: readonly (string | number)[]): Confi
   if (learner.objective === 'supervised' && learner.supervised_targets?.length === 0) {
     problem('supervised_targets', 'expected at least 1 item, got an empty list');
   }
+  const encoder = encoderSpec(learner.encoder);
+  if (encoder.kind === 'spiking') {
+    problems.push(...spikingProblems(encoder, learner.rule).map(({ key, message }) => ({ path: [...at, ...key], message })));
+  }
   return problems;
 }
 
@@ -85,10 +85,10 @@ function sameSet(a: readonly string[], b: readonly string[]): boolean {
   return a.length === b.length && a.every((item) => b.includes(item));
 }
 
-function checkProbe({ probe, learners }: FilledConfig): ConfigProblem[] {
-  if (probe.baseline == null) return [];
-  const names = learners.map((learner) => learner.name);
-  if (names.includes(probe.baseline)) return [];
+function checkProbe(probe: FilledConfig['probe'], learnerNames: readonly (string | undefined)[]): ConfigProblem[] {
+  // A learner whose name is not text may be the one meant; its own problem comes first.
+  if (probe.baseline == null || learnerNames.includes(probe.baseline) || learnerNames.includes(undefined)) return [];
+  const names = learnerNames as readonly string[];
   return [{
     path: ['probe', 'baseline'],
     message: `expected the name of a learner (${names.join(', ')}), got '${probe.baseline}'${suggestion(probe.baseline, names)}`,

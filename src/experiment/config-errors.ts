@@ -1,4 +1,3 @@
-import { closest, distance } from 'fastest-levenshtein';
 import { isMap, isPair, isScalar, isSeq, type Document, type LineCounter, type Node } from 'yaml';
 import { oneLine } from '../input-limits.js';
 
@@ -8,6 +7,12 @@ export interface ConfigProblem {
   readonly message: string;
   /** Point at the key itself rather than its value (unknown keys). */
   readonly atKey?: boolean;
+  /** The text offset to point at, when the node at `path` is not the place (the second of two equal keys). */
+  readonly offset?: number;
+  /** A warning rather than an error: the line reads `file:line:col: warning: key: message` and nothing stops. */
+  readonly warning?: boolean;
+  /** Lines printed right after this one, already located elsewhere (the problems of a world file it names). */
+  readonly detail?: readonly string[];
 }
 
 /** A config that cannot be used; `lines` holds one `file:line:col: key: reason` line per problem. */
@@ -27,15 +32,56 @@ export interface ConfigSource {
 
 /** Formats problems as `file:line:col: key.path: message`, in file order. */
 export function formatProblems(source: ConfigSource, problems: readonly ConfigProblem[]): string[] {
+  const data: unknown = source.doc.toJS();
   const located = problems.map((problem) => {
-    const offset = offsetOf(source.doc, problem.path, problem.atKey === true);
+    const offset = problem.offset ?? offsetOf(source.doc, problem.path, problem.atKey === true);
     const { line, col } = source.lineCounter.linePos(offset);
-    const key = problem.path.length === 0 ? '(top level)' : problem.path.join('.');
+    const key = problem.path.length === 0 ? '(top level)' : pathText(problem.path, data);
+    const kind = problem.warning === true ? 'warning: ' : '';
     // One problem, one line, whatever the config held in its keys and values.
-    return { offset, text: oneLine(`${source.file}:${line}:${col}: ${key}: ${problem.message}`) };
+    return { offset, lines: [oneLine(`${source.file}:${line}:${col}: ${kind}${key}: ${problem.message}`), ...problem.detail ?? []] };
   });
   located.sort((a, b) => a.offset - b.offset);
-  return [...new Set(located.map((entry) => entry.text))];
+  const seen = new Set<string>();
+  return located.flatMap(({ lines }) => (seen.has(lines[0]) ? [] : (seen.add(lines[0]), lines)));
+}
+
+/**
+ * A key path as messages show it: dotted, list items by their 0-based index (as `vary`
+ * paths count them) followed by the item's name when it has one:
+ * `learners.0 (sound-from-sight).encoder.hidden`.
+ */
+export function pathText(path: readonly (string | number)[], data: unknown): string {
+  let node = data;
+  return path.map((segment) => {
+    const item = node != null && typeof node === 'object' ? (node as Record<string | number, unknown>)[segment] : undefined;
+    const name = Array.isArray(node) && item != null && typeof item === 'object' ? (item as { name?: unknown }).name : undefined;
+    node = item;
+    return typeof name === 'string' ? `${segment} (${name})` : String(segment);
+  }).join('.');
+}
+
+/** Each key written twice in one mapping, at its second place (YAML 1.2 §3.2.1.1: keys are unique). */
+export function duplicateKeys(source: ConfigSource): ConfigProblem[] {
+  const problems: ConfigProblem[] = [];
+  const visit = (node: unknown, path: readonly (string | number)[]): void => {
+    if (isSeq(node)) node.items.forEach((item, i) => visit(item, [...path, i]));
+    if (!isMap(node)) return;
+    const first = new Map<string, number>();
+    for (const pair of node.items) {
+      if (!isPair(pair) || !isScalar(pair.key)) continue;
+      const key = String(pair.key.value);
+      const offset = rangeStart(pair.key) ?? 0;
+      const earlier = first.get(key);
+      if (key !== '<<' && earlier != null) {
+        const { line, col } = source.lineCounter.linePos(earlier);
+        problems.push({ path: [...path, key], offset, message: `the key is written twice (first at line ${line}, column ${col}); keep one` });
+      } else first.set(key, offset);
+      visit(pair.value, key === '<<' ? path : [...path, key]);
+    }
+  };
+  visit(source.doc.contents, []);
+  return problems;
 }
 
 /** Text offset of the node at `path`, or of its deepest existing ancestor (keys brought in by `<<` merges have none of their own). */
@@ -62,12 +108,4 @@ function rangeStart(node: unknown): number | undefined {
   return (node as Node | null)?.range?.[0];
 }
 
-/** ` (did you mean 'x'?)` for the nearest of `options`, or nothing when none is close. */
-export function suggestion(word: string, options: readonly string[]): string {
-  if (options.length === 0) return '';
-  const nearest = closest(word, [...options]);
-  const limit = Math.max(2, Math.floor(word.length / 3));
-  // Only suggest a word that is plausibly a misspelling of the nearest option.
-  const edits = distance(word, nearest);
-  return edits <= limit && edits < word.length ? ` (did you mean '${nearest}'?)` : '';
-}
+export { suggestion } from '../world/spelling.js';

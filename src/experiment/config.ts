@@ -3,11 +3,16 @@ import { dirname, resolve } from 'node:path';
 import { isAlias, isMap, isScalar, isSeq, LineCounter, parseDocument, visit } from 'yaml';
 import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, formatProblems, suggestion, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { configParts } from './config-parts.js';
+import { constantTargetWarnings } from './constant-targets.js';
 import { DEFAULTS } from './defaults.js';
+import { wrongKind } from './file-kind.js';
 import { resolveSettings, type Sweep } from './resolved-config.js';
 import { configSchema, type FilledConfig } from './schema.js';
+import { varyProblems } from './vary-checks.js';
 import { cartesian, matchVaryPath, varyText, withValues } from './vary.js';
+import { checkNamedWorlds } from './world-checks.js';
 import { problemsFromIssues } from './zod-problems.js';
 
 /** Where the results go when neither the config nor the command line says. */
@@ -26,18 +31,22 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const parsed = configSchema.safeParse(plainData(source), { reportInput: true });
-  if (!parsed.success) fail(problemsFromIssues(configSchema, parsed.error.issues));
-  const filled = parsed.data as FilledConfig;
-  fail(sweepSizeProblems(filled));
-  fail(checkConfig(filled, configDir));
+  const raw = plainData(source);
+  fail(sweepSizeProblems(raw));
+  const parts = configParts(raw);
+  const named = checkNamedWorlds(parts.merged, configDir);
+  fail([
+    ...duplicateKeys(source),
+    ...configProblems(raw),
+    ...named.problems,
+    ...varyProblems(parts, configProblems),
+  ]);
+  const filled = configSchema.parse(raw);
   const varyKeys = Object.keys(filled.vary);
   const matches = varyKeys.map((key) => matchVaryPath(filled, key));
-  fail(varyKeys.flatMap((key, i) => checkVaryKey(filled, configDir, key, matches[i])));
-
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
-    const problems = validate(config, configDir);
+    const problems = configProblems(config);
     if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
@@ -53,24 +62,29 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
     varyKeys,
     combinations,
     filled,
+    warnings: formatProblems(source, locatedAtWorld(source, constantTargetWarnings(combinations, named.worlds))),
   };
+}
+
+/** Every problem of a config file as `path:line:col: key: reason` (empty when it is valid), and its warnings when it is. */
+export function inspectConfigFile(path: string): { readonly problems: readonly string[]; readonly warnings: readonly string[] } {
+  try {
+    return { problems: [], warnings: loadSweep(path).warnings };
+  } catch (error) {
+    if (error instanceof ConfigError) return { problems: error.lines, warnings: [] };
+    throw error;
+  }
 }
 
 /** Every problem of a config file as `path:line:col: key: reason`; empty when it is valid. */
 export function checkConfigFile(path: string): string[] {
-  try {
-    loadSweep(path);
-    return [];
-  } catch (error) {
-    if (error instanceof ConfigError) return [...error.lines];
-    throw error;
-  }
+  return [...inspectConfigFile(path).problems];
 }
 
 function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions): string {
   if (options.out != null) return resolve(options.out);
   if (filled.out != null) return resolve(configDir, filled.out);
-  return resolve(DEFAULTS.outRoot, filled.name);
+  return resolve(configDir, DEFAULTS.outRoot, filled.name);
 }
 
 function parseSource(file: string): ConfigSource {
@@ -84,13 +98,16 @@ function parseSource(file: string): ConfigSource {
   }
   const tooDeep = yamlNestingProblem(text, file);
   if (tooDeep != null) throw new ConfigError([tooDeep]);
+  const wrong = wrongKind(text, file, 'config');
+  if (wrong != null) throw new ConfigError([wrong]);
   const lineCounter = new LineCounter();
+  // Duplicate keys are found by duplicateKeys, with their key path, among the other problems;
   // logLevel 'error': a collection used as a key is reported as an unknown key, not as a Node warning on stderr.
-  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, logLevel: 'error' });
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, uniqueKeys: false, logLevel: 'error' });
   if (doc.errors.length > 0) {
     throw new ConfigError(doc.errors.map((error) => {
       const { line, col } = lineCounter.linePos(error.pos[0]);
-      return `${file}:${line}:${col}: (YAML): ${error.message.split('\n')[0]}`;
+      return `${file}:${line}:${col}: YAML syntax: ${error.message.split('\n')[0]}`;
     }));
   }
   return { file, doc, lineCounter };
@@ -150,51 +167,37 @@ function badMergeOffset(doc: ConfigSource['doc']): number | undefined {
   return found;
 }
 
-/** A sweep of more cells than INPUT_LIMITS.sweepCells, counted before anything is expanded. */
-function sweepSizeProblems(filled: FilledConfig): ConfigProblem[] {
-  const combinations = Object.values(filled.vary).reduce((n, values) => n * Math.max(1, values.length), 1);
-  const cells = combinations * filled.seeds.length * filled.learners.length;
+/**
+ * A sweep of more cells than INPUT_LIMITS.sweepCells, counted from the raw config before
+ * anything is checked value by value or expanded (lists the schema will refuse count as
+ * one, so the count never exceeds what a valid config of the same lists would give).
+ */
+function sweepSizeProblems(raw: unknown): ConfigProblem[] {
+  const section = (key: string): unknown => (raw != null && typeof raw === 'object' ? (raw as Record<string, unknown>)[key] : undefined);
+  const length = (list: unknown) => (Array.isArray(list) ? Math.max(1, list.length) : 1);
+  const vary = section('vary');
+  const lists = vary != null && typeof vary === 'object' && !Array.isArray(vary) ? Object.values(vary) : [];
+  const combinations = lists.reduce<number>((n, values) => n * length(values), 1);
+  const [seeds, learners] = [length(section('seeds')), length(section('learners'))];
+  const cells = combinations * seeds * learners;
   if (cells <= INPUT_LIMITS.sweepCells) return [];
   const counted = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
-  const factors = [counted(combinations, 'vary combination'), counted(filled.seeds.length, 'seed'), counted(filled.learners.length, 'learner')].join(' × ');
+  const factors = [counted(combinations, 'vary combination'), counted(seeds, 'seed'), counted(learners, 'learner')].join(' × ');
   return [{
-    path: [Object.keys(filled.vary).length > 0 ? 'vary' : 'seeds'], atKey: true,
+    path: [lists.length > 0 ? 'vary' : 'seeds'], atKey: true,
     message: `the sweep has ${cells} cells (${factors}); at most ${INPUT_LIMITS.sweepCells} are run from one config (see "Limits" in the README): split it into several configs`,
   }];
 }
 
-function validate(config: FilledConfig, configDir: string): ConfigProblem[] {
+/** Warnings about default probe targets point at the world they cannot vary in, as the file has no targets to point at. */
+function locatedAtWorld(source: ConfigSource, warnings: readonly ConfigProblem[]): ConfigProblem[] {
+  const world = source.doc.getIn(['world'], true) as { range?: [number] } | undefined;
+  if (source.doc.hasIn(['probe', 'targets']) || world?.range == null) return [...warnings];
+  return warnings.map((warning) => ({ ...warning, offset: world.range?.[0] }));
+}
+
+/** Every problem of the schema and of the checks beyond it, each check run on whatever parts of the config are valid. */
+function configProblems(config: unknown): ConfigProblem[] {
   const parsed = configSchema.safeParse(config, { reportInput: true });
-  if (!parsed.success) return problemsFromIssues(configSchema, parsed.error.issues);
-  return checkConfig(parsed.data, configDir);
-}
-
-function checkVaryKey(filled: FilledConfig, configDir: string, key: string, paths: readonly (readonly (string | number)[])[]): ConfigProblem[] {
-  const at = ['vary', key];
-  if (paths.length === 0) {
-    return [{ path: at, atKey: true, message: `matches no setting${suggestion(key, settablePaths(filled))}` }];
-  }
-  const values = filled.vary[key];
-  const texts = values.map(varyText);
-  return values.flatMap((value, i) => {
-    if (texts.indexOf(texts[i]) < i) return [{ path: [...at, i], message: `value ${texts[i]} is listed twice` }];
-    const problems = validate(withValues(filled, [{ paths, value }]), configDir);
-    return problems.length === 0 ? [] : [{ path: [...at, i], message: `value ${texts[i]} is invalid: ${problems[0].path.join('.')}: ${problems[0].message}` }];
-  });
-}
-
-/** Dotted paths of every setting a vary key could name, for suggestions. */
-function settablePaths(filled: FilledConfig): string[] {
-  const flatten = (node: unknown, prefix: string): string[] => {
-    if (node == null || typeof node !== 'object' || Array.isArray(node)) return [prefix];
-    return Object.entries(node).flatMap(([key, value]) => flatten(value, `${prefix}.${key}`));
-  };
-  return [
-    'world',
-    ...flatten(filled.collect, 'collect'),
-    ...flatten(filled.senses, 'senses'),
-    ...filled.learners.flatMap((learner) => flatten(learner, 'learners.*')),
-    ...flatten(filled.probe, 'probe'),
-    ...filled.noise.flatMap((entry) => flatten(entry, 'noise.*')),
-  ];
+  return [...(parsed.success ? [] : problemsFromIssues(configSchema, parsed.error.issues)), ...checkConfig(configParts(config))];
 }

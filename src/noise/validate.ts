@@ -34,13 +34,14 @@ const yamlNumber = (p: number): string => (p === Infinity ? '.inf' : p === -Infi
  * whole numbers ≥ 0, severities beyond the table without explicit parameters, a parameter
  * list whose length differs from the severities', a parameter outside its kind's range or
  * other than the clean value at severity 0, and two entries with the same channel and kind
- * (they would share result rows and noise draws). Empty when the list is valid.
+ * (they would share result rows and noise draws). Empty when the list is valid. An
+ * undefined entry (one its caller found malformed) is skipped but keeps its index.
  */
-export function noiseProblems(entries: readonly NoiseEntry[]): NoiseProblem[] {
-  const problems = entries.flatMap((entry, i) => entryProblems(entry, ['noise', i]));
+export function noiseProblems(entries: readonly (NoiseEntry | undefined)[]): NoiseProblem[] {
+  const problems = entries.flatMap((entry, i) => (entry == null ? [] : entryProblems(entry, ['noise', i])));
   entries.forEach((entry, i) => {
-    const first = entries.findIndex((other) => other.channel === entry.channel && other.kind === entry.kind);
-    if (first < i) {
+    const first = entries.findIndex((other) => other?.channel === entry?.channel && other?.kind === entry?.kind);
+    if (entry != null && first < i) {
       problems.push({
         path: ['noise', i],
         message: `${entry.channel} ${entry.kind} is already noise.${first}; entries with the same channel and kind would share result rows and noise draws`,

@@ -1,5 +1,5 @@
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
-import { dirname } from 'node:path';
+import { dirname, join } from 'node:path';
 import { partialName, removeQuietly } from './partial-files.js';
 
 /**
@@ -12,6 +12,23 @@ export function writeFileAtomic(path: string, content: string | Uint8Array): voi
   try {
     writeFileSync(temporary, content);
     renameSync(temporary, path);
+  } catch (error) {
+    removeQuietly(temporary);
+    throw error;
+  }
+}
+
+/**
+ * Writes a folder of files so it appears whole or not at all: the files go into
+ * `temporary` (a sibling of `target` on the same file system), which is then renamed to
+ * `target`. The rename fails when `target` already exists with files in it; the
+ * temporary folder is removed on any failure, and the error is rethrown.
+ */
+export function writeFolderAtomic(target: string, temporary: string, files: Readonly<Record<string, string | Uint8Array>>): void {
+  try {
+    mkdirSync(temporary, { recursive: true });
+    for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
+    renameSync(temporary, target);
   } catch (error) {
     removeQuietly(temporary);
     throw error;

@@ -1,5 +1,6 @@
-import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, renameSync } from 'node:fs';
 import { join } from 'node:path';
+import { writeFolderAtomic } from './atomic-file.js';
 import { fileManifest, formatCellRecord, type CellRecord } from './cell-record.js';
 import { cellDir, CELL_FILES, cellPath, outputPath } from './layout.js';
 import { partialName, removeQuietly, removeStalePartials } from './partial-files.js';
@@ -38,20 +39,24 @@ export function commitCellFolder(
   out: string, id: string, files: Readonly<Record<string, string | Uint8Array>>, replace: () => boolean = () => false,
 ): void {
   const target = cellDir(out, id);
-  const temporary = join(outputPath(out, 'cells'), partialName(''));
+  const cells = outputPath(out, 'cells');
+  const temporary = join(cells, partialName(''));
   try {
-    mkdirSync(temporary, { recursive: true });
-    for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
     if (existsSync(target) && replace()) {
-      const old = join(outputPath(out, 'cells'), partialName(''));
+      const old = join(cells, partialName(''));
       renameSync(target, old);
-      renameSync(temporary, target);
-      rmSync(old, { recursive: true, force: true });
+      try {
+        writeFolderAtomic(target, temporary, files);
+      } catch (error) {
+        renameSync(old, target); // the stored record stays until a new one can take its place
+        throw error;
+      }
+      removeQuietly(old);
       return;
     }
-    renameSync(temporary, target);
+    writeFolderAtomic(target, temporary, files);
   } catch (error) {
-    removeQuietly(temporary);
+    // Another process finished the same cell first; its copy holds the same numbers.
     if (!isFinished(out, id)) throw error;
   }
 }

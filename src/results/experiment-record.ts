@@ -74,7 +74,7 @@ export function readFolderOwner(out: string): FolderOwner {
   return { kind: 'experiment', record: parsed.data };
 }
 
-/** Output folders of format 1 had a plan.csv or cells but no experiment.json. */
+/** Output folders of formats before experiment.json had a plan.csv or cells but no experiment.json. */
 function olderThanExperimentJson(out: string): boolean {
   if (existsSync(outputPath(out, 'plan'))) return true;
   const cells = outputPath(out, 'cells');
@@ -83,7 +83,7 @@ function olderThanExperimentJson(out: string): boolean {
 
 /** Why a folder of another results format is not read, and how to recompute its cells. */
 export function otherFormatMessage(out: string, version: number | null): string {
-  const written = version == null ? 'an older crosswise (results format 1)' : `results format ${version}`;
+  const written = version == null ? `an older crosswise (a results format before ${RESULTS_FORMAT_VERSION})` : `results format ${version}`;
   return `${out} was written by ${written}; this crosswise reads format ${RESULTS_FORMAT_VERSION} and does not reuse those cells. `
     + 'To recompute them, run the config again with --out <new folder>';
 }

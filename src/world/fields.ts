@@ -1,49 +1,66 @@
-import { closest } from 'fastest-levenshtein';
 import { isAlias, isMap, isScalar, isSeq, type Node as YamlNode, type YAMLMap } from 'yaml';
 import type { Problems } from './problems.js';
+import { suggestion } from './spelling.js';
+
+/** The key path of `key` inside the mapping at `at` ('' for the top level): `materials.1 (boards).colour`. */
+export function keyPath(at: string, key: string | number): string {
+  return at === '' ? String(key) : `${at}.${key}`;
+}
+
+/**
+ * The label of a list item: its 0-based index, and its name when it has one
+ * (`materials.2 (moss)`), as config paths count list items.
+ */
+export function itemPath(list: string, index: number, node: YamlNode): string {
+  const name = isMap(node) ? node.get('name') : undefined;
+  return typeof name === 'string' && name.trim() !== '' ? `${list}.${index} (${name})` : `${list}.${index}`;
+}
 
 /** The value nodes of a YAML mapping by key, after unknown and missing keys are reported. */
 export interface Fields {
   /** The node the mapping came from, for problems about the whole mapping. */
   readonly node: YamlNode;
-  /** What the mapping is, for messages: "material 'boards'", "the world". */
-  readonly label: string;
+  /** The mapping's key path, '' at the top level: "materials.1 (boards)", "start". */
+  readonly at: string;
   readonly values: ReadonlyMap<string, YamlNode>;
 }
 
 /** Reads a mapping's keys, reporting unknown keys (with the nearest valid one) and missing required keys. */
 export function readFields(
-  node: YamlNode | null | undefined, label: string, allowed: readonly string[],
+  node: YamlNode | null | undefined, at: string, allowed: readonly string[],
   required: readonly string[], problems: Problems,
 ): Fields | null {
   if (node == null || !isMap(node)) {
-    problems.report(node, `${label} must be a mapping of keys to values`);
+    problems.report(node, `${at === '' ? '(top level)' : at}: expected a mapping of keys to values`);
     return null;
   }
   const values = new Map<string, YamlNode>();
-  const present = new Set<string>();
+  const firstAt = new Map<string, YamlNode>();
   for (const pair of (node as YAMLMap<YamlNode, YamlNode>).items) {
     const keyNode = pair.key;
     const key = isScalar(keyNode) ? String(keyNode.value) : '';
-    if (allowed.includes(key)) present.add(key);
+    const path = keyPath(at, key);
     if (key === '<<') {
-      problems.report(keyNode, `merge keys ('<<') are not read in world files; write the keys of ${label} out`);
+      problems.report(keyNode, `${path}: merge keys are not read in world files; write the keys out`);
     } else if (!allowed.includes(key)) {
-      problems.report(keyNode, `unknown key '${key}' in ${label}; did you mean '${closest(key, allowed)}'?`);
-    } else if (isAlias(pair.value)) {
-      problems.report(pair.value, `'${key}' in ${label} is a YAML alias; world files do not read aliases, so write the value out`);
-    } else if (values.has(key)) {
-      problems.report(keyNode, `key '${key}' appears twice in ${label}`);
-    } else if (pair.value == null || (isScalar(pair.value) && pair.value.value == null)) {
-      problems.report(keyNode, `'${key}' in ${label} has no value`);
+      problems.report(keyNode, `${path}: unknown key${suggestion(key, allowed)}; expected one of ${allowed.join(', ')}`);
+    } else if (firstAt.has(key)) {
+      problems.report(keyNode, `${path}: the key is written twice (first at ${problems.lineAndColumn(firstAt.get(key))}); keep one`);
     } else {
-      values.set(key, pair.value);
+      firstAt.set(key, keyNode);
+      if (isAlias(pair.value)) {
+        problems.report(pair.value, `${path}: a YAML alias; world files do not read aliases, so write the value out`);
+      } else if (pair.value == null || (isScalar(pair.value) && pair.value.value == null)) {
+        problems.report(keyNode, `${path}: has no value`);
+      } else {
+        values.set(key, pair.value);
+      }
     }
   }
   for (const key of required) {
-    if (!present.has(key)) problems.report(node, `missing key '${key}' in ${label}`);
+    if (!firstAt.has(key)) problems.report(node, `${keyPath(at, key)}: required, missing from ${at === '' ? 'the world' : at}`);
   }
-  return { node, label, values };
+  return { node, at, values };
 }
 
 /** Bounds for a number; `above` is exclusive, `min`/`max` inclusive. */
@@ -67,21 +84,24 @@ function breaks(value: number, rule: NumberRule): boolean {
     || (rule.max != null && value > rule.max);
 }
 
+/**
+ * How a node's value reads in a message: `1.3`, `"##"`, `a list`. A number that is not
+ * finite keeps its spelling (`.nan`, `1e400`), where JSON would print null.
+ */
+function shown(node: YamlNode): string {
+  if (isScalar(node) && typeof node.value === 'number' && !Number.isFinite(node.value)) return `${node.source ?? String(node.value)} (not a finite number)`;
+  if (isScalar(node)) return JSON.stringify(node.value);
+  return isSeq(node) ? 'a list' : 'a mapping';
+}
+
 /** Checks one scalar node as a number; reports and returns null when it is not one in range. */
-export function numberAt(node: YamlNode, what: string, rule: NumberRule, problems: Problems): number | null {
+export function numberAt(node: YamlNode, path: string, rule: NumberRule, problems: Problems): number | null {
   const value = isScalar(node) ? node.value : undefined;
   if (typeof value !== 'number' || breaks(value, rule)) {
-    problems.report(node, `${what} must be ${describeRule(rule)}, got ${shownValue(node)}`);
+    problems.report(node, `${path}: expected ${describeRule(rule)}, got ${shown(node)}`);
     return null;
   }
   return value;
-}
-
-/** A value as a message shows it: JSON, except numbers that are not finite (JSON would say null), which keep their spelling. */
-function shownValue(node: YamlNode): string {
-  if (!isScalar(node)) return 'a list or mapping';
-  if (typeof node.value === 'number' && !Number.isFinite(node.value)) return `${node.source ?? String(node.value)} (not a finite number)`;
-  return JSON.stringify(node.value);
 }
 
 /** A required or optional number field; the default is used when the key is absent. */
@@ -90,7 +110,7 @@ export function numberField(
 ): number | null {
   const node = fields.values.get(key);
   if (node == null) return fallback ?? null;
-  return numberAt(node, `'${key}' in ${fields.label}`, rule, problems);
+  return numberAt(node, keyPath(fields.at, key), rule, problems);
 }
 
 /**
@@ -103,18 +123,19 @@ export function stringField(
 ): string | null {
   const node = fields.values.get(key);
   if (node == null) return options.fallback ?? null;
+  const path = keyPath(fields.at, key);
   const value = isScalar(node) ? node.value : undefined;
   if (typeof value !== 'string' && typeof value !== 'number') {
-    problems.report(node, `'${key}' in ${fields.label} must be text`);
+    problems.report(node, `${path}: expected text, got ${shown(node)}`);
     return null;
   }
   const text = String(value);
   if (options.oneChar === true && !isNarrowGlyph(text)) {
-    problems.report(node, `'${key}' in ${fields.label} must be one single-width visible character (emoji and other wide characters are not allowed), got ${JSON.stringify(text)}`);
+    problems.report(node, `${path}: expected one single-width visible character (emoji and other wide characters are not allowed), got ${JSON.stringify(text)}`);
     return null;
   }
   if (options.oneChar !== true && text.trim() === '') {
-    problems.report(node, `'${key}' in ${fields.label} must not be empty`);
+    problems.report(node, `${path}: expected text, got an empty string`);
     return null;
   }
   return text;
@@ -141,7 +162,7 @@ export function booleanField(fields: Fields, key: string, problems: Problems, fa
   const node = fields.values.get(key);
   if (node == null) return fallback;
   if (isScalar(node) && typeof node.value === 'boolean') return node.value;
-  problems.report(node, `'${key}' in ${fields.label} must be true or false`);
+  problems.report(node, `${keyPath(fields.at, key)}: expected true or false, got ${shown(node)}`);
   return fallback;
 }
 
@@ -151,12 +172,13 @@ export function vectorField(
 ): number[] | null {
   const node = fields.values.get(key);
   if (node == null) return null;
+  const path = keyPath(fields.at, key);
   if (!isSeq(node) || node.items.length !== length) {
-    problems.report(node, `'${key}' in ${fields.label} must be a list of ${length} numbers`);
+    const got = isSeq(node) ? `${node.items.length} item${node.items.length === 1 ? '' : 's'}` : shown(node);
+    problems.report(node, `${path}: expected a list of ${length} numbers, got ${got}`);
     return null;
   }
-  const values = (node.items as YamlNode[]).map((item, i) =>
-    numberAt(item, `'${key}'[${i}] in ${fields.label}`, rule, problems));
+  const values = (node.items as YamlNode[]).map((item, i) => numberAt(item, keyPath(path, i), rule, problems));
   return values.every((v): v is number => v != null) ? values : null;
 }
 
@@ -165,7 +187,7 @@ export function listField(fields: Fields, key: string, problems: Problems): Yaml
   const node = fields.values.get(key);
   if (node == null) return null;
   if (!isSeq(node)) {
-    problems.report(node, `'${key}' in ${fields.label} must be a list`);
+    problems.report(node, `${keyPath(fields.at, key)}: expected a list, got ${shown(node)}`);
     return null;
   }
   return node.items as YamlNode[];

@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
-import { closest } from 'fastest-levenshtein';
 import { LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
 import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
-import { listField, numberField, readFields, stringField, type Fields } from './fields.js';
-import { readMap, type MapGrid } from './map-text.js';
-import { readEmitter, readMaterial, readStart, type EmitterEntry, type MaterialEntry, type StartEntry } from './parts.js';
+import { itemPath, listField, numberField, readFields, stringField, type Fields } from './fields.js';
+import { readMap, type MapGrid, type MapLegend } from './map-text.js';
+import { paletteItem, readEmitter, readMaterial, readStart, type EmitterEntry, type PaletteItem, type StartEntry } from './parts.js';
 import { createProblems, WorldFileError, type Problems } from './problems.js';
-import type { Emitter, World } from './types.js';
+import { suggestion } from './spelling.js';
+import type { Emitter, Material, World } from './types.js';
 
 /** Values used when a world file leaves an optional key out. */
 export const WORLD_DEFAULTS = {
@@ -15,7 +15,8 @@ export const WORLD_DEFAULTS = {
   wallLossDb: 25, // a light partition wall, dB per solid cell (common practice)
 } as const;
 
-const WORLD_KEYS = [
+/** The top-level keys of a world file. */
+export const WORLD_KEYS: readonly string[] = [
   'name', 'description', 'cell_size_m', 'ambient_db', 'wall_loss_db', 'materials', 'emitters', 'start', 'map',
 ];
 const REQUIRED_KEYS = ['name', 'cell_size_m', 'materials', 'emitters', 'map'];
@@ -23,57 +24,61 @@ const REQUIRED_KEYS = ['name', 'cell_size_m', 'materials', 'emitters', 'map'];
 const MAX_MATERIALS = 255;
 const MAX_EMITTERS = 64;
 
-function readList<T>(
-  nodes: readonly YamlNode[] | null, read: (node: YamlNode, i: number, p: Problems) => T | null, problems: Problems,
-): T[] | null {
-  if (nodes == null) return null;
-  const entries = nodes.map((node, i) => read(node, i, problems));
-  return entries.every((e): e is T => e != null) ? entries : null;
-}
-
 /** Glyphs and names must be unique across materials and emitters together. */
-function checkUnique(materials: readonly MaterialEntry[], emitters: readonly EmitterEntry[], problems: Problems): void {
-  const all = [
-    ...materials.map((m) => ({ what: `material '${m.material.name}'`, name: m.material.name, glyph: m.material.glyph, ...m })),
-    ...emitters.map((e) => ({ what: `emitter '${e.name}'`, ...e })),
-  ];
-  const glyphs = new Map<string, (typeof all)[number]>();
-  const names = new Map<string, (typeof all)[number]>();
-  for (const entry of all) {
-    const glyphOwner = glyphs.get(entry.glyph);
-    if (glyphOwner != null) {
-      problems.report(entry.glyphNode, `duplicate glyph '${entry.glyph}': already used by ${glyphOwner.what} at ${problems.where(glyphOwner.glyphNode)}`);
-    } else glyphs.set(entry.glyph, entry);
-    const nameOwner = names.get(entry.name);
-    if (nameOwner != null) {
-      problems.report(entry.nameNode, `duplicate name '${entry.name}': already used by the ${nameOwner.what.split(' ')[0]} at ${problems.where(nameOwner.nameNode)}`);
-    } else names.set(entry.name, entry);
+function checkUnique(items: readonly PaletteItem[], problems: Problems): void {
+  for (const key of ['glyph', 'name'] as const) {
+    const owners = new Map<string, PaletteItem>();
+    for (const item of items) {
+      const value = item[key];
+      if (value == null) continue;
+      const owner = owners.get(value);
+      if (owner == null) owners.set(value, item);
+      else problems.report(item.nodes.get(key), `${item.path}.${key}: duplicate ${key} '${value}': already used by ${owner.path} at ${problems.where(owner.nodes.get(key))}`);
+    }
   }
 }
 
-/** The material index each emitter stands on, or null after reporting unknown or solid floors. */
-function resolveFloors(materials: readonly MaterialEntry[], emitters: readonly EmitterEntry[], problems: Problems): number[] | null {
-  const names = materials.map((m) => m.material.name);
-  const floors = emitters.map((e) => {
+/**
+ * The material index under each emitter (null where unknown), after reporting emitters on an
+ * unknown or solid material. Unknown is only said when every material's name could be read.
+ */
+function resolveFloors(materials: readonly PaletteItem[], emitters: readonly PaletteItem[], problems: Problems): (number | null)[] {
+  const names = materials.map((m) => m.name);
+  const allNamed = names.every((name) => name != null);
+  return emitters.map((e) => {
+    if (e.on == null) return null;
     const index = names.indexOf(e.on);
     if (index < 0) {
-      problems.report(e.onNode, `emitter '${e.name}' is on unknown material '${e.on}'; did you mean '${closest(e.on, names)}'?`);
-    } else if (materials[index].material.solid) {
-      problems.report(e.onNode, `emitter '${e.name}' is on solid material '${e.on}'; it must stand on a floor`);
+      if (allNamed) problems.report(e.nodes.get('on'), `${e.path}.on: unknown material '${e.on}'${suggestion(e.on, names as string[])}`);
       return null;
     }
-    return index < 0 ? null : index;
+    if (materials[index].solid === true) {
+      problems.report(e.nodes.get('on'), `${e.path}.on: material '${e.on}' is solid; an emitter stands on a floor`);
+      return null;
+    }
+    return index;
   });
-  return floors.every((f): f is number => f != null) ? floors : null;
+}
+
+/** The map's legend, when every glyph and solid flag is readable and the glyphs are distinct; else null (the map cannot be read). */
+function mapLegend(materials: readonly PaletteItem[], emitters: readonly PaletteItem[], floors: readonly (number | null)[]): MapLegend | null {
+  const items = [...materials, ...emitters];
+  const glyphs = items.map((item) => item.glyph);
+  if (items.some((item) => item.glyph == null || item.solid == null) || new Set(glyphs).size < glyphs.length) return null;
+  return {
+    materials: materials.map((m) => ({ glyph: m.glyph as string, solid: m.solid as boolean })),
+    emitters: emitters.map((e) => ({ path: e.path, name: e.name ?? e.path, glyph: e.glyph as string, solid: e.solid as boolean, glyphNode: e.nodes.get('glyph') as YamlNode })),
+    onMaterial: floors.map((floor) => floor ?? 0),
+  };
 }
 
 function checkStart(start: StartEntry, grid: MapGrid, problems: Problems): boolean {
   if (start.x >= grid.width || start.y >= grid.height) {
-    problems.report(start.node, `start x=${start.x}, y=${start.y} is outside the ${grid.width}×${grid.height} map`);
+    problems.report(start.node, `start: x=${start.x}, y=${start.y} is outside the ${grid.width}×${grid.height} map`);
     return false;
   }
   if (grid.solid[start.y * grid.width + start.x] === 1) {
-    problems.report(start.node, `start x=${start.x}, y=${start.y} is on a solid cell`);
+    problems.report(start.node, `start: x=${start.x}, y=${start.y} is on a solid cell`);
     return false;
   }
   return true;
@@ -98,33 +103,44 @@ function readHeader(fields: Fields, problems: Problems): Header | null {
   return { name, description, cellSizeM, ambientDb, wallLossDb };
 }
 
+/** Materials and emitters as read, each null where invalid, and the map's legend when the glyphs can be read. */
 interface Palette {
-  readonly materials: MaterialEntry[];
-  readonly emitters: EmitterEntry[];
-  /** Material index under each emitter. */
-  readonly floors: number[];
+  readonly materials: readonly (Material | null)[];
+  readonly emitters: readonly (EmitterEntry | null)[];
+  /** Material index under each emitter, null where unknown. */
+  readonly floors: readonly (number | null)[];
+  readonly legend: MapLegend | null;
 }
 
-/** Materials and emitters, checked one by one and then against each other. */
-function readPalette(fields: Fields, problems: Problems): Palette | null {
-  const materials = readList(listField(fields, 'materials', problems), readMaterial, problems);
-  const emitters = readList(listField(fields, 'emitters', problems), readEmitter, problems);
-  if (materials != null && (materials.length === 0 || materials.length > MAX_MATERIALS)) {
-    problems.report(fields.values.get('materials'), `'materials' must list 1 to ${MAX_MATERIALS} materials`);
-  }
-  if (emitters != null && (emitters.length === 0 || emitters.length > MAX_EMITTERS)) {
-    problems.report(fields.values.get('emitters'), `'emitters' must list 1 to ${MAX_EMITTERS} emitters (sound and the nearest-emitter targets need one)`);
-  }
-  if (materials == null || emitters == null || problems.list.length > 0) return null;
-  checkUnique(materials, emitters, problems);
-  const floors = resolveFloors(materials, emitters, problems);
-  return floors == null || problems.list.length > 0 ? null : { materials, emitters, floors };
+/**
+ * Materials and emitters, each checked on its own and then against each other: a problem
+ * in one item (a misspelt key, a value out of range) does not hide a problem between items.
+ */
+function readPalette(fields: Fields, problems: Problems): Palette {
+  const list = (key: 'materials' | 'emitters', max: number, what: string) => {
+    const nodes = listField(fields, key, problems);
+    if (nodes != null && (nodes.length === 0 || nodes.length > max)) {
+      problems.report(fields.values.get(key), `${key}: expected 1 to ${max} ${what}, got ${nodes.length}`);
+    }
+    return (nodes ?? []).map((node, i) => ({ node, path: itemPath(key, i, node) }));
+  };
+  const materialNodes = list('materials', MAX_MATERIALS, 'materials');
+  const emitterNodes = list('emitters', MAX_EMITTERS, 'emitters (sound and the nearest-emitter targets need one)');
+  const materials = materialNodes.map(({ node, path }) => readMaterial(node, path, problems));
+  const emitters = emitterNodes.map(({ node, path }) => readEmitter(node, path, problems));
+  const materialItems = materialNodes.map(({ node, path }) => paletteItem(node, path, false));
+  const emitterItems = emitterNodes.map(({ node, path }) => paletteItem(node, path, true));
+  checkUnique([...materialItems, ...emitterItems], problems);
+  const floors = resolveFloors(materialItems, emitterItems, problems);
+  const complete = materialItems.length > 0 && fields.values.has('emitters');
+  return { materials, emitters, floors, legend: complete ? mapLegend(materialItems, emitterItems, floors) : null };
 }
 
 /**
  * Reads and validates a world; returns the world (or null) and every problem found.
- * Checks run in stages (syntax, keys and values, glyphs and names, map), and a later stage
- * runs only when the earlier ones found nothing, so one mistake is not reported many times.
+ * Each part is checked whatever is wrong with another, as long as it can be read: the
+ * header, the start, every material and emitter, their glyphs and names across the lists,
+ * and the map whenever its glyphs are known. Only YAML syntax errors stop the rest.
  */
 function readWorld(text: string, path: string): { world: World | null; problems: string[] } {
   const tooDeep = yamlNestingProblem(text, path);
@@ -132,24 +148,25 @@ function readWorld(text: string, path: string): { world: World | null; problems:
   const lines = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: false });
   const problems = createProblems(path, lines);
-  const failed = { world: null, problems: problems.list };
+  const failed = () => ({ world: null, problems: problems.inFileOrder() });
   if (doc.errors.length > 0) {
     for (const error of doc.errors) problems.report(error.pos[0], `YAML syntax: ${error.message.split('\n')[0]}`);
-    return failed;
+    return failed();
   }
-  const fields = readFields(doc.contents as YamlNode | null, 'the world', WORLD_KEYS, REQUIRED_KEYS, problems);
-  if (fields == null) return failed;
+  const fields = readFields(doc.contents as YamlNode | null, '', WORLD_KEYS, REQUIRED_KEYS, problems);
+  if (fields == null) return failed();
   const header = readHeader(fields, problems);
   const startNode = fields.values.get('start');
   const start = startNode == null ? undefined : readStart(startNode, problems);
   const palette = readPalette(fields, problems);
-  if (header == null || palette == null || start === null || problems.list.length > 0) return failed;
-  const { materials, emitters, floors } = palette;
-  const grid = readMap(fields.values.get('map')!, text, lines, materials, emitters, floors, problems);
-  if (grid == null || (start != null && !checkStart(start, grid, problems))) return failed;
+  const mapNode = fields.values.get('map');
+  const grid = mapNode == null || palette.legend == null ? null : readMap(mapNode, text, lines, palette.legend, problems);
+  if (grid != null && start != null) checkStart(start, grid, problems);
+  if (problems.list.length > 0 || header == null || grid == null || start === null) return failed();
   const world: World = {
     ...header,
-    materials: materials.map((m) => m.material), emitters: placeEmitters(emitters, floors, grid),
+    materials: palette.materials as Material[],
+    emitters: placeEmitters(palette.emitters as EmitterEntry[], palette.floors as number[], grid),
     width: grid.width, height: grid.height, material: grid.material, solid: grid.solid, emitterAt: grid.emitterAt,
     ...(start != null ? { start: { x: start.x, y: start.y, heading: start.heading } } : {}),
   };
@@ -183,7 +200,8 @@ export function loadWorld(path: string): World {
   return parseWorld(readWorldText(path), path);
 }
 
-function readWorldText(path: string): string {
+/** The text of a world file; throws WorldFileError with one line when it cannot be read. */
+export function readWorldText(path: string): string {
   const tooLarge = fileSizeProblem(path, INPUT_LIMITS.worldBytes, 'world file');
   if (tooLarge != null) throw new WorldFileError([tooLarge]);
   try {

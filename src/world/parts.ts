@@ -1,6 +1,6 @@
-import type { Node as YamlNode } from 'yaml';
+import { isMap, isScalar, type Node as YamlNode } from 'yaml';
 import {
-  booleanField, numberField, readFields, stringField, vectorField, type Fields, type NumberRule,
+  booleanField, keyPath, numberField, readFields, stringField, vectorField, type Fields, type NumberRule,
 } from './fields.js';
 import type { Problems } from './problems.js';
 import { HEADINGS, TEXTURE_SIZE, type Colour, type Heading, type Material, type SoundBand } from './types.js';
@@ -17,34 +17,56 @@ const MATERIAL_KEYS = ['name', 'glyph', 'solid', 'colour', 'texture', 'footstep'
 const EMITTER_KEYS = ['name', 'glyph', 'on', 'solid', 'colour', ...SOUND_KEYS, 'period_steps', 'duty'];
 const START_KEYS = ['x', 'y', 'heading'];
 
-/** A material together with the nodes later checks point at. */
-export interface MaterialEntry {
-  readonly material: Material;
-  readonly nameNode: YamlNode;
-  readonly glyphNode: YamlNode;
-}
-
 /** An emitter as written, before its map position is known. */
 export interface EmitterEntry {
   readonly name: string;
   readonly glyph: string;
-  readonly on: string;
   readonly solid: boolean;
   readonly colour: Colour;
   readonly band: SoundBand;
   readonly periodSteps: number;
   readonly duty: number;
-  readonly nameNode: YamlNode;
-  readonly glyphNode: YamlNode;
-  readonly onNode: YamlNode;
 }
 
-/** A start pose as written, with its node for the "start on a solid cell" check. */
-export interface StartEntry {
-  readonly x: number;
-  readonly y: number;
-  readonly heading: Heading;
+/**
+ * What the checks across materials, emitters and the map need of one list item, read
+ * whether or not the rest of the item is valid (its own problems are reported once, by
+ * readMaterial or readEmitter); a key that is missing or malformed is undefined.
+ */
+export interface PaletteItem {
+  /** The item's key path: `materials.1 (boards)`. */
+  readonly path: string;
+  readonly name?: string;
+  readonly glyph?: string;
+  readonly solid?: boolean;
+  /** Emitters only: the material it stands on. */
+  readonly on?: string;
   readonly node: YamlNode;
+  readonly nodes: ReadonlyMap<string, YamlNode>;
+}
+
+/** The identity of a material or emitter; `solid` falls back to `solidByDefault` when absent. */
+export function paletteItem(node: YamlNode, path: string, solidByDefault: boolean): PaletteItem {
+  const nodes = new Map<string, YamlNode>();
+  if (isMap(node)) {
+    for (const pair of node.items) if (isScalar(pair.key) && pair.value != null) nodes.set(String(pair.key.value), pair.value as YamlNode);
+  }
+  const scalar = (key: string) => {
+    const value = nodes.get(key);
+    return isScalar(value) ? value.value : undefined;
+  };
+  const text = (key: string) => {
+    const value = scalar(key);
+    return typeof value === 'string' || typeof value === 'number' ? String(value) : undefined;
+  };
+  const glyph = text('glyph');
+  const solid = nodes.has('solid') ? scalar('solid') : solidByDefault;
+  return {
+    path, node, nodes, name: text('name'),
+    glyph: glyph?.length === 1 && !/\s/.test(glyph) ? glyph : undefined,
+    solid: typeof solid === 'boolean' ? solid : undefined,
+    on: text('on'),
+  };
 }
 
 function soundBand(fields: Fields, problems: Problems): SoundBand | null {
@@ -55,9 +77,9 @@ function soundBand(fields: Fields, problems: Problems): SoundBand | null {
   return { centreHz, bandwidthOctaves, levelDb };
 }
 
-/** Reads one entry of `materials`; null (after reporting) when it is invalid. */
-export function readMaterial(node: YamlNode, index: number, problems: Problems): MaterialEntry | null {
-  const fields = readFields(node, `material ${index + 1}`, MATERIAL_KEYS, ['name', 'glyph', 'colour'], problems);
+/** Reads one entry of `materials` at key path `at`; null (after reporting) when it is invalid. */
+export function readMaterial(node: YamlNode, at: string, problems: Problems): Material | null {
+  const fields = readFields(node, at, MATERIAL_KEYS, ['name', 'glyph', 'colour'], problems);
   if (fields == null) return null;
   const name = stringField(fields, 'name', problems);
   const glyph = stringField(fields, 'glyph', problems, { oneChar: true });
@@ -69,21 +91,17 @@ export function readMaterial(node: YamlNode, index: number, problems: Problems):
   const footstepNode = fields.values.get('footstep');
   let footstep: SoundBand | null | undefined;
   if (footstepNode != null) {
-    const sub = readFields(footstepNode, `the footstep of material ${index + 1}`, SOUND_KEYS, SOUND_KEYS, problems);
+    const sub = readFields(footstepNode, keyPath(at, 'footstep'), SOUND_KEYS, SOUND_KEYS, problems);
     footstep = sub == null ? null : soundBand(sub, problems);
   }
   if (name == null || glyph == null || colour == null || texture == null || footstep === null) return null;
-  const material: Material = {
-    name, glyph, solid, colour: colour as unknown as Colour, texture,
-    ...(footstep != null ? { footstep } : {}),
-  };
-  return { material, nameNode: fields.values.get('name')!, glyphNode: fields.values.get('glyph')! };
+  return { name, glyph, solid, colour: colour as unknown as Colour, texture, ...(footstep != null ? { footstep } : {}) };
 }
 
-/** Reads one entry of `emitters`; null (after reporting) when it is invalid. */
-export function readEmitter(node: YamlNode, index: number, problems: Problems): EmitterEntry | null {
+/** Reads one entry of `emitters` at key path `at`; null (after reporting) when it is invalid. */
+export function readEmitter(node: YamlNode, at: string, problems: Problems): EmitterEntry | null {
   const required = ['name', 'glyph', 'on', 'colour', ...SOUND_KEYS];
-  const fields = readFields(node, `emitter ${index + 1}`, EMITTER_KEYS, required, problems);
+  const fields = readFields(node, at, EMITTER_KEYS, required, problems);
   if (fields == null) return null;
   const name = stringField(fields, 'name', problems);
   const glyph = stringField(fields, 'glyph', problems, { oneChar: true });
@@ -95,10 +113,15 @@ export function readEmitter(node: YamlNode, index: number, problems: Problems): 
   const duty = numberField(fields, 'duty', UNIT, problems, 1);
   if (name == null || glyph == null || on == null || colour == null || band == null
     || periodSteps == null || duty == null) return null;
-  return {
-    name, glyph, on, solid, colour: colour as unknown as Colour, band, periodSteps, duty,
-    nameNode: fields.values.get('name')!, glyphNode: fields.values.get('glyph')!, onNode: fields.values.get('on')!,
-  };
+  return { name, glyph, solid, colour: colour as unknown as Colour, band, periodSteps, duty };
+}
+
+/** A start pose as written, with its node for the "start on a solid cell" check. */
+export interface StartEntry {
+  readonly x: number;
+  readonly y: number;
+  readonly heading: Heading;
+  readonly node: YamlNode;
 }
 
 /** Reads the optional `start` pose (bounds are checked against the map later). */
@@ -109,7 +132,7 @@ export function readStart(node: YamlNode, problems: Problems): StartEntry | null
   const y = numberField(fields, 'y', { min: 0, integer: true }, problems);
   const heading = stringField(fields, 'heading', problems);
   if (heading != null && !(HEADINGS as readonly string[]).includes(heading)) {
-    problems.report(fields.values.get('heading'), `'heading' in start must be one of ${HEADINGS.join(', ')}, got '${heading}'`);
+    problems.report(fields.values.get('heading'), `start.heading: expected one of ${HEADINGS.join(', ')}, got '${heading}'`);
     return null;
   }
   if (x == null || y == null || heading == null) return null;

@@ -12,18 +12,32 @@ export interface Problems {
   report(place: Place, reason: string): void;
   /** The `path:line:col` of a place, for messages that point back to another spot. */
   where(place: Place): string;
+  /** `line L, column C` of a place in this file. */
+  lineAndColumn(place: Place): string;
+  /** The problems in file order (stable for one place), as configs list theirs. */
+  inFileOrder(): string[];
 }
 
 /** A problem collector for the file at `path`, positioned by its line counter. */
 export function createProblems(path: string, lines: LineCounter): Problems {
+  const position = (place: Place) => lines.linePos(typeof place === 'number' ? place : place?.range?.[0] ?? 0);
   const where = (place: Place): string => {
-    const offset = typeof place === 'number' ? place : place?.range?.[0] ?? 0;
-    const { line, col } = lines.linePos(offset);
+    const { line, col } = position(place);
     return `${path}:${line}:${col}`;
   };
+  const lineAndColumn = (place: Place): string => {
+    const { line, col } = position(place);
+    return `line ${line}, column ${col}`;
+  };
   const list: string[] = [];
-  // Line breaks and other control characters from the file are escaped: one problem, one line.
-  return { path, list, where, report: (place, reason) => list.push(`${where(place)}: ${oneLine(reason)}`) };
+  const offsets: number[] = [];
+  const report = (place: Place, reason: string) => {
+    // Line breaks and other control characters from the file are escaped: one problem, one line.
+    list.push(`${where(place)}: ${oneLine(reason)}`);
+    offsets.push(typeof place === 'number' ? place : place?.range?.[0] ?? 0);
+  };
+  const inFileOrder = () => list.map((text, i) => ({ text, offset: offsets[i] })).sort((a, b) => a.offset - b.offset).map((entry) => entry.text);
+  return { path, list, where, lineAndColumn, report, inFileOrder };
 }
 
 /** Thrown by loadWorld: its message holds every problem, one per line. */

@@ -29,7 +29,7 @@ describe('crosswise check', () => {
     const path = join(dir, 'bad.yaml');
     writeFileSync(path, 'name: x\ncell_size_m: 0\nmaterials: []\nemitters: []\nmap: |\n  #\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err[0]).toBe(`crosswise check: ${path}:2:14: 'cell_size_m' in the world must be a number > 0 and <= 100, got 0`);
+    expect(err[0]).toBe(`crosswise check: ${path}:2:14: cell_size_m: expected a number > 0 and <= 100, got 0`);
     expect(err.every((line) => line.startsWith(`crosswise check: ${path}:`))).toBe(true);
   });
 
@@ -37,7 +37,7 @@ describe('crosswise check', () => {
     const path = join(dir, 'other.yaml');
     writeFileSync(path, 'title: hello\n');
     expect(await checkCommand([path])).toBe(1);
-    expect(err).toEqual([`crosswise check: ${path}:1:1: not a world or config file (a world file has a 'map' key, a config a 'learners' key)`]);
+    expect(err).toEqual([`crosswise check: ${path}:1:1: not a world or config file (a world has 'map', 'materials' and 'emitters'; a config has 'learners' and 'world')`]);
   });
 
   it('reports a missing file and no arguments as errors', async () => {

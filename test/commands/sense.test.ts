@@ -171,8 +171,9 @@ describe('crosswise sense argument errors', () => {
     writeFileSync(join(dir, 'bad.yaml'), CLOSET.replace('cell_size_m', 'cell_size'));
     expect(await senseCommand([join(dir, 'bad.yaml'), '--at', '1,1,east'])).toBe(1);
     expect(err.join('\n').split('\n')).toEqual([
-      `crosswise sense: ${join(dir, 'bad.yaml')}:2:1: unknown key 'cell_size' in the world; did you mean 'cell_size_m'?`,
-      `crosswise sense: ${join(dir, 'bad.yaml')}:1:1: missing key 'cell_size_m' in the world`,
+      `crosswise sense: ${join(dir, 'bad.yaml')}:1:1: cell_size_m: required, missing from the world`,
+      `crosswise sense: ${join(dir, 'bad.yaml')}:2:1: cell_size: unknown key (did you mean 'cell_size_m'?); `
+        + 'expected one of name, description, cell_size_m, ambient_db, wall_loss_db, materials, emitters, start, map',
     ]);
   });
 });

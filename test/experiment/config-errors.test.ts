@@ -53,7 +53,7 @@ describe('config validation', () => {
 
   it('rejects a wrong type with what was expected and what was found', async () => {
     expect(await rejection(VALID.replace('input: [sight]\n    target', 'input: [sight]\n    train: { epochs: ten }\n    target'))).toEqual([
-      "config.yaml:8:22: learners.0.train.epochs: expected number, got 'ten'",
+      "config.yaml:8:22: learners.0 (sound-from-sight).train.epochs: expected number, got 'ten'",
     ]);
   });
 
@@ -65,13 +65,13 @@ describe('config validation', () => {
 
   it('rejects an unknown objective and suggests the nearest', async () => {
     expect(await rejection(VALID.replace('objective: predict', 'objective: predikt'))).toEqual([
-      "config.yaml:6:16: learners.0.objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, got 'predikt' (did you mean 'predict'?)",
+      "config.yaml:6:16: learners.0 (sound-from-sight).objective: expected one of predict | reconstruct | forecast | contrast | supervised | untrained, got 'predikt' (did you mean 'predict'?)",
     ]);
   });
 
   it('rejects an unknown learning rule', async () => {
     expect(await rejection(VALID.replace('objective: reconstruct', 'objective: reconstruct\n    rule: feedback-alignmnt'))).toEqual([
-      "config.yaml:11:11: learners.1.rule: expected one of backprop | feedback-alignment | direct-feedback-alignment, got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
+      "config.yaml:11:11: learners.1 (sight-autoencoder).rule: expected one of backprop | feedback-alignment | direct-feedback-alignment, got 'feedback-alignmnt' (did you mean 'feedback-alignment'?)",
     ]);
   });
 
@@ -95,7 +95,7 @@ describe('config validation', () => {
 
   it('rejects an unknown channel', async () => {
     expect(await rejection(VALID.replace('target: [sound]', 'target: [smell]'))).toEqual([
-      "config.yaml:8:14: learners.0.target.0: expected one of sight | sound | touch | motor, got 'smell'",
+      "config.yaml:8:14: learners.0 (sound-from-sight).target.0: expected one of sight | sound | touch | motor, got 'smell'",
     ]);
   });
 
@@ -119,13 +119,13 @@ describe('config validation', () => {
 
   it('rejects a predict learner whose target equals its input', async () => {
     expect(await rejection(VALID.replace('target: [sound]', 'target: [sight]'))).toEqual([
-      'config.yaml:8:13: learners.0.target: expected channels other than the input (use objective reconstruct or forecast to predict its own input)',
+      'config.yaml:8:13: learners.0 (sound-from-sight).target: expected channels other than the input (use objective reconstruct or forecast to predict its own input)',
     ]);
   });
 
   it('rejects duplicate learner names', async () => {
     expect(await rejection(VALID.replace('name: sight-autoencoder', 'name: sound-from-sight'))).toEqual([
-      "config.yaml:9:11: learners.1.name: duplicate learner name 'sound-from-sight' (also learners.0)",
+      "config.yaml:9:11: learners.1 (sound-from-sight).name: duplicate learner name 'sound-from-sight' (also learners.0)",
     ]);
   });
 
@@ -173,22 +173,73 @@ describe('config validation', () => {
     ]);
   });
 
-  it('rejects supervised targets that are not latents, and on learners that are not supervised', async () => {
+  it('rejects supervised targets that are not latents, and on learners that are not supervised, in one pass', async () => {
     const text = `${VALID}  - { name: oracle, objective: supervised, input: [sight], supervised_targets: [wall_ahead, smell] }\n`
       .replace('objective: reconstruct', 'objective: reconstruct\n    supervised_targets: [x]');
     const lines = await rejection(text.replace('noise:\n  - { channel: sight, kind: gaussian }\n', '') + 'noise: []\n');
     expect(lines).toEqual([
-      "config.yaml:13:93: learners.2.supervised_targets.1: expected one of x | y | heading | material_under | material_ahead | wall_ahead | nearest_emitter | nearest_distance_m | nearest_azimuth_deg | emitter_in_view | moved | bumped, got 'smell'",
+      "config.yaml:11:25: learners.1 (sight-autoencoder).supervised_targets: only supervised learners have supervised_targets; objective 'reconstruct' does not use it",
+      "config.yaml:13:93: learners.2 (oracle).supervised_targets.1: expected one of x | y | heading | material_under | material_ahead | wall_ahead | nearest_emitter | nearest_distance_m | nearest_azimuth_deg | emitter_in_view | moved | bumped, got 'smell'",
     ]);
-    const fixed = text.replace(', smell]', ']').replace('noise:\n  - { channel: sight, kind: gaussian }\n', '') + 'noise: []\n';
-    expect(await rejection(fixed)).toEqual([
-      "config.yaml:11:25: learners.1.supervised_targets: only supervised learners have supervised_targets; objective 'reconstruct' does not use it",
+  });
+
+  it('accepts a spiking encoder and fills its documented defaults', () => {
+    const dir = configFolder(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, steps: 8 }\n'));
+    const { spec } = loadSweep(join(dir, 'config.yaml')).combinations[0].settings.learners[0];
+    expect(spec.encoder).toEqual({
+      kind: 'spiking', hidden: [128, 64], steps: 8, dtMs: 1, tauMs: 2, threshold: 1, reset: 'subtract', refractoryMs: 0,
+      inputCoding: 'current', surrogate: 'fast-sigmoid', surrogateSlope: 5,
+    });
+  });
+
+  it('rejects an unknown encoder kind, and keys of the other kind, naming the keys this kind has', async () => {
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spikng }\n'))).toEqual([
+      "config.yaml:9:22: learners.0 (sound-from-sight).encoder.kind: expected one of mlp | spiking, got 'spikng' (did you mean 'spiking'?)",
+    ]);
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, activation: relu }\n'))).toEqual([
+      'config.yaml:9:31: learners.0 (sound-from-sight).encoder.activation: unknown key; expected one of kind, hidden, steps, dt_ms, tau_ms, threshold, reset, refractory_ms, input_coding, surrogate, surrogate_slope',
+    ]);
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { tau_ms: 3 }\n'))).toEqual([
+      'config.yaml:9:16: learners.0 (sound-from-sight).encoder.tau_ms: unknown key; expected one of kind, hidden, activation',
+    ]);
+  });
+
+  it('rejects a refractory period that is not a whole number of time steps', async () => {
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, dt_ms: 0.5, refractory_ms: 1.2 }\n'))).toEqual([
+      'config.yaml:9:58: learners.0 (sound-from-sight).encoder.refractory_ms: expected 0 or a whole number of time steps (dt_ms = 0.5), got 1.2',
     ]);
   });
 
   it('reports every problem of a config at once, one line each', async () => {
     const lines = await rejection(VALID.replace('seeds: [1]', 'seeds: []').replace('objective: predict', 'objective: predikt'));
     expect(lines).toHaveLength(2);
+  });
+
+  it('reports four independent problems in one pass, one line each: a type error, a bad baseline, masking on touch, a vary key typo', async () => {
+    const text = VALID
+      .replace('input: [sight]\n    target', 'input: [sight]\n    train: { epochs: ten }\n    target')
+      .replace('kind: gaussian', 'kind: gaussian }\n  - { channel: touch, kind: masking')
+      + 'probe: { baseline: sight-autoencodr }\nvary:\n  learners.*.encoder.hiden: [[8], [16]]\n';
+    expect(await rejection(text)).toEqual([
+      "config.yaml:8:22: learners.0 (sound-from-sight).train.epochs: expected number, got 'ten'",
+      "config.yaml:15:16: noise.1.channel: masking noise applies to sound only, got 'touch'",
+      "config.yaml:16:20: probe.baseline: expected the name of a learner (sound-from-sight, sight-autoencoder), got 'sight-autoencodr' (did you mean 'sight-autoencoder'?)",
+      "config.yaml:18:3: vary.learners.*.encoder.hiden: matches no setting (did you mean 'learners.*.encoder.hidden'?)",
+    ]);
+  });
+
+  it('judges a vary value against the config as written, so its problem shows beside the config\'s own', async () => {
+    const text = VALID.replace('seeds: [1]', 'seeds: []') + 'vary:\n  collect.steps: [1000, 10]\n';
+    expect(await rejection(text)).toEqual([
+      'config.yaml:3:8: seeds: expected at least 1 item, got an empty list',
+      'config.yaml:15:25: vary.collect.steps.1: value 10 is invalid: collect.steps: expected a value ≥ 100, got 10',
+    ]);
+  });
+
+  it('names list items by 0-based index and name, in keys and inside messages', async () => {
+    expect(await rejection(`${VALID}vary:\n  learners.*.encoder.hidden: [[8], [0]]\n`)).toEqual([
+      'config.yaml:15:36: vary.learners.*.encoder.hidden.1: value [0] is invalid: learners.0 (sound-from-sight).encoder.hidden.0: expected a value ≥ 1, got 0',
+    ]);
   });
 
   it('throws ConfigError from loadSweep with the same lines', () => {

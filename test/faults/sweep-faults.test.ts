@@ -201,12 +201,12 @@ describe('faults in a real tiny sweep', () => {
     unlinkSync(join(out(dir), 'experiment.json'));
     const refused = await run(dir);
     expect(refused.code).toBe(4);
-    expect(lines(refused.stderr)).toEqual([`crosswise run: ${out(dir)} was written by an older crosswise (results format 1); this crosswise reads format 2 and does not reuse those cells. `
+    expect(lines(refused.stderr)).toEqual([`crosswise run: ${out(dir)} was written by an older crosswise (a results format before 3); this crosswise reads format 3 and does not reuse those cells. `
       + 'To recompute them, run the config again with --out <new folder> (or move this folder away, or --force to recompute into it)']);
     const errors = vi.spyOn(console, 'error').mockImplementation(() => undefined);
     try {
       expect(await reportCommand([out(dir)])).toBe(4);
-      expect(errors.mock.calls.map((call) => String(call[0]))).toEqual([expect.stringMatching(/^crosswise report: \S+ was written by an older crosswise \(results format 1\); .* --out <new folder>$/)]);
+      expect(errors.mock.calls.map((call) => String(call[0]))).toEqual([expect.stringMatching(/^crosswise report: \S+ was written by an older crosswise \(a results format before 3\); .* --out <new folder>$/)]);
     } finally {
       errors.mockRestore();
     }

@@ -5,6 +5,7 @@ import { cellIdentity, type CellSettings } from '../../src/results/cell-identity
 import {
   armIdentity, experimentConflict, extendExperiment, formatExperimentRecord, readFolderOwner, type ExperimentRecord,
 } from '../../src/results/experiment-record.js';
+import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
 import { scratchFolders } from '../scratch.js';
 
@@ -24,7 +25,7 @@ const base: CellSettings = {
   vary: { 'collect.steps': '2000' },
 };
 const arm = (settings: Partial<CellSettings>) => armIdentity(cellIdentity({ ...base, ...settings }));
-const experiment = (...arms: ExperimentRecord['arms']): ExperimentRecord => ({ format_version: 2, vary_keys: ['collect.steps'], arms });
+const experiment = (...arms: ExperimentRecord['arms']): ExperimentRecord => ({ format_version: RESULTS_FORMAT_VERSION, vary_keys: ['collect.steps'], arms });
 const autoencoder = { ...base.learner, name: 'sight-autoencoder', objective: 'reconstruct' as const, target: [] };
 
 describe('experiment identity', () => {
@@ -71,18 +72,18 @@ describe('readFolderOwner', () => {
     expect(readFolderOwner(dir)).toEqual({ kind: 'experiment', record });
   });
 
-  it('tells a folder of results format 1 (cells or plan.csv, no experiment.json) and one of another version', () => {
+  it('tells a folder of a format before experiment.json (cells or plan.csv, no experiment.json) and one of another version', () => {
     const old = folder();
     mkdirSync(join(old, 'cells', '0123456789'), { recursive: true });
     expect(readFolderOwner(old)).toEqual({ kind: 'other-format', version: null });
     const newer = folder();
-    writeFileSync(join(newer, 'experiment.json'), '{"format_version": 3}\n');
-    expect(readFolderOwner(newer)).toEqual({ kind: 'other-format', version: 3 });
+    writeFileSync(join(newer, 'experiment.json'), `{"format_version": ${RESULTS_FORMAT_VERSION + 1}}\n`);
+    expect(readFolderOwner(newer)).toEqual({ kind: 'other-format', version: RESULTS_FORMAT_VERSION + 1 });
   });
 
   it('says why an experiment.json cannot be read', () => {
     const dir = folder();
-    writeFileSync(join(dir, 'experiment.json'), '{"format_version": 2, "vary_keys": "x"');
+    writeFileSync(join(dir, 'experiment.json'), `{"format_version": ${RESULTS_FORMAT_VERSION}, "vary_keys": "x"`);
     expect(readFolderOwner(dir)).toMatchObject({ kind: 'unreadable', reason: expect.stringMatching(/^experiment\.json: /) });
   });
 });

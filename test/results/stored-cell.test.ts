@@ -1,6 +1,7 @@
 import { readFileSync, truncateSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { inspectStoredCell } from '../../src/results/stored-cell.js';
 import { injectFault } from '../faults/fs-faults.js';
 import { testCellId, writeRun, type TestCell } from '../report/stored-cells.js';
@@ -50,8 +51,8 @@ describe('inspectStoredCell: a stored cell is trusted only when every file it li
     ['an emptied cell.json', (f) => truncateSync(f('cell.json'), 0), { file: 'cell.json', fault: /^empty$/ }],
     ['a deleted cell.json', (f) => unlinkSync(f('cell.json')), { file: 'cell.json', fault: /^missing$/ }],
     ['a cell.json of another format version', (f) => {
-      writeFileSync(f('cell.json'), readFileSync(f('cell.json'), 'utf8').replace('"format_version": 2', '"format_version": 1'));
-    }, { file: 'cell.json', fault: /^format_version: expected 2, got 1/ }],
+      writeFileSync(f('cell.json'), readFileSync(f('cell.json'), 'utf8').replace(`"format_version": ${RESULTS_FORMAT_VERSION}`, '"format_version": 1'));
+    }, { file: 'cell.json', fault: new RegExp(`^format_version: expected ${RESULTS_FORMAT_VERSION}, got 1`) }],
   ];
   for (const [what, inject, expected] of faults) {
     it(`reports ${what} as damaged, naming the file`, () => {

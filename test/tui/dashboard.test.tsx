@@ -47,7 +47,7 @@ describe('Dashboard', () => {
     for (const e of SWEEP) events.emit(e);
     const frame = await waitFor(() => app.lastFrame() ?? '', 'epoch 3');
     expect(frame.split('\n')).toEqual([
-      'crosswise run · demo',
+      'crosswise run · demo · writing to runs/demo',
       'cells 2/6 done · 1 failed · 2 running · 1 queued',
       // Every event is stamped at 5 s, so both running cells have the whole mean (15 s) left: (15 + 15 + 15) / 2.
       'elapsed 0s · eta 23s · 2 workers',
@@ -62,6 +62,23 @@ describe('Dashboard', () => {
       'autoencoder         0.80      0.40',
       '',
       't next target  n next noise  q stop (running cells finish)',
+    ]);
+    app.unmount();
+  });
+
+  it('shows the firing of a spiking learner under its worker line', async () => {
+    const events = source();
+    const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
+    await mounted(events);
+    events.emit({ type: 'cell-start', cell: cell(0, 'spiking-sound-from-sight', 1), worker: 1 });
+    events.emit({ type: 'epoch', cell: cell(0, 'spiking-sound-from-sight', 1), worker: 1, log: {
+      epoch: 1, trainLoss: 0.5, validationLoss: 0.6, seconds: 1, alignmentDeg: [], firing: { rateHz: [210, 35], silentFraction: [0, 0.25] },
+    } });
+    const frame = await waitFor(() => app.lastFrame() ?? '', 'epoch 1');
+    expect(frame.split('\n').slice(4, 7)).toEqual([
+      'worker 1  spiking-sound-from-sight seed 1 [c0]  epoch 1  loss 0.5000 ▁',
+      '          firing 210 · 35 Hz · silent 0% · 25%',
+      '',
     ]);
     app.unmount();
   });
@@ -133,7 +150,7 @@ describe('Dashboard at the end of a sweep', () => {
     events.emit({ type: 'sweep-done', done: 2, failed: 1, seconds: 75, summary: '2 done, 1 failed', interrupted: true });
     const frame = await waitFor(() => app.lastFrame() ?? '', 'stopped:');
     expect(frame.split('\n').slice(0, 7)).toEqual([
-      'crosswise run · demo',
+      'crosswise run · demo · writing to runs/demo',
       'cells 2/6 done · 1 failed · 0 running · 3 queued',
       'took 1m15s · 2 workers',
       'stopped: 2 done, 1 failed',

@@ -51,7 +51,7 @@ describe.skipIf(!hasTmux)('crosswise explore in a terminal', () => {
     const moved = await waitForScreen((t) => t.includes('step 1 '), 'step 1');
     expect(statusLine(moved)).toBe('greenhouse · step 1 · x 3 y 7 facing east · forward: moved');
     // Footsteps on gravel: the footfall bars fill once the agent has moved.
-    expect(moved).toMatch(/footfall 1\s+█+\S*\s+0\.80/);
+    expect(moved).toMatch(/footfall_0\s+█+\S*\s+0\.80/);
     // The agent is a circle dark on its facing side: ◑ faces east.
     expect(mapRow(moved, '#..◑.................#')).toBe(true);
 

@@ -48,7 +48,7 @@ describe.skipIf(!hasTmux)('crosswise run dashboard in a terminal', () => {
   it('shows a running worker, stops cleanly on q and leaves the resume command', async () => {
     startRun('stop', 500);
     const running = await waitForScreen('stop', (t) => /worker 1 .*epoch \d/.test(t), 'a worker in training');
-    expect(running.split('\n')[0]).toBe('crosswise run · dash');
+    expect(running.split('\n')[0]).toMatch(/^crosswise run · dash · writing to \/.*\/out$/);
     expect(running).toMatch(/cells \d\/6 done · 0 failed · 1 running · \d queued/);
     tmux('send-keys', '-t', 'stop', 'q');
     const stopped = await waitForScreen('stop', (t) => t.includes('exit '), 'the end of the run');

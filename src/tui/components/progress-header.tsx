@@ -5,7 +5,7 @@ import type { ProgressText } from '../dashboard/run-view.js';
 export function ProgressHeader({ progress }: { readonly progress: ProgressText }) {
   return (
     <Box flexDirection="column">
-      <Text bold>{progress.title}</Text>
+      <Text bold wrap="truncate-middle">{progress.title}</Text>
       <Text>{progress.counts}</Text>
       <Text>{progress.timing}</Text>
       {progress.notes.map((note) => <Text key={note} wrap="truncate-end">{note}</Text>)}

@@ -1,4 +1,5 @@
 import type { CellLabel, RunEvent } from '../../experiment/events.js';
+import type { LayerFiring } from '../../learn/spec.js';
 import { isScore, type Measurement } from '../../results/results-table.js';
 
 /** What one worker is doing right now. */
@@ -9,6 +10,8 @@ export interface WorkerActivity {
   readonly epoch: number | null;
   /** Training loss per finished epoch, oldest first. */
   readonly losses: readonly number[];
+  /** A spiking learner's activity per hidden layer at its latest epoch; null for rate encoders and before the first epoch. */
+  readonly firing: LayerFiring | null;
 }
 
 /** Probe scores collected so far for one learner row, one table of the dashboard. */
@@ -25,6 +28,8 @@ export interface ScoreSeries {
 /** Everything the run dashboard knows, folded from the event stream. */
 export interface RunState {
   readonly name: string;
+  /** The output folder, once the sweep has started. */
+  readonly out: string | null;
   readonly total: number;
   readonly skipped: number;
   readonly jobs: number;
@@ -46,7 +51,7 @@ export interface RunState {
 /** The state before any event, for a sweep of `total` cells named `name`. */
 export function initialRunState(name: string, total: number, nowMs: number): RunState {
   return {
-    name, total, skipped: 0, jobs: 1, startedMs: nowMs, done: 0, failed: 0, workers: [],
+    name, out: null, total, skipped: 0, jobs: 1, startedMs: nowMs, done: 0, failed: 0, workers: [],
     cellSeconds: [], lastFailure: null, views: [], noises: [], scores: [], finished: null,
   };
 }
@@ -55,12 +60,12 @@ export function initialRunState(name: string, total: number, nowMs: number): Run
 export function reduceRun(state: RunState, event: RunEvent, nowMs: number): RunState {
   switch (event.type) {
     case 'sweep-start':
-      return { ...state, name: event.name, total: event.total, skipped: event.skipped, jobs: Math.max(1, event.jobs), startedMs: nowMs };
+      return { ...state, name: event.name, out: event.out, total: event.total, skipped: event.skipped, jobs: Math.max(1, event.jobs), startedMs: nowMs };
     case 'cell-start':
-      return { ...state, workers: withWorker(state.workers, { worker: event.worker, cell: event.cell, startedMs: nowMs, epoch: null, losses: [] }) };
+      return { ...state, workers: withWorker(state.workers, { worker: event.worker, cell: event.cell, startedMs: nowMs, epoch: null, losses: [], firing: null }) };
     case 'epoch':
       return { ...state, workers: state.workers.map((w) => (w.worker === event.worker && w.cell.id === event.cell.id
-        ? { ...w, epoch: event.log.epoch, losses: [...w.losses, event.log.trainLoss] }
+        ? { ...w, epoch: event.log.epoch, losses: [...w.losses, event.log.trainLoss], firing: event.log.firing ?? null }
         : w)) };
     case 'cell-done':
       return {

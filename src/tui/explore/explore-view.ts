@@ -34,6 +34,8 @@ export interface ColumnView {
 /** The whole explore screen for one state and terminal size, every line cut to fit. */
 export interface ExploreView {
   readonly status: string;
+  /** The replay's line under the status (where in the recording, the player), or null when exploring live. */
+  readonly replay: string | null;
   /** Terminal columns of the map's column (0 when there is no room for it). */
   readonly mapWidth: number;
   readonly map: readonly (readonly MapCell[])[];
@@ -43,8 +45,8 @@ export interface ExploreView {
   readonly footer: readonly string[];
 }
 
-/** Labels of the touch and motor bars and the width of their bars. */
-export const BAR_LABEL_WIDTH = 10;
+/** Labels of the touch and motor bars (the channel registry's entry names, as `sense` prints them) and the width of their bars. */
+export const BAR_LABEL_WIDTH = Math.max(...[...TOUCH_NAMES, ...ACTIONS].map((name) => name.length));
 export const BAR_WIDTH = 8;
 const BAR_PANEL_WIDTH = BAR_LABEL_WIDTH + 1 + BAR_WIDTH + 1 + 4;
 /** The map keeps at least this many columns (or the whole map when it is narrower). */
@@ -63,14 +65,22 @@ interface Panel {
 
 const height = (view: PanelView) => 1 + (view.kind === 'sight' ? view.rows.length + 1 : view.kind === 'bars' ? view.bars.length : view.lines.length);
 
+/** What differs between exploring live and replaying: the keys the help lists, and the replay's line. */
+export interface ScreenMode {
+  readonly keys: readonly (readonly [string, string])[];
+  readonly replay: string | null;
+}
+
+const LIVE: ScreenMode = { keys: EXPLORE_KEYS, replay: null };
+
 /** The explore screen's content for a state on a terminal of the given size. */
-export function exploreView(state: ExploreState, size: TerminalSize): ExploreView {
+export function exploreView(state: ExploreState, size: TerminalSize, mode: ScreenMode = LIVE): ExploreView {
   const world = state.worlds[state.worldIndex];
   const sample = exploreSample({ ...state, world });
   const footerKeys = state.help
-    ? wrapItems(EXPLORE_KEYS.map(([key, action]) => `${key} ${action}`), size.columns)
+    ? wrapItems(mode.keys.map(([key, action]) => `${key} ${action}`), size.columns)
     : ['? keys · q quit'];
-  const panelRows = Math.max(1, size.rows - 1 - footerKeys.length);
+  const panelRows = Math.max(1, size.rows - 1 - (mode.replay == null ? 0 : 1) - footerKeys.length);
   const panels = panelsInOrder(state, world, sample, panelRows);
   const placement = placeBlocks(panels.map((p) => ({ id: p.id, width: p.width, height: height(p.view), follows: p.follows })), {
     columns: size.columns, height: panelRows, minMapColumns: Math.min(world.width, MIN_MAP_COLUMNS), wantedMapColumns: Math.max(2 * world.width, KEY_WIDTH),
@@ -88,6 +98,7 @@ export function exploreView(state: ExploreState, size: TerminalSize): ExploreVie
   const hidden = [...placement.hidden, ...(keyUnderMap || keyColumn != null ? [] : ['key'])];
   return {
     status: cut(statusLine(state, world), size.columns),
+    replay: mode.replay == null ? null : cut(mode.replay, size.columns),
     mapWidth: placement.mapColumns,
     map: mapRows(world, state.pose, sample, window, cellWidth, state.colour),
     mapKey: keyUnderMap ? mapKey : [],
@@ -115,7 +126,7 @@ function panelsInOrder(state: ExploreState, world: World, sample: ExploreSample,
       id: soundId(i), follows: i === 0 ? undefined : soundId(i - 1), width: part.title.length,
       view: { kind: 'text' as const, title: part.title, lines: part.lines.map((text) => ({ text })) },
     })),
-    { id: 'touch', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'touch', bars: TOUCH_NAMES.map((name, i) => bar(touchLabel(name), sample.senses.touch[i])) } },
+    { id: 'touch', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'touch', bars: TOUCH_NAMES.map((name, i) => bar(name, sample.senses.touch[i])) } },
     ...(truth == null ? [] : [{ id: 'ground truth', width: TRUTH_WIDTH, view: { kind: 'text' as const, title: 'ground truth', lines: truth.map((text) => ({ text: cut(text, TRUTH_WIDTH) })) } }]),
     { id: 'noise', width: Math.max(...noise.map((n) => n.text.length)), view: { kind: 'text', title: 'noise · n k + -', lines: noise } },
     { id: 'motor', width: BAR_PANEL_WIDTH, view: { kind: 'bars', title: 'motor · last command', bars: ACTIONS.map((action, i) => bar(action, sample.senses.motor[i])) } },
@@ -141,14 +152,6 @@ function sightPanel(state: ExploreState, sample: ExploreSample, rows: number): P
 
 function bar(label: string, value: number): LabelledBar {
   return { label, fraction: value, value: formatFixed(value, 2) };
-}
-
-function touchLabel(name: string): string {
-  const footfall = /^footfall_(\d+)$/.exec(name);
-  if (footfall != null) return `footfall ${Number(footfall[1]) + 1}`;
-  const whisker = /^whisker_(\w)/.exec(name);
-  if (whisker != null) return `whisker ${whisker[1].toUpperCase()}`;
-  return name === 'bump_force' ? 'bump' : name;
 }
 
 function noiseText(noise: ChannelNoise, parameter: number): string {

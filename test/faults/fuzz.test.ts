@@ -11,8 +11,10 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ConfigError } from '../../src/experiment/config-errors.js';
+import { POLICY_NAMES } from '../../src/collect/policies.js';
 import { loadSweep } from '../../src/experiment/config.js';
 import { planCells } from '../../src/experiment/plan.js';
+import { ACTIVATIONS, RULES } from '../../src/learn/spec.js';
 import { checkWorldText, parseWorld } from '../../src/world/parse.js';
 import { WorldFileError } from '../../src/world/problems.js';
 
@@ -60,12 +62,16 @@ describe('fuzzing the world parser from the shipped worlds', () => {
   const worlds = readdirSync(join(ROOT, 'worlds')).filter((name) => name.endsWith('.yaml'));
 
   it('loads every mutated world or reports each problem as one located line', () => {
+    const seen = { loaded: 0, refused: 0 };
     fc.assert(fc.property(fc.constantFrom(...worlds), fc.array(edit, { minLength: 1, maxLength: 4 }), (name, edits) => {
       const text = mutate(readFileSync(join(ROOT, 'worlds', name), 'utf8'), edits);
       const problems = checkWorldText(text, name);
       if (problems.length === 0) expect(parseWorld(text, name).width).toBeGreaterThan(0);
       else expect(located(problems, name)).toBe(true);
+      seen[problems.length === 0 ? 'loaded' : 'refused']++;
     }), { seed: SEED, numRuns: Number(process.env.FUZZ_RUNS ?? 150) });
+    // The mutations must reach both sides of the property.
+    expect(Math.min(seen.loaded, seen.refused)).toBeGreaterThan(0);
   });
 });
 
@@ -93,35 +99,59 @@ describe('fuzzing the config loader and vary expansion from the shipped configs'
   }
 
   it('loads every mutated config or reports each problem as one located line', () => {
+    const seen = { loaded: 0, refused: 0 };
     fc.assert(fc.property(fc.constantFrom(...configs), fc.array(edit, { minLength: 1, maxLength: 4 }), (name, edits) => {
       const outcome = load(mutate(readFileSync(join(ROOT, 'configs', name), 'utf8'), edits));
       if ('problems' in outcome) expect(located(outcome.problems, join(dir, 'configs', 'fuzzed.yaml'))).toBe(true);
       else expect(outcome.cells).toBeGreaterThan(0);
+      seen['problems' in outcome ? 'refused' : 'loaded']++;
     }), { seed: SEED, numRuns: Number(process.env.FUZZ_RUNS ?? 60) });
+    // The mutations must reach both sides of the property.
+    expect(Math.min(seen.loaded, seen.refused)).toBeGreaterThan(0);
   });
 
-  /** Vary values of every kind a user might write for a setting, right or wrong. */
-  const value = fc.oneof(
-    fc.integer({ min: -5, max: 50_000 }), fc.double({ noNaN: false }), fc.constantFrom('wander', 'seek', 'relu', 'tanh', 'backprop', '', '🌱'),
+  /** Vary values a user might write by mistake: wrong kinds, out of range, odd characters. */
+  const junk = fc.oneof(
+    fc.integer({ min: -5, max: 50_000 }), fc.double({ noNaN: false }), fc.constantFrom('wander', 'relu', 'backprop', '', '🌱'),
     fc.array(fc.integer({ min: -2, max: 300 }), { maxLength: 3 }), fc.constant(null), fc.boolean(),
   );
-  const PATHS = [
-    'collect.steps', 'collect.policy', 'collect.episode_steps', 'senses.sight.width', 'senses.sound.bands',
-    'learners.*.encoder.hidden', 'learners.*.encoder.activation', 'learners.*.rule', 'learners.sound-from-sight.train.epochs',
-    'learners.0.train.learning_rate', 'noise.*.severities', 'probe.targets', 'world', 'seeds', 'learners.nobody.rule', 'out',
-  ];
+  /** Vary paths with values that are valid for them (most draws), so that many sweeps load and expand. */
+  const SETTINGS: Readonly<Record<string, fc.Arbitrary<unknown>>> = {
+    'collect.steps': fc.integer({ min: 2000, max: 30_000 }),
+    'collect.policy': fc.constantFrom(...POLICY_NAMES),
+    'collect.episode_steps': fc.integer({ min: 20, max: 400 }),
+    'senses.sight.width': fc.integer({ min: 1, max: 9 }),
+    'learners.*.encoder.hidden': fc.array(fc.integer({ min: 2, max: 128 }), { minLength: 1, maxLength: 3 }),
+    'learners.*.encoder.activation': fc.constantFrom(...ACTIVATIONS),
+    'learners.*.rule': fc.constantFrom(...RULES),
+    'learners.0.train.learning_rate': fc.double({ min: 1e-5, max: 0.1, noNaN: true }),
+    // Paths that name no setting, or a setting vary may not change: always a problem.
+    'learners.nobody.rule': fc.constantFrom(...RULES),
+    'seeds': fc.integer({ min: 1, max: 9 }),
+    'out': fc.constant('elsewhere'),
+  };
+  const varyKey = fc.constantFrom(...Object.keys(SETTINGS)).chain((key) => fc.tuple(
+    fc.constant(key),
+    fc.array(fc.oneof({ arbitrary: SETTINGS[key], weight: 4 }, { arbitrary: junk, weight: 1 }), { minLength: 1, maxLength: 4 }),
+  ));
 
   it('expands every vary map into the product of its lists, or reports one located line per problem', () => {
     const base = readFileSync(join(ROOT, 'configs', 'quickstart.yaml'), 'utf8');
-    fc.assert(fc.property(fc.dictionary(fc.constantFrom(...PATHS), fc.array(value, { minLength: 1, maxLength: 4 }), { minKeys: 1, maxKeys: 3 }), (vary) => {
-      const lines = Object.entries(vary).map(([key, values]) => `  ${key}: ${JSON.stringify(values)}`);
+    const unvaried = load(base);
+    if (!('cells' in unvaried)) throw new Error(`configs/quickstart.yaml does not load: ${unvaried.problems[0]}`);
+    let expanded = 0;
+    fc.assert(fc.property(fc.uniqueArray(varyKey, { selector: ([key]) => key, minLength: 1, maxLength: 2 }), (vary) => {
+      const lines = vary.map(([key, values]) => `  ${key}: ${JSON.stringify(values)}`);
       const outcome = load(`${base}vary:\n${lines.join('\n')}\n`);
       if ('problems' in outcome) {
         expect(located(outcome.problems, join(dir, 'configs', 'fuzzed.yaml'))).toBe(true);
       } else {
-        const combinations = Object.values(vary).reduce((n, values) => n * values.length, 1);
-        expect(outcome.cells).toBe(combinations * 3 * 5); // quickstart: 3 seeds × 5 learners
+        expanded++;
+        const combinations = vary.reduce((n, [, values]) => n * values.length, 1);
+        expect(outcome.cells).toBe(combinations * unvaried.cells);
       }
     }), { seed: SEED, numRuns: Number(process.env.FUZZ_RUNS ?? 60) });
+    // The property must see sweeps that load, not only problems.
+    expect(expanded).toBeGreaterThan(0);
   });
 });

@@ -3,7 +3,7 @@ import { dirname, resolve } from 'node:path';
 import { isAlias, isMap, isScalar, isSeq, LineCounter, parseDocument, visit } from 'yaml';
 import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkConfig } from './config-checks.js';
-import { ConfigError, duplicateKeys, formatProblems, type ConfigProblem, type ConfigSource } from './config-errors.js';
+import { ConfigError, duplicateKeys, formatProblems, pathText, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { configParts } from './config-parts.js';
 import { constantTargetWarnings } from './constant-targets.js';
 import { DEFAULTS } from './defaults.js';
@@ -47,7 +47,7 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const combinations = cartesian(varyKeys.map((key) => filled.vary[key])).map((values) => {
     const config = withValues(filled, values.map((value, i) => ({ paths: matches[i], value })));
     const problems = configProblems(config);
-    if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${problems[0].message}` }]);
+    if (problems.length > 0) fail([{ path: ['vary'], message: `the combination ${values.map(varyText).join(', ')} is invalid: ${pathText(problems[0].path, config)}: ${problems[0].message}` }]);
     return {
       vary: Object.fromEntries(varyKeys.map((key, i) => [key, varyText(values[i])])),
       settings: resolveSettings(config, resolve(configDir, config.world)),
@@ -94,7 +94,7 @@ function parseSource(file: string): ConfigSource {
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
-    throw new ConfigError([`${file}: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
+    throw new ConfigError([`${file}:1:1: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
   const tooDeep = yamlNestingProblem(text, file);
   if (tooDeep != null) throw new ConfigError([tooDeep]);

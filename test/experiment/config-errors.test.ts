@@ -242,6 +242,12 @@ describe('config validation', () => {
     ]);
   });
 
+  it('rejects a combination of vary values that is invalid only together, naming the combination and the setting', async () => {
+    expect(await rejection(`${VALID}vary:\n  collect.steps: [1000, 200]\n  collect.episode_steps: [100, 500]\n`)).toEqual([
+      'config.yaml:15:3: vary: the combination 200, 500 is invalid: collect.episode_steps: expected at most collect.steps (200), got 500',
+    ]);
+  });
+
   it('throws ConfigError from loadSweep with the same lines', () => {
     const dir = configFolder(VALID.replace('seeds: [1]', 'seeds: []'));
     expect(() => loadSweep(join(dir, 'config.yaml'))).toThrow(ConfigError);

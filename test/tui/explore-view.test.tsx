@@ -29,14 +29,14 @@ describe('explore screen at 80×24', () => {
       '##########              ░░░░▒▒▒▒▒▒▒▒▒▒▒▒               589  54   ▐███│███     51',
       '                                 ◓                     812  54   ▐███│███     49',
       '◓◑◒◐ you                touch                         1.1k  54   ▐███│██▌     47',
-      'underlined: seen        whisker_left           0.00   1.4k  54   ▐███│██▌     45',
-      '# wall  . boards        whisker_front          0.00   1.7k  54   ▐███│██      42',
-      'E bell (on)             whisker_right ████████ 1.00   2.2k  54   ▐███│██      40',
-      'sound bars 20–80 dB     bump_force             0.00   2.6k  54   ▐███│██      39',
-      '                        footfall_0             0.00   3.2k  53   ▐███│█▌      37',
-      '                        footfall_1             0.00   3.9k  53   ▐███│█▌      36',
-      '                        footfall_2             0.00   4.7k  53   ▐███│█▌      35',
-      '                        footfall_3             0.00   5.6k  53   ▐███│█▌      34',
+      'underlined: seen        whisker_left        0.00      1.4k  54   ▐███│██▌     45',
+      '# wall  . boards        whisker_front       0.00      1.7k  54   ▐███│██      42',
+      'E bell (on)             whisker_right █████ 1.00      2.2k  54   ▐███│██      40',
+      'sound bars 20–80 dB     bump_force          0.00      2.6k  54   ▐███│██      39',
+      '                        footfall_0          0.00      3.2k  53   ▐███│█▌      37',
+      '                        footfall_1          0.00      3.9k  53   ▐███│█▌      36',
+      '                        footfall_2          0.00      4.7k  53   ▐███│█▌      35',
+      '                        footfall_3          0.00      5.6k  53   ▐███│█▌      34',
       '                        ground truth                  6.7k  53   ▐███│█▌      34',
       '                        x 2 y 3 east                  8.0k  52    ███│█▌      33',
       '                        under boards                  noise · n k + -',
@@ -55,19 +55,19 @@ describe('explore screen at 120×40', () => {
     // footfall bars show the boards' texture 0.1 0.2 0.3 0.4, and the wall is ahead.
     expect(screen(press(start(), 'w', 'l'), { columns: 120, rows: 40 })).toEqual([
       'bell-room · step 1 · x 2 y 2 facing north · forward: moved',
-      '##########                    sight · ahead is up          ground truth',
-      '##. EE. ##                                                 x 2 y 2 north',
-      '##. ◓ . ##                                                 under boards',
-      '##. . . ##                    ░░░░░░░░    ░░░░░░░░         ahead boards wall',
-      '##########                    ░░░░▒▒▒▒████▒▒▒▒░░░░         nearest bell',
-      '                                       ◓                   1.0 m at 0° (ahead)',
-      '◓◑◒◐ you  underlined: seen    sound dB   left│right   dB   emitter in view yes',
-      '# wall  . boards               100  20       │        20   motor · last command',
-      'E bell (off)                   238  20       │        20   forward       ████████ 1.00',
-      'sound bars 20–80 dB            400  20       │        20   back                   0.00',
-      '                               589  20       │        20   turn-left              0.00',
-      '                               812  20       │        20   turn-right             0.00',
-      '                              1.1k  20       │        20   stay                   0.00',
+      '##########                    sight · ahead is up         ground truth',
+      '##. EE. ##                                                x 2 y 2 north',
+      '##. ◓ . ##                                                under boards',
+      '##. . . ##                    ░░░░░░░░    ░░░░░░░░        ahead boards wall',
+      '##########                    ░░░░▒▒▒▒████▒▒▒▒░░░░        nearest bell',
+      '                                       ◓                  1.0 m at 0° (ahead)',
+      '◓◑◒◐ you  underlined: seen    sound dB   left│right   dB  emitter in view yes',
+      '# wall  . boards               100  20       │        20  motor · last command',
+      'E bell (off)                   238  20       │        20  forward       █████ 1.00',
+      'sound bars 20–80 dB            400  20       │        20  back                0.00',
+      '                               589  20       │        20  turn-left           0.00',
+      '                               812  20       │        20  turn-right          0.00',
+      '                              1.1k  20       │        20  stay                0.00',
       '                              1.4k  20       │        20',
       '                              1.7k  20       │        20',
       '                              2.2k  20       │        20',
@@ -79,14 +79,14 @@ describe('explore screen at 120×40', () => {
       '                              6.7k  20       │        20',
       '                              8.0k  20       │        20',
       '                              touch',
-      '                              whisker_left           0.00',
-      '                              whisker_front ████████ 1.00',
-      '                              whisker_right          0.00',
-      '                              bump_force             0.00',
-      '                              footfall_0    ▊        0.10',
-      '                              footfall_1    █▋       0.20',
-      '                              footfall_2    ██▍      0.30',
-      '                              footfall_3    ███▎     0.40',
+      '                              whisker_left        0.00',
+      '                              whisker_front █████ 1.00',
+      '                              whisker_right       0.00',
+      '                              bump_force          0.00',
+      '                              footfall_0    ▌     0.10',
+      '                              footfall_1    █     0.20',
+      '                              footfall_2    █▌    0.30',
+      '                              footfall_3    ██    0.40',
       '                              noise · n k + -',
       '                              > sight gaussian 0 clean',
       '                                sound gaussian 0 clean',
@@ -129,13 +129,13 @@ describe('explore view: the map', () => {
   it('shows a window of a map wider than the terminal allows, centred on the agent but kept inside the map', () => {
     const wide = ['#'.repeat(60), `#${'.'.repeat(57)}E#`, ...Array<string>(2).fill(`#${'.'.repeat(58)}#`), '#'.repeat(60)];
     const at = (x: number) => initialExploreState([bellRoom(wide, `{ x: ${x}, y: 2, heading: east }`)], 1, false);
-    // At 80 columns the panels take 57 (29 + 28 with gaps), leaving 23 map columns, one per cell.
-    // Agent at x 50: the window would start at 50 − 11 = 39 but must end by column 59, so it starts at 37.
+    // At 80 columns the panels take 54 (26 + 28 with gaps), leaving 26 map columns, one per cell.
+    // Agent at x 50: the window would start at 50 − 13 = 37 but must end by column 59, so it starts at 34.
     const right = exploreView(at(50), { columns: 80, rows: 24 });
-    expect(right.map[2].map((c) => c.text).join('')).toBe('.............◑........#');
-    expect(right.mapKey).toContain('x 37–59 y 0–4 of 60×5');
+    expect(right.map[2].map((c) => c.text).join('')).toBe('................◑........#');
+    expect(right.mapKey).toContain('x 34–59 y 0–4 of 60×5');
     // Agent at x 3: the window starts at column 0.
-    expect(exploreView(at(3), { columns: 80, rows: 24 }).map[2].map((c) => c.text).join('')).toBe('#..◑...................');
+    expect(exploreView(at(3), { columns: 80, rows: 24 }).map[2].map((c) => c.text).join('')).toBe('#..◑......................');
   });
 });
 

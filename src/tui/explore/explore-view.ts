@@ -47,7 +47,7 @@ export interface ExploreView {
 
 /** Labels of the touch and motor bars (the channel registry's entry names, as `sense` prints them) and the width of their bars. */
 export const BAR_LABEL_WIDTH = Math.max(...[...TOUCH_NAMES, ...ACTIONS].map((name) => name.length));
-export const BAR_WIDTH = 8;
+export const BAR_WIDTH = 5;
 const BAR_PANEL_WIDTH = BAR_LABEL_WIDTH + 1 + BAR_WIDTH + 1 + 4;
 /** The map keeps at least this many columns (or the whole map when it is narrower). */
 const MIN_MAP_COLUMNS = 20;

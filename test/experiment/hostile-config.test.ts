@@ -1,6 +1,6 @@
 // Configs built to hurt: each names the fault and expects one located line, exit code 1
 // and nothing written. The limits are those of src/input-limits.ts (README, "Limits").
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi, type MockInstance } from 'vitest';
 import { cellCommand } from '../../src/commands/cell.js';
@@ -83,6 +83,15 @@ describe('hostile configs', () => {
     const dir = configFolder(CONFIG);
     expect(await cellCommand([join(dir, 'config.yaml'), '--index', '99'], FAKE_WORK)).toBe(1);
     expect(errorLines()).toEqual(["crosswise cell: --index: expected a whole number from 0 to 0, got '99'"]);
+    expect(existsSync(join(dir, 'out'))).toBe(false);
+  });
+
+  it('writes nothing for a world whose number is not finite, and says what the number was', async () => {
+    const dir = configFolder(CONFIG);
+    const world = join(dir, 'world.yaml');
+    writeFileSync(world, readFileSync(world, 'utf8').replace('cell_size_m: 0.5', 'cell_size_m: .nan'));
+    expect(await runCommand([join(dir, 'config.yaml')], { workModule: FAKE_WORK })).toBe(1);
+    expect(errorLines()).toContain(`crosswise run: ${world}:3:14: cell_size_m: expected a number > 0 and <= 100, got .nan (not a finite number)`);
     expect(existsSync(join(dir, 'out'))).toBe(false);
   });
 });

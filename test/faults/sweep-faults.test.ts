@@ -19,6 +19,8 @@ learners:
   - { name: sight-autoencoder, objective: reconstruct, input: [sight], train: { epochs: 2 } }
 noise:
   - { channel: sight, kind: gaussian, severities: [0, 2] }
+probe:
+  targets: [wall_ahead, material_ahead, nearest_distance_m, heading, x]   # each varies in the shed (one emitter: nearest_emitter would not)
 out: out
 `;
 

@@ -5,7 +5,7 @@ import moduleTable from './lint/module-table.js';
 // The module table of src/, top to bottom (DEVELOPERS.md): a module imports only from
 // modules above it. random.ts and stats/ come first, so every module may use them.
 const MODULE_ORDER = [
-  'random.ts', 'stats', 'world', 'senses', 'collect', 'noise', 'learn', 'probe',
+  'random.ts', 'input-limits.ts', 'stats', 'world', 'senses', 'collect', 'noise', 'learn', 'probe',
   'results', 'report', 'experiment', 'bench', 'tui', 'commands', 'cli.ts',
 ];
 

@@ -14,6 +14,6 @@ export const cellUsage = defineCommand({
     'retry-failed': { kind: 'flag', description: 'run the cell again if it failed before' },
   },
   examples: ['crosswise cell configs/quickstart.yaml --index 3 --out runs/quickstart'],
-  exitCodes: [0, 1, 3, 5],
+  exitCodes: [0, 1, 3, 4, 5],
   load: async () => (await import('./cell.js')).cellCommand,
 });

@@ -2,13 +2,13 @@ import { failureReason, PIPELINE_MODULE, type CellWorkModule } from '../experime
 import type { EpochLog } from '../learn/spec.js';
 import { cellLabel, planCells } from '../experiment/plan.js';
 import { plainLine } from '../experiment/plain-log.js';
-import { cellEndEvent, prepareOutput } from '../experiment/runner.js';
+import { cellEndEvent, prepareOutput, storedCells } from '../experiment/runner.js';
 import { storeCell, type CellResult } from '../experiment/store.js';
-import { discardCell } from '../results/cell-folder.js';
-import { cellStates } from '../results/cell-states.js';
+import { writeFailure } from '../results/write-failure.js';
 import { cellUsage } from './cell-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
+import { printProblem } from './messages.js';
 import { UsageError } from './usage.js';
 
 /** `crosswise cell`: runs exactly one cell, one task of a cluster job array (see cell-usage.ts). */
@@ -19,24 +19,32 @@ export async function cellCommand(args: readonly string[], workModule: string = 
     // Checked before prepareOutput writes anything: an invalid command line leaves no trace.
     const planned = planCells(sweep).length;
     if (index >= planned) throw new UsageError(`--index: expected a whole number from 0 to ${planned - 1}, got '${index}'`);
-    const cells = prepareOutput(sweep);
+    const warn = (line: string) => printProblem('cell', `warning: ${line}`);
+    const cells = prepareOutput(sweep, false, warn);
     const cell = cells[index];
     const print = (event: Parameters<typeof plainLine>[0]) => console.log(plainLine(event, cells.length));
-    const [stored] = cellStates(sweep.out, [cell]);
-    if (stored.status === 'done') {
+    const stored = storedCells(sweep.out, [cell], warn).get(cell.id);
+    if (stored?.status === 'done') {
       console.log(`cell ${index} (${cell.id}) is already done in ${sweep.out}`);
       return EXIT.success;
     }
-    if (stored.status === 'failed' && !values['retry-failed']) {
+    if (stored?.status === 'failed' && !values['retry-failed']) {
       console.log(`cell ${index} (${cell.id}) failed before (${stored.reason}); add --retry-failed to run it again`);
       return EXIT.cellsFailed;
     }
-    if (stored.status === 'failed') discardCell(sweep.out, cell.id);
     print({ type: 'cell-start', cell: cellLabel(cell), worker: 1 });
     const result = await runInProcess(workModule, cell, (log) => print({ type: 'epoch', cell: cellLabel(cell), worker: 1, log }));
-    const record = storeCell(sweep.out, cell, result, sweep.varyKeys);
+    try {
+      // A failed cell being retried keeps its record until the new one is stored in its place.
+      storeCell(sweep.out, cell, result, sweep.varyKeys, stored?.status === 'failed');
+    } catch (error) {
+      const failure = writeFailure(error);
+      if (failure == null) throw error;
+      printProblem('cell', `cell ${index} (${cell.id}): ${failure}`);
+      return EXIT.writeFailed;
+    }
     print(cellEndEvent(cell, 1, result));
-    return record.status === 'done' ? EXIT.success : EXIT.cellsFailed;
+    return result.status === 'done' ? EXIT.success : EXIT.cellsFailed;
   });
 }
 

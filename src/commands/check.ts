@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { inspectConfigFile } from '../experiment/config.js';
 import { fileKind, worldFileProblems, yamlSyntaxProblems, type FileKind } from '../experiment/file-kind.js';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkUsage } from './check-usage.js';
 import { runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
@@ -22,12 +23,17 @@ const CHECKERS: Readonly<Record<FileKind, (path: string) => Omit<Checked, 'kind'
 
 /** The problems and warnings of one file, checked as what its content says it is (see fileKind). */
 export function checkFile(path: string): Checked {
+  // The largest file crosswise reads is a world file; anything larger is refused unread.
+  const tooLarge = fileSizeProblem(path, INPUT_LIMITS.worldBytes, 'file');
+  if (tooLarge != null) return { kind: null, problems: [tooLarge], warnings: [] };
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
   } catch (error) {
     return { kind: null, problems: [`${path}:1:1: cannot read the file (${(error as NodeJS.ErrnoException).code ?? String(error)})`], warnings: [] };
   }
+  const tooDeep = yamlNestingProblem(text, path);
+  if (tooDeep != null) return { kind: null, problems: [tooDeep], warnings: [] };
   const kind = fileKind(text);
   if (kind != null) return { kind, ...CHECKERS[kind](path) };
   const syntax = yamlSyntaxProblems(text, path);

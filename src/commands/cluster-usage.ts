@@ -23,6 +23,6 @@ export const clusterUsage = defineCommand({
     'crosswise cluster configs/quickstart.yaml --out /shared/runs/quickstart --time 1:00:00 --mem 4G',
     'bash /shared/runs/quickstart/array-job.sh',
   ],
-  exitCodes: [0, 1, 5],
+  exitCodes: [0, 1, 4, 5],
   load: async () => (await import('./cluster.js')).clusterCommand,
 });

@@ -11,7 +11,7 @@ import { cellStates } from '../results/cell-states.js';
 import { clusterUsage } from './cluster-usage.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
-import { count } from './messages.js';
+import { count, printProblem } from './messages.js';
 import { UsageError } from './usage.js';
 
 const CROSSWISE_BIN = fileURLToPath(new URL('../../bin/crosswise.js', import.meta.url));
@@ -36,7 +36,7 @@ export async function clusterCommand(args: readonly string[]): Promise<number> {
       console.log('nothing to submit: no script written');
       return EXIT.success;
     }
-    prepareOutput(sweep);
+    prepareOutput(sweep, false, (line) => printProblem('cluster', `warning: ${line}`));
     const blocks = arrayBlocks(toRun, values['max-array-size']);
     const script = join(sweep.out, SCRIPT_NAME);
     writeFileAtomic(script, clusterScript({

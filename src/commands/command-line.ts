@@ -1,6 +1,8 @@
 import { ConfigError } from '../experiment/config-errors.js';
 import { loadSweep } from '../experiment/config.js';
 import type { Sweep } from '../experiment/resolved-config.js';
+import { OutputBusyError } from '../results/experiment-record.js';
+import { writeFailure } from '../results/write-failure.js';
 import { WorldFileError } from '../world/problems.js';
 import { EXIT } from './exit-codes.js';
 import { commandHelp, wantsHelp } from './help.js';
@@ -16,23 +18,12 @@ function inputProblems(error: unknown): readonly string[] | null {
   return null;
 }
 
-/** File-system calls that only ever write; `open` counts as a write only for errors no read gives. */
-const WRITE_CALLS = new Set(['mkdir', 'rename', 'write', 'copyfile', 'chmod', 'unlink', 'rmdir', 'symlink', 'link']);
-const WRITE_ONLY_CODES = new Set(['EROFS', 'ENOSPC', 'EDQUOT', 'EISDIR', 'EEXIST']);
-
-/** `cannot write <path>: <code>` when the error is a failed write to the file system, else null. */
-export function writeFailure(error: unknown): string | null {
-  const { syscall, code, path } = error as Partial<NodeJS.ErrnoException>;
-  if (!(error instanceof Error) || syscall == null || code == null) return null;
-  const writing = WRITE_CALLS.has(syscall) || (syscall === 'open' && WRITE_ONLY_CODES.has(code));
-  return writing ? `cannot write ${path ?? 'a file'}: ${code} (${syscall})` : null;
-}
-
 /**
  * Runs a command's body on its parsed command line. `-h`/`--help` prints the command's help
  * instead; an invalid command line, config or world prints each problem as one
  * `crosswise <command>: ...` line and returns exit code 1 (the body must not have written
- * anything by then); a failed write to the file system is one line and exit code 5.
+ * anything by then); an output folder that is busy or belongs to another experiment is one
+ * line and exit code 4; a failed write to the file system is one line and exit code 5.
  */
 export async function runAction<Os extends Record<string, OptionDeclaration>>(
   usage: CommandUsage<Os>,
@@ -50,6 +41,10 @@ export async function runAction<Os extends Record<string, OptionDeclaration>>(
     if (problems != null) {
       for (const problem of problems) printProblem(usage.name, problem);
       return EXIT.invalidInput;
+    }
+    if (error instanceof OutputBusyError) {
+      printProblem(usage.name, error.message);
+      return EXIT.outputBusy;
     }
     const failedWrite = writeFailure(error);
     if (failedWrite == null) throw error;

@@ -3,9 +3,9 @@ export const EXIT_CODES = {
   0: 'success',
   1: 'invalid input (config, world, arguments); nothing written',
   2: 'some cells are missing: not run yet, still running, or lost (status)',
-  3: 'some cells failed; the rest completed and are stored',
-  4: 'the output folder is busy or belongs to another experiment',
-  5: 'a write failed',
+  3: 'some cells failed; the rest completed and are stored (run --retry-failed computes them again)',
+  4: 'the output folder is busy (another run holds it) or belongs to another experiment or results format; nothing written',
+  5: 'a write failed (a full disk, no permission); what was stored is kept',
   130: 'interrupted; finished cells are kept',
 } as const;
 

@@ -8,6 +8,6 @@ export const reportUsage = defineCommand({
   operands: [{ name: 'DIR', description: 'the output folder of a sweep' }],
   options: {},
   examples: ['crosswise report runs/quickstart'],
-  exitCodes: [0, 1, 5],
+  exitCodes: [0, 1, 4, 5],
   load: async () => (await import('./report.js')).reportCommand,
 });

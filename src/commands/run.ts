@@ -6,7 +6,7 @@ import { planCells } from '../experiment/plan.js';
 import { runSweep } from '../experiment/runner.js';
 import { loadSweepFrom, runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
-import { printProblem } from './messages.js';
+import { count, printProblem } from './messages.js';
 import { runUsage } from './run-usage.js';
 
 /** What a terminal dashboard needs from the run. */
@@ -27,7 +27,7 @@ export interface RunCommandParts {
   readonly dashboard?: Dashboard;
 }
 
-type Dashboard = (hooks: DashboardHooks) => { waitUntilExit(): Promise<void> };
+type Dashboard = (hooks: DashboardHooks) => { waitUntilExit(): Promise<void>; unmount(): void };
 
 /** The Ink dashboard, loaded only when a run shows it (Ink and React take a while to load). */
 async function terminalDashboard(): Promise<Dashboard> {
@@ -70,16 +70,31 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
         signal: controller.signal,
         abandon: abandon.signal,
         report: buildSummary,
+        warn: (line) => printProblem('run', `warning: ${line}`),
+        force: values.force,
+        retryFailed: values['retry-failed'],
+      }).catch((error: unknown) => {
+        dashboard?.unmount(); // the sweep never started (a busy or foreign output folder): take the screen down before the message
+        throw error;
       });
       if (dashboard != null) {
         await dashboard.waitUntilExit();
         warn();
       }
+      if (outcome.writeFailures.length > 0) {
+        for (const line of outcome.writeFailures) printProblem('run', line);
+        printProblem('run', `no new cells were started after a write failed; free space or fix the folder's permissions, then resume with: ${resumeCommand(config, values.out)}`);
+        return EXIT.writeFailed;
+      }
       if (outcome.interrupted) {
-        console.log(`stopped; finished cells are kept. resume with: crosswise run ${config}${values.out == null ? '' : ` --out ${values.out}`}`);
+        console.log(`stopped; finished cells are kept. resume with: ${resumeCommand(config, values.out)}`);
         return EXIT.interrupted;
       }
-      return outcome.failed > 0 ? EXIT.cellsFailed : EXIT.success;
+      if (outcome.failed > 0) {
+        printProblem('run', `${count(outcome.failed, 'cell')} failed; compute them again with: ${resumeCommand(config, values.out)} --retry-failed`);
+        return EXIT.cellsFailed;
+      }
+      return EXIT.success;
     } finally {
       process.off('SIGINT', stop);
       process.off('SIGTERM', stop);
@@ -87,11 +102,15 @@ export async function runCommand(args: readonly string[], parts: RunCommandParts
   });
 }
 
+/** The command that picks the sweep up where it stopped. */
+function resumeCommand(config: string, out: string | undefined): string {
+  return `crosswise run ${config}${out == null ? '' : ` --out ${out}`}`;
+}
+
 /** Builds summary.md, comparisons.csv and the plots; returns where the summary is. */
 async function buildSummary(out: string): Promise<string> {
   // Imported on demand: the plotting library takes a moment to load.
   const { buildReport } = await import('../report/build-report.js');
-  const files = await buildReport(out).catch((error: unknown) => error as Error);
-  if (files instanceof Error) return `the report could not be built: ${files.message}`;
+  const files = await buildReport(out);
   return `summary: ${files.summaryPath}${files.warnings.length > 0 ? ` (${files.warnings.length} warnings: ${files.warnings[0]})` : ''}`;
 }

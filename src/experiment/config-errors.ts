@@ -1,4 +1,5 @@
 import { isMap, isPair, isScalar, isSeq, type Document, type LineCounter, type Node } from 'yaml';
+import { oneLine } from '../input-limits.js';
 
 /** One thing wrong with a config, at a key path inside it. */
 export interface ConfigProblem {
@@ -37,7 +38,8 @@ export function formatProblems(source: ConfigSource, problems: readonly ConfigPr
     const { line, col } = source.lineCounter.linePos(offset);
     const key = problem.path.length === 0 ? '(top level)' : pathText(problem.path, data);
     const kind = problem.warning === true ? 'warning: ' : '';
-    return { offset, lines: [`${source.file}:${line}:${col}: ${kind}${key}: ${problem.message}`, ...problem.detail ?? []] };
+    // One problem, one line, whatever the config held in its keys and values.
+    return { offset, lines: [oneLine(`${source.file}:${line}:${col}: ${kind}${key}: ${problem.message}`), ...problem.detail ?? []] };
   });
   located.sort((a, b) => a.offset - b.offset);
   const seen = new Set<string>();

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
-import { LineCounter, parseDocument } from 'yaml';
+import { isAlias, isMap, isScalar, isSeq, LineCounter, parseDocument, visit } from 'yaml';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { checkConfig } from './config-checks.js';
 import { ConfigError, duplicateKeys, formatProblems, pathText, type ConfigProblem, type ConfigSource } from './config-errors.js';
 import { configParts } from './config-parts.js';
@@ -31,7 +32,8 @@ export function loadSweep(file: string, options: LoadOptions = {}): Sweep {
   const fail = (problems: readonly ConfigProblem[]) => {
     if (problems.length > 0) throw new ConfigError(formatProblems(source, problems));
   };
-  const raw: unknown = source.doc.toJS();
+  const raw = plainData(source);
+  fail(sweepSizeProblems(raw));
   const parts = configParts(raw);
   const plugins = new PluginCatalog(configDir);
   const configProblems = (config: unknown) => problemsOf(config, plugins);
@@ -90,17 +92,22 @@ function outFolder(filled: FilledConfig, configDir: string, options: LoadOptions
 }
 
 function parseSource(file: string): ConfigSource {
+  const tooLarge = fileSizeProblem(file, INPUT_LIMITS.configBytes, 'config file');
+  if (tooLarge != null) throw new ConfigError([tooLarge]);
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
     throw new ConfigError([`${file}:1:1: cannot read the config file (${(error as NodeJS.ErrnoException).code ?? String(error)})`]);
   }
+  const tooDeep = yamlNestingProblem(text, file);
+  if (tooDeep != null) throw new ConfigError([tooDeep]);
   const wrong = wrongKind(text, file, 'config');
   if (wrong != null) throw new ConfigError([wrong]);
   const lineCounter = new LineCounter();
-  // Duplicate keys are found by duplicateKeys, with their key path, among the other problems.
-  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, uniqueKeys: false });
+  // Duplicate keys are found by duplicateKeys, with their key path, among the other problems;
+  // logLevel 'error': a collection used as a key is reported as an unknown key, not as a Node warning on stderr.
+  const doc = parseDocument(text, { merge: true, lineCounter, prettyErrors: false, uniqueKeys: false, logLevel: 'error' });
   if (doc.errors.length > 0) {
     throw new ConfigError(doc.errors.map((error) => {
       const { line, col } = lineCounter.linePos(error.pos[0]);
@@ -108,6 +115,82 @@ function parseSource(file: string): ConfigSource {
     }));
   }
   return { file, doc, lineCounter };
+}
+
+/**
+ * The config as plain data. Aliases are expanded with the `yaml` package's guard against
+ * alias bombs (a few lines whose aliases nest into billions of nodes); tripping it is one
+ * line at the first alias that brings in other aliases. A merge (`<<`) of something that
+ * is not a mapping is one line at that merge.
+ */
+function plainData(source: ConfigSource): unknown {
+  try {
+    return source.doc.toJS({ maxAliasCount: INPUT_LIMITS.aliasNodes });
+  } catch (error) {
+    if (!(error instanceof Error)) throw error;
+    const bomb = error instanceof ReferenceError;
+    const { line, col } = source.lineCounter.linePos((bomb ? nestedAliasOffset(source.doc) : badMergeOffset(source.doc)) ?? 0);
+    const reason = bomb
+      ? `an alias here expands to more than ${INPUT_LIMITS.aliasNodes} nodes (aliases of aliases; see "Limits" in the README)`
+      : error.message.split('\n')[0];
+    throw new ConfigError([`${source.file}:${line}:${col}: (YAML): ${reason}`]);
+  }
+}
+
+/** Offset of the first alias whose anchored node holds aliases itself, else of the first alias. */
+function nestedAliasOffset(doc: ConfigSource['doc']): number | undefined {
+  let first: number | undefined;
+  let nested: number | undefined;
+  visit(doc, {
+    Alias(_, alias) {
+      first ??= alias.range?.[0];
+      let holdsAliases = false;
+      const target = alias.resolve(doc);
+      if (target != null) visit(target, { Alias: () => { holdsAliases = true; return visit.BREAK; } });
+      if (!holdsAliases) return undefined;
+      nested = alias.range?.[0];
+      return visit.BREAK;
+    },
+  });
+  return nested ?? first;
+}
+
+/** Offset of the first merge key (`<<`) whose value is not a mapping or a list of them. */
+function badMergeOffset(doc: ConfigSource['doc']): number | undefined {
+  let found: number | undefined;
+  const isMapping = (node: unknown): boolean => isMap(isAlias(node) ? node.resolve(doc) : node);
+  visit(doc, {
+    Pair(_, pair) {
+      if (!isScalar(pair.key) || pair.key.value !== '<<') return undefined;
+      const ok = isSeq(pair.value) ? pair.value.items.every(isMapping) : isMapping(pair.value);
+      if (ok) return undefined;
+      found = pair.key.range?.[0];
+      return visit.BREAK;
+    },
+  });
+  return found;
+}
+
+/**
+ * A sweep of more cells than INPUT_LIMITS.sweepCells, counted from the raw config before
+ * anything is checked value by value or expanded (lists the schema will refuse count as
+ * one, so the count never exceeds what a valid config of the same lists would give).
+ */
+function sweepSizeProblems(raw: unknown): ConfigProblem[] {
+  const section = (key: string): unknown => (raw != null && typeof raw === 'object' ? (raw as Record<string, unknown>)[key] : undefined);
+  const length = (list: unknown) => (Array.isArray(list) ? Math.max(1, list.length) : 1);
+  const vary = section('vary');
+  const lists = vary != null && typeof vary === 'object' && !Array.isArray(vary) ? Object.values(vary) : [];
+  const combinations = lists.reduce<number>((n, values) => n * length(values), 1);
+  const [seeds, learners] = [length(section('seeds')), length(section('learners'))];
+  const cells = combinations * seeds * learners;
+  if (cells <= INPUT_LIMITS.sweepCells) return [];
+  const counted = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
+  const factors = [counted(combinations, 'vary combination'), counted(seeds, 'seed'), counted(learners, 'learner')].join(' × ');
+  return [{
+    path: [lists.length > 0 ? 'vary' : 'seeds'], atKey: true,
+    message: `the sweep has ${cells} cells (${factors}); at most ${INPUT_LIMITS.sweepCells} are run from one config (see "Limits" in the README): split it into several configs`,
+  }];
 }
 
 /** Warnings about default probe targets point at the world they cannot vary in, as the file has no targets to point at. */

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import type { EpochLog } from '../learn/spec.js';
-import { commitCellFolder } from '../results/cell-folder.js';
+import { commitCell } from '../results/cell-folder.js';
 import { cellIdentity } from '../results/cell-identity.js';
-import { formatCellRecord, type CellRecord } from '../results/cell-record.js';
+import type { CellRecord } from '../results/cell-record.js';
 import { RESULTS_FORMAT_VERSION } from '../results/format-version.js';
 import { CELL_FILES } from '../results/layout.js';
 import { encodeNpy } from '../results/npy.js';
@@ -17,12 +17,13 @@ export type CellResult =
   | { readonly status: 'done'; readonly outcome: CellOutcome; readonly totalSeconds: number }
   | { readonly status: 'failed'; readonly reason: string; readonly log: readonly EpochLog[]; readonly totalSeconds: number };
 
-/** Stores a finished cell (done or failed) as one folder committed at once; returns its record. */
-export function storeCell(out: string, cell: PlannedCell, result: CellResult, varyKeys: readonly string[]): CellRecord {
+/**
+ * Stores a finished cell (done or failed) as one folder committed at once; returns its
+ * record. `replaceFailed` lets it take the place of a stored failed cell (a retry).
+ */
+export function storeCell(out: string, cell: PlannedCell, result: CellResult, varyKeys: readonly string[], replaceFailed = false): CellRecord {
   const outcome = result.status === 'done' ? result.outcome : undefined;
-  const record = cellRecord(cell, result);
   const files: Record<string, string | Uint8Array> = {
-    [CELL_FILES.record]: formatCellRecord(record),
     [CELL_FILES.train]: formatTrainCsv(outcome?.log ?? (result.status === 'failed' ? result.log : [])),
   };
   if (outcome != null) {
@@ -30,11 +31,10 @@ export function storeCell(out: string, cell: PlannedCell, result: CellResult, va
     files[CELL_FILES.scores] = formatResultsCsv(resultRows(cell, rows), varyKeys);
     for (const [name, array] of Object.entries(outcome.arrays)) files[`${name}.npy`] = encodeNpy(array.data, array.shape);
   }
-  commitCellFolder(out, cell.id, files);
-  return record;
+  return commitCell(out, cellRecord(cell, result), files, replaceFailed);
 }
 
-function cellRecord(cell: PlannedCell, result: CellResult): CellRecord {
+function cellRecord(cell: PlannedCell, result: CellResult): Omit<CellRecord, 'files'> {
   const outcome = result.status === 'done' ? result.outcome : undefined;
   return {
     format_version: RESULTS_FORMAT_VERSION,

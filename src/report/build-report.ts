@@ -2,6 +2,7 @@ import { mkdir, readdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { summarise } from '../stats/summarise.js';
 import { writeFileAtomic } from '../results/atomic-file.js';
+import { removeLeftovers } from '../results/cell-folder.js';
 import { formatComparisonsCsv } from '../results/comparisons-table.js';
 import { outputPath } from '../results/layout.js';
 import { writeResultsCsv } from '../results/stored-results.js';
@@ -26,12 +27,14 @@ export interface ReportFiles {
 
 /**
  * Rebuilds results.csv, summary.md, comparisons.csv and plots/*.svg from an output
- * folder's stored cells alone, in config order, so `crosswise run` and `crosswise report`
- * write the same bytes. Every file is written atomically. Throws a one-line error when
+ * folder's trusted stored cells alone, in config order, so `crosswise run` and `crosswise
+ * report` write the same bytes. Every file is written atomically; temporary files that
+ * killed processes left behind are removed. Throws a one-line error when
  * the folder or its results are missing.
  */
 export async function buildReport(outDir: string): Promise<ReportFiles> {
   const run = loadRun(outDir);
+  removeLeftovers(outDir);
   const resultsPath = writeResultsCsv(outDir, run.results);
   const warnings = [...run.warnings, ...silentLayerNotes(run.cells)];
   const combos = combinations(run.rows, run.varyKeys, run.measures);

@@ -1,14 +1,14 @@
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { CONTROL_OBJECTIVES, type EpochLog, type ObjectiveName } from '../learn/spec.js';
 import type { SeedMeasure } from '../probe/robustness.js';
-import { isFinished } from '../results/cell-folder.js';
-import { readCellRecord, type CellRecord } from '../results/cell-record.js';
+import type { CellRecord } from '../results/cell-record.js';
+import { armKey, otherFormatMessage, OutputBusyError, readFolderOwner } from '../results/experiment-record.js';
 import { cellArrayPath, cellPath, TEST_FEATURES } from '../results/layout.js';
-import { outputOrder } from '../results/output-order.js';
-import { readPlan } from '../results/plan-table.js';
+import { readPlan, type PlanEntry } from '../results/plan-table.js';
 import { isScore, isSeedMeasure, type MeasureRow, type ResultsTable, type ScoreRow } from '../results/results-table.js';
 import { readRunSettings } from '../results/run-settings.js';
-import { readStoredResults } from '../results/stored-results.js';
+import { cellFaultLine } from '../results/stored-cell.js';
+import { readStoredRun } from '../results/stored-results.js';
 import { parseTrainCsv } from '../results/train-table.js';
 
 /** A stored cell as the report uses it: its record, its training log and whether it kept test features. */
@@ -43,19 +43,29 @@ export interface StoredRun {
 }
 
 /**
- * Reads an output folder: its plan, the stored cells and config.resolved.yaml. Throws a
- * one-line error when there is nothing to report; damaged cell files become warnings.
+ * Reads an output folder: its plan, the experiment that owns it, the stored cells and
+ * config.resolved.yaml. Throws a one-line error when there is nothing to report, and an
+ * OutputBusyError for a folder of another results format. A cell that cannot be trusted
+ * (see inspectStoredCell; its settings must be those experiment.json gives its learner
+ * and vary values) is left out with a warning; an unreadable train.csv is a warning.
  */
 export function loadRun(outDir: string): StoredRun {
   if (!existsSync(outDir) || !statSync(outDir).isDirectory()) throw new Error(`${outDir}: no such directory`);
   const plan = readPlan(outDir);
-  const results = readStoredResults(outDir, plan);
-  if (results.rows.length === 0) throw new Error(`${outDir}: no cell of the plan has results yet (nothing to report)`);
   const warnings: string[] = [];
+  const owner = readFolderOwner(outDir);
+  if (owner.kind === 'other-format') throw new OutputBusyError(otherFormatMessage(outDir, owner.version));
+  if (owner.kind === 'unreadable') warnings.push(`${owner.reason} (cells are read without checking them against their experiment)`);
+  const arms = owner.kind === 'experiment' ? new Map(owner.record.arms.map((arm) => [armKey(arm), arm])) : null;
+  const identityOf = (entry: PlanEntry) => {
+    const arm = arms?.get(armKey({ learner: { name: entry.learner }, vary: entry.vary }));
+    return arm == null ? undefined : { ...arm, seed: entry.seed };
+  };
+  const stored = readStoredRun(outDir, plan, (id, fault) => warnings.push(cellFaultLine(id, fault, 'left out (crosswise run recomputes it)')), identityOf);
+  const { results } = stored;
+  if (results.rows.length === 0) throw new Error(`${outDir}: no cell of the plan has results yet (nothing to report)`);
   const settings = readRunSettings(outDir, warnings);
-  const cells = outputOrder(plan.entries, plan.varyKeys)
-    .filter((entry) => isFinished(outDir, entry.cell))
-    .flatMap((entry) => storedCell(outDir, entry.cell, warnings));
+  const cells = stored.cells.map(({ record }) => storedCell(outDir, record, warnings));
   const rows = results.rows.filter(isScore);
   const measures = results.rows.filter(isSeedMeasure);
   let baseline = settings.baseline;
@@ -84,14 +94,8 @@ function learnerControls(stated: ReadonlyMap<string, boolean>, rows: ResultsTabl
   return controls;
 }
 
-function storedCell(outDir: string, id: string, warnings: string[]): StoredCell[] {
-  let record: CellRecord;
-  try {
-    record = readCellRecord(outDir, id);
-  } catch (error) {
-    warnings.push((error as Error).message);
-    return [];
-  }
+function storedCell(outDir: string, record: CellRecord, warnings: string[]): StoredCell {
+  const { id } = record;
   const trainPath = cellPath(outDir, id, 'train');
   let log: EpochLog[] = [];
   try {
@@ -99,5 +103,5 @@ function storedCell(outDir: string, id: string, warnings: string[]): StoredCell[
   } catch (error) {
     warnings.push(`${(error as Error).message} (training curve left out)`);
   }
-  return [{ record, log, hasFeatures: existsSync(cellArrayPath(outDir, id, TEST_FEATURES)) }];
+  return { record, log, hasFeatures: existsSync(cellArrayPath(outDir, id, TEST_FEATURES)) };
 }

@@ -1,6 +1,6 @@
-import { randomUUID } from 'node:crypto';
-import { mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
+import { partialName, removeQuietly } from './partial-files.js';
 
 /**
  * Writes a file so readers see either the old content or the whole new content: write a
@@ -8,12 +8,12 @@ import { dirname, join } from 'node:path';
  */
 export function writeFileAtomic(path: string, content: string | Uint8Array): void {
   mkdirSync(dirname(path), { recursive: true });
-  const temporary = `${path}.partial-${randomUUID()}`;
+  const temporary = partialName(path);
   try {
     writeFileSync(temporary, content);
     renameSync(temporary, path);
   } catch (error) {
-    rmSync(temporary, { force: true });
+    removeQuietly(temporary);
     throw error;
   }
 }
@@ -30,7 +30,7 @@ export function writeFolderAtomic(target: string, temporary: string, files: Read
     for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
     renameSync(temporary, target);
   } catch (error) {
-    rmSync(temporary, { recursive: true, force: true });
+    removeQuietly(temporary);
     throw error;
   }
 }

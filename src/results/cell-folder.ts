@@ -1,23 +1,59 @@
-import { randomUUID } from 'node:crypto';
-import { existsSync, readdirSync, renameSync, rmSync } from 'node:fs';
-import { hostname } from 'node:os';
+import { existsSync, renameSync } from 'node:fs';
 import { join } from 'node:path';
 import { writeFolderAtomic } from './atomic-file.js';
-import { cellDir, cellPath, outputPath } from './layout.js';
+import { fileManifest, formatCellRecord, type CellRecord } from './cell-record.js';
+import { cellDir, CELL_FILES, cellPath, outputPath } from './layout.js';
+import { partialName, removeQuietly, removeStalePartials } from './partial-files.js';
+import { inspectStoredCell } from './stored-cell.js';
 
-/** Whether a cell is finished (done or failed); only a complete folder ever exists under its id. */
+/** Whether a cell folder holds a cell.json (finished, done or failed); whether it can be trusted is `inspectStoredCell`. */
 export function isFinished(out: string, id: string): boolean {
   return existsSync(cellPath(out, id, 'record'));
 }
 
 /**
+ * Stores a finished cell: its record, completed with the size and checksum of every
+ * other file, and those files, committed at once (commitCellFolder). With
+ * `replaceFailed`, a stored failed cell of the same id gives way to this one.
+ */
+export function commitCell(
+  out: string, record: Omit<CellRecord, 'files'>, files: Readonly<Record<string, string | Uint8Array>>, replaceFailed = false,
+): CellRecord {
+  const complete: CellRecord = { ...record, files: fileManifest(files) };
+  const storedFailed = (): boolean => {
+    const stored = inspectStoredCell(out, record.id);
+    return stored.state === 'trusted' && stored.record.status === 'failed';
+  };
+  commitCellFolder(out, record.id, { ...files, [CELL_FILES.record]: formatCellRecord(complete) }, replaceFailed ? storedFailed : undefined);
+  return complete;
+}
+
+/**
  * Stores a cell's files all at once: they are written into a temporary folder that is
  * then renamed to `cells/<id>`, so a killed process never leaves a partly written cell.
+ * A folder already there is replaced only when `replace` says so (a failed cell being
+ * retried); otherwise another process finished the same cell first and its copy, which
+ * holds the same numbers, is kept.
  */
-export function commitCellFolder(out: string, id: string, files: Readonly<Record<string, string | Uint8Array>>): void {
+export function commitCellFolder(
+  out: string, id: string, files: Readonly<Record<string, string | Uint8Array>>, replace: () => boolean = () => false,
+): void {
   const target = cellDir(out, id);
-  const temporary = join(outputPath(out, 'cells'), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
+  const cells = outputPath(out, 'cells');
+  const temporary = join(cells, partialName(''));
   try {
+    if (existsSync(target) && replace()) {
+      const old = join(cells, partialName(''));
+      renameSync(target, old);
+      try {
+        writeFolderAtomic(target, temporary, files);
+      } catch (error) {
+        renameSync(old, target); // the stored record stays until a new one can take its place
+        throw error;
+      }
+      removeQuietly(old);
+      return;
+    }
     writeFolderAtomic(target, temporary, files);
   } catch (error) {
     // Another process finished the same cell first; its copy holds the same numbers.
@@ -26,42 +62,22 @@ export function commitCellFolder(out: string, id: string, files: Readonly<Record
 }
 
 /**
- * Removes a stored cell so that it can be computed again. The folder is first renamed to a
- * temporary name, so no reader ever sees it half deleted; when another process removed it
- * first, there is nothing left to do.
+ * Moves a damaged cell folder out of the way, never deleting it: `cells/<id>` becomes
+ * `cells/.damaged-<id>-<n>` with the first free n. Returns the new folder's name.
  */
-export function discardCell(out: string, id: string): void {
-  const aside = join(outputPath(out, 'cells'), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
-  try {
-    renameSync(cellDir(out, id), aside);
-  } catch (error) {
-    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return;
-    throw error;
-  }
-  rmSync(aside, { recursive: true, force: true });
-}
-
-// Temporary cell folders are named .partial-<host>-<pid>-<uuid>, so a cleanup only
-// touches those of dead processes on this machine, never those of a running task.
-const PARTIAL = '.partial-';
-
-/** Removes temporary cell folders that killed processes on this machine left behind. */
-export function removePartialCells(out: string): void {
+export function moveCellAside(out: string, id: string): string {
   const cells = outputPath(out, 'cells');
-  if (!existsSync(cells)) return;
-  const mine = `${PARTIAL}${hostname()}-`;
-  for (const entry of readdirSync(cells)) {
-    if (!entry.startsWith(mine)) continue;
-    const pid = Number(entry.slice(mine.length).split('-')[0]);
-    if (!isAlive(pid)) rmSync(join(cells, entry), { recursive: true, force: true });
-  }
+  let n = 1;
+  while (existsSync(join(cells, `.damaged-${id}-${n}`))) n++;
+  const name = `.damaged-${id}-${n}`;
+  renameSync(cellDir(out, id), join(cells, name));
+  return name;
 }
 
-function isAlive(pid: number): boolean {
-  try {
-    process.kill(pid, 0); // signal 0 only checks that the process exists
-    return true;
-  } catch (error) {
-    return (error as NodeJS.ErrnoException).code === 'EPERM';
-  }
+/**
+ * Removes the temporary files and folders that killed processes on this machine left in
+ * an output folder (`results.csv.partial-*`, `plots/*.partial-*`, `cells/.partial-*`).
+ */
+export function removeLeftovers(out: string): void {
+  for (const dir of [out, outputPath(out, 'plots'), outputPath(out, 'cells')]) removeStalePartials(dir);
 }

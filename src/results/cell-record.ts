@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { BACKENDS } from '../learn/spec.js';
@@ -7,6 +8,15 @@ import { checkedJson, parseJsonText } from './json-text.js';
 import { cellPath } from './layout.js';
 
 const seconds = z.number().min(0);
+
+/** A file name inside a cell folder: no path separators, not hidden. */
+const CELL_FILE_NAME = /^[A-Za-z0-9_][A-Za-z0-9_.-]*$/;
+
+/** What a cell's file held when it was stored: its size and SHA-256, so a reader can tell a damaged file. */
+const storedFileSchema = z.object({ bytes: z.number().int().min(0), sha256: z.string().regex(/^[0-9a-f]{64}$/) });
+
+/** A stored file's size and checksum as cell.json records them. */
+export type StoredFile = z.infer<typeof storedFileSchema>;
 
 /**
  * cells/<id>/cell.json: what happened to one cell, in snake_case like the config. The
@@ -35,10 +45,23 @@ export const cellRecordSchema = z.object({
   versions: z.record(z.string(), z.string()),
   /** When the cell was stored, as an ISO 8601 UTC time. */
   finished_at: z.string(),
+  /** Every other file of the cell folder by name, as it was committed. */
+  files: z.record(z.string().regex(CELL_FILE_NAME, 'a plain file name'), storedFileSchema),
 });
 
 /** The one description of cell.json, for its writer (experiment) and its readers (report, bench). */
 export type CellRecord = z.infer<typeof cellRecordSchema>;
+
+/** The size and SHA-256 of each file's content, for cell.json's `files`. */
+export function fileManifest(files: Readonly<Record<string, string | Uint8Array>>): Record<string, StoredFile> {
+  return Object.fromEntries(Object.entries(files).map(([name, content]) => [name, storedFile(content)]));
+}
+
+/** The size and SHA-256 of one file's content. */
+export function storedFile(content: string | Uint8Array): StoredFile {
+  const bytes = typeof content === 'string' ? Buffer.from(content, 'utf8') : content;
+  return { bytes: bytes.byteLength, sha256: createHash('sha256').update(bytes).digest('hex') };
+}
 
 /** cell.json text: two-space indented JSON ending in a line break. */
 export function formatCellRecord(record: CellRecord): string {

@@ -1,28 +1,23 @@
-import { isFinished } from './cell-folder.js';
-import { readCellRecord } from './cell-record.js';
+import { inspectStoredCell, cellFaultLine } from './stored-cell.js';
 
 /** Where one planned cell stands in an output folder. */
 export interface CellState {
   readonly index: number;
   readonly id: string;
-  /** `missing`: no stored folder yet (never run, still running, or lost with its task). */
+  /**
+   * `missing`: no trusted stored folder (never run, still running, lost with its task, or
+   * damaged: the next `run` or `cell` moves a damaged one aside and computes it again).
+   */
   readonly status: 'done' | 'failed' | 'missing';
-  /** Why the cell failed; empty otherwise. */
+  /** Why the cell failed, or what is wrong with a damaged one; empty otherwise. */
   readonly reason: string;
 }
 
-/**
- * The state of each planned cell, in plan order. A stored cell.json that cannot be read
- * counts as failed, with the reading error as its reason, so that it is rerun only on request.
- */
+/** The state of each planned cell, in plan order; a cell is done or failed only when it can be trusted (inspectStoredCell). */
 export function cellStates(out: string, cells: readonly { readonly index: number; readonly id: string }[]): CellState[] {
   return cells.map(({ index, id }): CellState => {
-    if (!isFinished(out, id)) return { index, id, status: 'missing', reason: '' };
-    try {
-      const record = readCellRecord(out, id);
-      return { index, id, status: record.status, reason: record.reason };
-    } catch (error) {
-      return { index, id, status: 'failed', reason: (error as Error).message };
-    }
+    const stored = inspectStoredCell(out, id);
+    if (stored.state === 'trusted') return { index, id, status: stored.record.status, reason: stored.record.reason };
+    return { index, id, status: 'missing', reason: stored.state === 'damaged' ? cellFaultLine(id, stored.fault, 'to be computed again') : '' };
   });
 }

@@ -2,6 +2,8 @@ import { join } from 'node:path';
 
 /** Files and folders of an output folder (README, "What a run writes"). */
 export const OUTPUT_FILES = {
+  experiment: 'experiment.json',
+  lock: 'run.lock',
   config: 'config.resolved.yaml',
   plan: 'plan.csv',
   results: 'results.csv',

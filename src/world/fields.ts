@@ -84,8 +84,12 @@ function breaks(value: number, rule: NumberRule): boolean {
     || (rule.max != null && value > rule.max);
 }
 
-/** How a node's value reads in a message: `1.3`, `"##"`, `a list`. */
+/**
+ * How a node's value reads in a message: `1.3`, `"##"`, `a list`. A number that is not
+ * finite keeps its spelling (`.nan`, `1e400`), where JSON would print null.
+ */
 function shown(node: YamlNode): string {
+  if (isScalar(node) && typeof node.value === 'number' && !Number.isFinite(node.value)) return `${node.source ?? String(node.value)} (not a finite number)`;
   if (isScalar(node)) return JSON.stringify(node.value);
   return isSeq(node) ? 'a list' : 'a mapping';
 }
@@ -109,7 +113,11 @@ export function numberField(
   return numberAt(node, keyPath(fields.at, key), rule, problems);
 }
 
-/** A string field; `oneChar` demands a single visible character (a map glyph). */
+/**
+ * A string field; `oneChar` demands a map glyph: one visible character that takes one
+ * column in a terminal, so map rows stay aligned (wide characters such as emoji and CJK
+ * ideographs take two, UAX #11).
+ */
 export function stringField(
   fields: Fields, key: string, problems: Problems, options: { oneChar?: boolean; fallback?: string } = {},
 ): string | null {
@@ -122,8 +130,8 @@ export function stringField(
     return null;
   }
   const text = String(value);
-  if (options.oneChar === true && (text.length !== 1 || /\s/.test(text))) {
-    problems.report(node, `${path}: expected one visible character, got ${JSON.stringify(text)}`);
+  if (options.oneChar === true && !isNarrowGlyph(text)) {
+    problems.report(node, `${path}: expected one single-width visible character (emoji and other wide characters are not allowed), got ${JSON.stringify(text)}`);
     return null;
   }
   if (options.oneChar !== true && text.trim() === '') {
@@ -131,6 +139,22 @@ export function stringField(
     return null;
   }
   return text;
+}
+
+/**
+ * Whether text is one visible character one terminal column wide: a single UTF-16 unit
+ * (map rows are indexed by it), not a space, control, combining mark or emoji, and
+ * outside the East Asian Wide and Fullwidth blocks (Unicode UAX #11: Hangul Jamo, CJK,
+ * Hangul syllables, compatibility ideographs, vertical and fullwidth forms).
+ */
+function isNarrowGlyph(text: string): boolean {
+  if (text.length !== 1 || /[\s\p{C}\p{M}\p{Emoji_Presentation}]/u.test(text)) return false;
+  const code = text.charCodeAt(0);
+  const wide: readonly [number, number][] = [
+    [0x1100, 0x115f], [0x2e80, 0x303e], [0x3041, 0x33ff], [0x3400, 0x4dbf], [0x4e00, 0x9fff], [0xa000, 0xa4cf],
+    [0xac00, 0xd7a3], [0xf900, 0xfaff], [0xfe30, 0xfe4f], [0xff00, 0xff60], [0xffe0, 0xffe6],
+  ];
+  return !wide.some(([low, high]) => code >= low && code <= high);
 }
 
 /** A true/false field with a default. */

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { LineCounter, parseDocument, type Node as YamlNode } from 'yaml';
+import { fileSizeProblem, INPUT_LIMITS, yamlNestingProblem } from '../input-limits.js';
 import { itemPath, listField, numberField, readFields, stringField, type Fields } from './fields.js';
 import { readMap, type MapGrid, type MapLegend } from './map-text.js';
 import { paletteItem, readEmitter, readMaterial, readStart, type EmitterEntry, type PaletteItem, type StartEntry } from './parts.js';
@@ -142,6 +143,8 @@ function readPalette(fields: Fields, problems: Problems): Palette {
  * and the map whenever its glyphs are known. Only YAML syntax errors stop the rest.
  */
 function readWorld(text: string, path: string): { world: World | null; problems: string[] } {
+  const tooDeep = yamlNestingProblem(text, path);
+  if (tooDeep != null) return { world: null, problems: [tooDeep] };
   const lines = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: false });
   const problems = createProblems(path, lines);
@@ -199,6 +202,8 @@ export function loadWorld(path: string): World {
 
 /** The text of a world file; throws WorldFileError with one line when it cannot be read. */
 export function readWorldText(path: string): string {
+  const tooLarge = fileSizeProblem(path, INPUT_LIMITS.worldBytes, 'world file');
+  if (tooLarge != null) throw new WorldFileError([tooLarge]);
   try {
     return readFileSync(path, 'utf8');
   } catch (error) {

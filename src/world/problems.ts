@@ -1,4 +1,5 @@
 import type { LineCounter, Node as YamlNode } from 'yaml';
+import { oneLine } from '../input-limits.js';
 
 /** Where in a file a problem was found: a YAML node or a raw character offset. */
 export type Place = YamlNode | number | null | undefined;
@@ -31,7 +32,8 @@ export function createProblems(path: string, lines: LineCounter): Problems {
   const list: string[] = [];
   const offsets: number[] = [];
   const report = (place: Place, reason: string) => {
-    list.push(`${where(place)}: ${reason}`);
+    // Line breaks and other control characters from the file are escaped: one problem, one line.
+    list.push(`${where(place)}: ${oneLine(reason)}`);
     offsets.push(typeof place === 'number' ? place : place?.range?.[0] ?? 0);
   };
   const inFileOrder = () => list.map((text, i) => ({ text, offset: offsets[i] })).sort((a, b) => a.offset - b.offset).map((entry) => entry.text);

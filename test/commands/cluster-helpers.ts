@@ -30,7 +30,7 @@ export const FAILURE = 'LearnerDivergedError: loss became NaN at epoch 1';
  */
 export async function storeCells(config: string, out: string, cells: { readonly done?: readonly number[]; readonly failed?: readonly number[] }): Promise<void> {
   const sweep = loadSweep(config, { out });
-  const planned = prepareOutput(sweep);
+  const planned = prepareOutput(sweep, false, () => undefined);
   for (const index of cells.done ?? []) {
     const outcome = await cellWork(planned[index], () => {});
     storeCell(out, planned[index], { status: 'done', outcome, totalSeconds: 0 }, sweep.varyKeys);

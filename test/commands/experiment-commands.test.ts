@@ -67,7 +67,7 @@ noise:
     vi.spyOn(console, 'error').mockImplementation((text: string) => { errors.push(text); });
     // config.yaml is a file, so no folder can be made beneath it.
     expect(await clusterCommand([join(dir, 'config.yaml'), '--out', join(dir, 'config.yaml', 'out')])).toBe(5);
-    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out', 'cells')}: ENOTDIR (mkdir)`]);
+    expect(errors).toEqual([`crosswise cluster: cannot write ${join(dir, 'config.yaml', 'out')}: ENOTDIR: not a directory (mkdir)`]);
   });
 
   it('cluster requires --out', async () => {

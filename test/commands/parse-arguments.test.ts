@@ -5,7 +5,7 @@ import { listenUsage } from '../../src/commands/listen-usage.js';
 import { senseUsage } from '../../src/commands/sense-usage.js';
 import { checkUsage } from '../../src/commands/check-usage.js';
 
-const RUN_SYNOPSIS = 'crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu]';
+const RUN_SYNOPSIS = 'crosswise run <config> [--out DIR] [--jobs N] [--plain] [--backend wasm|cpu] [--retry-failed] [--force]';
 
 /** The one-line message a command line is rejected with. */
 function problem(args: readonly string[], usage: Parameters<typeof parseArguments>[0] = runUsage): string {
@@ -21,13 +21,13 @@ describe('reading a command line against its usage', () => {
   it('reads operands and options in any order, as --name value or --name=value, with typed values', () => {
     expect(parseArguments(runUsage, ['--jobs', '2', 'sweep.yaml', '--out=runs/a', '--plain', '--backend', 'cpu'])).toEqual({
       operands: ['sweep.yaml'],
-      values: { out: 'runs/a', jobs: 2, plain: true, backend: 'cpu' },
+      values: { out: 'runs/a', jobs: 2, plain: true, backend: 'cpu', 'retry-failed': false, force: false },
     });
   });
 
   it('leaves options out as their declared defaults, flags as false, the rest undefined', () => {
     expect(parseArguments(senseUsage, ['w.yaml', '--at', '1,1,east']).values).toEqual({ at: '1,1,east', action: 'stay', step: 0, json: false });
-    expect(parseArguments(runUsage, ['sweep.yaml']).values).toEqual({ out: undefined, jobs: undefined, plain: false, backend: undefined });
+    expect(parseArguments(runUsage, ['sweep.yaml']).values).toEqual({ out: undefined, jobs: undefined, plain: false, backend: undefined, 'retry-failed': false, force: false });
   });
 
   it('takes every word after -- as an operand, and a negative number as a value', () => {

@@ -1,6 +1,7 @@
 // A test double for the runner's contract: a cell whose scores follow from its settings
 // alone (so any schedule must store the same numbers), that takes a little time per
-// epoch, and that fails like a diverging learner when its name says so.
+// epoch, and that fails like a diverging learner when its name says so, or kills its
+// worker thread as a heap exhaustion would when FAKE_DYING names its learner.
 import { createHash } from 'node:crypto';
 import type { CellWork } from '../../src/experiment/cell-work.js';
 import { noiseParameter } from '../../src/noise/severity.js';
@@ -17,6 +18,7 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
   const log = [];
   for (let epoch = 1; epoch <= cell.learner.train.epochs; epoch++) {
     await new Promise((resolve) => setTimeout(resolve, EPOCH_MS));
+    if (cell.learner.name === process.env.FAKE_DYING) process.exit(134); // the code of a fatal out-of-memory abort (SIGABRT)
     if (cell.learner.name.includes('diverge')) {
       const error = new Error(`loss became NaN at epoch ${epoch}`);
       error.name = 'LearnerDivergedError';

@@ -133,7 +133,7 @@ describe('runSweep', () => {
     const dir = configFolder(CONFIG.replace('seeds: [1, 2]', 'seeds: [1]').replace(/vary:\n.*\n/, ''));
     const events: RunEvent[] = [];
     const outcome = await runSweep(loadSweep(join(dir, 'config.yaml')), { jobs: 2, workModule: FAKE_WORK, listeners: [(event) => events.push(event)] });
-    expect(outcome).toEqual({ done: 2, failed: 0, interrupted: false });
+    expect(outcome).toEqual({ done: 2, failed: 0, interrupted: false, writeFailures: [] });
     const forCell = (index: number) => events.filter((e) => 'cell' in e && e.cell.index === index).map((e) => e.type);
     expect(forCell(0)).toEqual(['cell-start', 'epoch', 'epoch', 'epoch', 'cell-done']);
     expect(forCell(1)).toEqual(['cell-start', 'epoch', 'epoch', 'cell-done']);

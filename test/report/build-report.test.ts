@@ -1,4 +1,4 @@
-import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { cp, mkdtemp, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -161,17 +161,40 @@ describe('buildReport errors', () => {
 });
 
 describe('buildReport with damaged cell files', () => {
-  it('warns about a bad train.csv and a bad cell.json, naming the file, and still reports', async () => {
+  it('never reads a temporary .partial-* cell folder, even with results.csv gone', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'report-partial-'));
+    try {
+      writeFixture(dir);
+      const before = await readFile((await buildReport(dir)).resultsPath, 'utf8');
+      const [one] = fixtureCells().map(testCellId);
+      // An uncommitted copy of a cell with other scores, as a killed run on another machine would leave it.
+      await cp(join(dir, 'cells', one), join(dir, 'cells', '.partial-elsewhere.example-1-aaaa'), { recursive: true });
+      const scores = join(dir, 'cells', '.partial-elsewhere.example-1-aaaa', 'scores.csv');
+      await writeFile(scores, (await readFile(scores, 'utf8')).replace(/,0\.\d+(\n|$)/, ',0.123$1'));
+      await rm(join(dir, 'results.csv'));
+      const report = await buildReport(dir);
+      expect(await readFile(report.resultsPath, 'utf8')).toBe(before);
+      expect(report.warnings.filter((w) => w.startsWith('cell '))).toEqual([]);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
+  });
+
+  it('leaves out a cell whose train.csv or cell.json was damaged after it was stored, with one warning naming cell and file', async () => {
     const damaged = await mkdtemp(join(tmpdir(), 'report-damaged-'));
     try {
       writeFixture(damaged);
       const [one, two] = fixtureCells().filter((c) => c.learner === 'untrained').map(testCellId);
-      await writeFile(join(damaged, 'cells', one, 'train.csv'), 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n');
+      const stored = (await stat(join(damaged, 'cells', one, 'train.csv'))).size;
+      const shorter = 'epoch,train_loss,validation_loss,seconds\nfirst,1,1,1\n';
+      await writeFile(join(damaged, 'cells', one, 'train.csv'), shorter);
       await writeFile(join(damaged, 'cells', two, 'cell.json'), '{ not json');
       const report = await buildReport(damaged);
-      expect(report.warnings).toContain(`${join(damaged, 'cells', one, 'train.csv')}:2: epoch: expected 1, got 'first' (training curve left out)`);
-      expect(report.warnings.some((w) => w.startsWith(`${join(damaged, 'cells', two, 'cell.json')}: not valid JSON`))).toBe(true);
+      expect(report.warnings).toContain(`cell ${one}: train.csv truncated (${shorter.length} of ${stored} bytes) — left out (crosswise run recomputes it)`);
+      expect(report.warnings.some((w) => w.startsWith(`cell ${two}: cell.json not valid JSON`) && w.endsWith('— left out (crosswise run recomputes it)'))).toBe(true);
       expect(await readFile(report.summaryPath, 'utf8')).toContain('## Warnings');
+      const results = await readFile(report.resultsPath, 'utf8');
+      expect(results.includes(one) || results.includes(two)).toBe(false);
     } finally {
       await rm(damaged, { recursive: true, force: true });
     }

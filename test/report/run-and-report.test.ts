@@ -52,7 +52,7 @@ describe('crosswise run and crosswise report', () => {
   it('give the same files from cells stored in another order', async () => {
     const scrambled = join(dir, 'scrambled');
     mkdirSync(join(scrambled, 'cells'), { recursive: true });
-    for (const file of ['config.resolved.yaml', 'plan.csv']) cpSync(join(out, file), join(scrambled, file));
+    for (const file of ['config.resolved.yaml', 'plan.csv', 'experiment.json']) cpSync(join(out, file), join(scrambled, file));
     const cells = readdirSync(join(out, 'cells')).sort();
     // Stored in a fixed permutation of the sorted ids: odd positions first, then even ones reversed.
     const order = [...cells.filter((_, i) => i % 2 === 1), ...cells.filter((_, i) => i % 2 === 0).reverse()];

@@ -1,13 +1,14 @@
 // Writes output folders for report tests through the one results contract (src/results/),
-// as `crosswise run` would: cells/<id>/ with cell.json, train.csv and scores.csv, plan.csv
-// and config.resolved.yaml. The numbers are test data, not measurements.
+// as `crosswise run` would: cells/<id>/ with cell.json, train.csv and scores.csv, plan.csv,
+// experiment.json and config.resolved.yaml. The numbers are test data, not measurements.
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { EpochLog, LearnerSpec } from '../../src/learn/spec.js';
 import type { NoiseSpec } from '../../src/noise/spec.js';
-import { commitCellFolder } from '../../src/results/cell-folder.js';
+import { commitCell } from '../../src/results/cell-folder.js';
 import { cellId, cellIdentity } from '../../src/results/cell-identity.js';
-import { formatCellRecord } from '../../src/results/cell-record.js';
+import type { CellRecord } from '../../src/results/cell-record.js';
+import { armIdentity, armKey, formatExperimentRecord } from '../../src/results/experiment-record.js';
 import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { encodeNpy, type NpyArray } from '../../src/results/npy.js';
 import { formatPlanCsv } from '../../src/results/plan-table.js';
@@ -62,24 +63,27 @@ export function writeRun(dir: string, cells: readonly TestCell[], options: { nam
   for (const cell of cells) {
     const id = testCellId(cell);
     const spec = learnerSpec(cell);
-    const files: Record<string, string | Uint8Array> = {
-      'cell.json': formatCellRecord({
-        format_version: RESULTS_FORMAT_VERSION, id, index: (options.planOrder ?? cells).indexOf(cell),
-        status: cell.reason == null ? 'done' : 'failed', reason: cell.reason ?? '', identity: identityOf(cell),
-        backend: 'cpu', world_path: '/nowhere/world.yaml', output: { save_features: false, align_every: 50 },
-        seconds: { collect: 0, train: 0, probe: 0, total: 0 }, versions: { test: '1' }, finished_at: '2026-01-01T00:00:00.000Z',
-      }),
-      'train.csv': formatTrainCsv(cell.log),
+    const record: Omit<CellRecord, 'files'> = {
+      format_version: RESULTS_FORMAT_VERSION, id, index: (options.planOrder ?? cells).indexOf(cell),
+      status: cell.reason == null ? 'done' : 'failed', reason: cell.reason ?? '', identity: identityOf(cell),
+      backend: 'cpu', world_path: '/nowhere/world.yaml', output: { save_features: false, align_every: 50 },
+      seconds: { collect: 0, train: 0, probe: 0, total: 0 }, versions: { test: '1' }, finished_at: '2026-01-01T00:00:00.000Z',
     };
+    const files: Record<string, string | Uint8Array> = { 'train.csv': formatTrainCsv(cell.log) };
     if (cell.reason == null) {
       const rows = cell.rows.map((row) => ({ cell: id, learner: cell.learner, objective: spec.objective, rule: spec.rule, seed: cell.seed, vary: cell.vary ?? {}, ...row }));
       files['scores.csv'] = formatResultsCsv(rows, varyKeys);
       if (cell.testFeatures != null) files['test_features.npy'] = encodeNpy(cell.testFeatures.data, cell.testFeatures.shape);
     }
-    commitCellFolder(dir, id, files);
+    commitCell(dir, record, files);
   }
   const entries = (options.planOrder ?? cells).map((cell, index) => ({ index, cell: testCellId(cell), learner: cell.learner, seed: cell.seed, vary: cell.vary ?? {} }));
   writeFileSync(join(dir, 'plan.csv'), formatPlanCsv({ varyKeys, entries }));
+  const arms = [...new Map((options.planOrder ?? cells).map((cell) => {
+    const arm = armIdentity(identityOf(cell));
+    return [armKey(arm), arm] as const;
+  })).values()];
+  writeFileSync(join(dir, 'experiment.json'), formatExperimentRecord({ format_version: RESULTS_FORMAT_VERSION, vary_keys: [...varyKeys], arms }));
   const baseline = options.baseline == null ? '' : `probe:\n  baseline: ${options.baseline}\n`;
   writeFileSync(join(dir, 'config.resolved.yaml'), `name: ${options.name}\n${baseline}`);
 }

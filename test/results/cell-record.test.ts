@@ -29,6 +29,7 @@ const record: CellRecord = {
   world_path: '/worlds/greenhouse.yaml', output: { save_features: true, align_every: 25 },
   seconds: { collect: 0.5, train: 2.25, probe: 1, total: 3.75 }, versions: { node: '20.20.2', crosswise: '0.1.0', tfjs: '4.22.0' },
   finished_at: '2026-01-02T03:04:05.000Z',
+  files: { 'scores.csv': { bytes: 3, sha256: 'a'.repeat(64) } },
 };
 
 describe('cell.json', () => {

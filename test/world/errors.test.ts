@@ -177,4 +177,27 @@ describe('world file errors: each names path:line:col, the key (list items by 0-
     expect(() => parseWorld(text, 'w.yaml')).toThrow(WorldFileError);
     expect(() => parseWorld(text, 'w.yaml')).toThrow(problems.join('\n'));
   });
+
+  it('shows numbers that are not finite as written, not as null', () => {
+    expect(problemsOf(variant(2, 'cell_size_m: .nan'))).toEqual(['w.yaml:2:14: cell_size_m: expected a number > 0 and <= 100, got .nan (not a finite number)']);
+    expect(problemsOf(variant(2, 'cell_size_m: .inf'))).toEqual(['w.yaml:2:14: cell_size_m: expected a number > 0 and <= 100, got .inf (not a finite number)']);
+    // 1e400 is beyond the largest double (about 1.8e308, IEEE 754 binary64), so it reads as infinity.
+    expect(problemsOf(variant(2, 'cell_size_m: 1e400'))).toEqual(['w.yaml:2:14: cell_size_m: expected a number > 0 and <= 100, got 1e400 (not a finite number)']);
+  });
+
+  it('takes any single-width character as a glyph and says plainly that wide ones are refused', () => {
+    const glyph = (g: string) => problemsOf(variant(5, `  - { name: boards, glyph: "${g}", colour: [0.7, 0.5, 0.3] }`).replace('#..C#', `#${g}${g}C#`));
+    expect(glyph('░')).toEqual([]); // U+2591 LIGHT SHADE: East Asian Width "A", one column in Western terminals
+    expect(glyph('é')).toEqual([]);
+    const refused = (g: string) => `w.yaml:5:28: materials.1 (boards).glyph: expected one single-width visible character (emoji and other wide characters are not allowed), got "${g}"`;
+    expect(glyph('🌱')).toEqual([refused('🌱')]); // U+1F331, an emoji: two UTF-16 units, two columns
+    expect(glyph('⌚')).toEqual([refused('⌚')]); // U+231A, one UTF-16 unit but Emoji_Presentation, two columns
+    expect(glyph('木')).toEqual([refused('木')]); // U+6728, a CJK ideograph: East Asian Width "W"
+  });
+
+  it('refuses YAML nested deeper than the limit with one located line, before parsing it', () => {
+    const deep = variant(2, `cell_size_m: ${'['.repeat(100_000)}${']'.repeat(100_000)}`);
+    // The top-level mapping is level 1, so the 64th bracket (column 13 + 64) opens level 65.
+    expect(problemsOf(deep)).toEqual(['w.yaml:2:77: nested more than 64 levels deep (see "Limits" in the README)']);
+  });
 });

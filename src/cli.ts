@@ -10,6 +10,7 @@ import { commandHelp, programHelp, wantsHelp } from './commands/help.js';
 import { listenUsage } from './commands/listen-usage.js';
 import { printProblem } from './commands/messages.js';
 import { planUsage } from './commands/plan-usage.js';
+import { recordUsage } from './commands/record-usage.js';
 import { reportUsage } from './commands/report-usage.js';
 import { runUsage } from './commands/run-usage.js';
 import { schemaUsage } from './commands/schema-usage.js';
@@ -19,7 +20,7 @@ import type { CommandUsage } from './commands/usage.js';
 
 /** Every command, in the order `crosswise --help` lists them. */
 export const COMMANDS: readonly CommandUsage[] = [
-  runUsage, planUsage, cellUsage, clusterUsage, statusUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, benchUsage, schemaUsage,
+  runUsage, planUsage, cellUsage, clusterUsage, statusUsage, reportUsage, checkUsage, senseUsage, exploreUsage, listenUsage, recordUsage, benchUsage, schemaUsage,
 ];
 
 /** The package version (src/ and dist/ both sit one folder below package.json). */

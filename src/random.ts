@@ -9,13 +9,16 @@ export type Rng = () => number;
  * Sub-streams are derived by name, not by offsets into one sequence, so adding a draw
  * in one place never shifts the draws of another. The names in use are:
  * - `collect` (start cells and policies), `split` (episode shuffle);
- * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed);
+ * - `noise/<channel>/<kind>/<severity>` (corruption draws, shared by all learners of a seed and by its recordings);
  * - `init/encoder/<channels joined by +>/<input width>/<hidden widths joined by x>/<activation>`
  *   (a tower's encoder weights, layer by layer), `init/head/<tower>/<rows>x<cols>` (a tower's
  *   head weights), `feedback/<tower>/<matrix>/<rows>x<cols>` (fixed feedback matrices),
  *   `shuffle/train` (batch order, one permutation per epoch), `shuffle/validation` (evaluation
- *   order). Tower 0 encodes a learner's input, tower 1 the contrast target. None holds the
- *   learner's name, so learners with the same settings draw the same numbers (learn/streams.ts);
+ *   order). Tower 0 encodes a learner's input, tower 1 the contrast target. A spiking
+ *   encoder's `<activation>` is `spiking`. `spikes/train` (the input spikes of rate-coded
+ *   training batches, in training order), `spikes/row/<hash of the row's bytes>` (those of one
+ *   standardised row in validation and feature extraction). None holds the learner's name, so
+ *   learners with the same settings draw the same numbers (learn/streams.ts);
  * - `bootstrap/<table>/<learner>/<severity>` under seed 0 (report IQM intervals);
  * - `explore/<world>/<step>/<channel>/<kind>/<severity>` (noise shown by `crosswise explore`);
  * - `listen` (the band noise of `crosswise listen`, under the walk's seed);

@@ -42,6 +42,7 @@ export function benchJson(figures: BenchFigures, options: { quick: boolean; repe
     startup_s: figures.startupS,
     peer_quickstart_wall_s: figures.peerQuickstartWallS,
     train_objectives_samples_per_s: figures.trainObjectivesSamplesPerS,
+    train_spiking_samples_per_s: figures.trainSpikingSamplesPerS,
   };
   const parts = Object.entries(measured).map(([key, value]) => [key, split(value)] as const);
   return {

@@ -24,6 +24,7 @@ export function benchText(f: BenchFigures): string[] {
     line(`train reference MLP (PyTorch ${torch?.torch ?? 'absent'})`, torch?.samplesPerS ?? null, 'samples/s', torch == null ? '' : `one thread, BLAS: ${torch.blas} ${torch.blasLibrary}`),
     ...(torch == null ? [] : [`  best crosswise backend ÷ PyTorch: ${(best / torch.samplesPerS.median).toFixed(2)}`]),
     ...Object.entries(f.trainObjectivesSamplesPerS).map(([label, r]) => line(`  train ${label}`, r, 'samples/s')),
+    ...Object.entries(f.trainSpikingSamplesPerS).map(([label, r]) => line(`  train spiking ${label}`, r, 'samples/s')),
     line('probe one quickstart cell', f.probeSPerCell, 's', '5 targets × 6 sight gaussian severities'),
     line('quickstart sweep, --jobs 1', f.quickstartWallS?.jobs1 ?? null, 's wall', 'fixed 15-cell copy (src/bench/quickstart-15.yaml)'),
     line('quickstart sweep, --jobs 2', f.quickstartWallS?.jobs2 ?? null, 's wall'),

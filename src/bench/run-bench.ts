@@ -7,7 +7,7 @@ import { benchPeer } from './peer.js';
 import { probeSecondsPerCell } from './probe.js';
 import { benchQuickstart } from './sweep.js';
 import { benchTorchReference, type TorchReference } from './torch-reference.js';
-import { benchObjectives, benchReference, benchStacked, STACKED_MODELS } from './training.js';
+import { benchObjectives, benchReference, benchSpiking, benchStacked, STACKED_MODELS } from './training.js';
 
 /** Everything `crosswise bench` measures. */
 export interface BenchFigures {
@@ -22,6 +22,8 @@ export interface BenchFigures {
   /** Null with --quick or without torch and scikit-learn. */
   readonly peerQuickstartWallS: Figure | null;
   readonly trainObjectivesSamplesPerS: Record<string, Figure>;
+  /** The quickstart's sound-from-sight learner with a spiking encoder, by time steps and rule. */
+  readonly trainSpikingSamplesPerS: Record<string, Figure>;
   readonly machine: Machine;
   readonly notes: string[];
 }
@@ -57,6 +59,8 @@ export async function runBench(options: BenchOptions): Promise<BenchFigures> {
   const trainStackedSamplesPerS = await benchStacked(repeats, quick);
   progress('training, every objective');
   const trainObjectivesSamplesPerS = await benchObjectives(repeats, quick, options.backend);
+  progress('training, spiking encoders');
+  const trainSpikingSamplesPerS = await benchSpiking(repeats, quick, options.backend);
   progress('probe');
   const probeSPerCell = await probeFigure(options);
   progress('PyTorch reference');
@@ -69,6 +73,6 @@ export async function runBench(options: BenchOptions): Promise<BenchFigures> {
   if (torch == null) notes.push('PyTorch figures are absent: no python3 on this machine imports torch (Debian: python3-torch with libopenblas0-pthread)');
   return {
     collectStepsPerS: collection.figure, trainSamplesPerS, trainStackedSamplesPerS, torch, probeSPerCell,
-    quickstartWallS, startupS, peerQuickstartWallS, trainObjectivesSamplesPerS, machine, notes,
+    quickstartWallS, startupS, peerQuickstartWallS, trainObjectivesSamplesPerS, trainSpikingSamplesPerS, machine, notes,
   };
 }

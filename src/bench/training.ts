@@ -2,9 +2,9 @@ import { fileURLToPath } from 'node:url';
 import { collect } from '../collect/collector.js';
 import { splitByEpisode } from '../collect/split.js';
 import { LATENT_NAMES, type Dataset, type DatasetSplit, type LatentName } from '../collect/dataset.js';
-import { BACKENDS, initBackend, trainLearner, type BackendName, type LearnerSpec } from '../learn/index.js';
+import { BACKENDS, initBackend, trainLearner, type BackendName, type LearnerSpec, type SpikingEncoderSpec } from '../learn/index.js';
 import { stackedEpochSeconds } from '../learn/stacked.js';
-import { DEFAULTS } from '../experiment/defaults.js';
+import { DEFAULTS, SPIKING_DEFAULTS } from '../experiment/defaults.js';
 import { createRng, normal, randomInt } from '../random.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
 import { loadWorld } from '../world/parse.js';
@@ -40,6 +40,7 @@ function workload(rows: number, sizes: Record<ChannelName, number>): { data: Dat
 /** The default learner of a config, reading sight and predicting sound; supervised learners predict the default probe targets. */
 const DEFAULT_SPEC: LearnerSpec = {
   ...DEFAULTS.learner,
+  encoder: { kind: 'mlp', hidden: DEFAULTS.learner.encoder.hidden, activation: DEFAULTS.learner.encoder.activation },
   name: 'bench',
   objective: 'predict',
   input: ['sight'],
@@ -102,5 +103,26 @@ export async function benchObjectives(repeats: number, quick: boolean, backend: 
   const work = demoWorkload(quick ? 2700 : 10300);
   const rates: Record<string, Figure> = {};
   for (const c of CASES) rates[c.label] = await epochRates({ ...DEFAULT_SPEC, ...c.spec }, work, repeats);
+  return rates;
+}
+
+/** Time steps of the spiking figures: a short and a long simulation of each sample. */
+export const SPIKING_STEPS = [8, 25] as const;
+
+/**
+ * Samples per second of the quickstart's sound-from-sight learner ([128, 64], batch 256) with a
+ * spiking encoder at the default neuron settings, at each of SPIKING_STEPS, on greenhouse data;
+ * the rate-MLP figure of the same learner is `predict sight→sound, backprop` of benchObjectives.
+ */
+export async function benchSpiking(repeats: number, quick: boolean, backend: BackendName): Promise<Record<string, Figure>> {
+  await initBackend(backend);
+  const work = demoWorkload(quick ? 1100 : 2700);
+  const rates: Record<string, Figure> = {};
+  for (const steps of SPIKING_STEPS) {
+    for (const rule of ['backprop', 'feedback-alignment'] as const) {
+      const encoder: SpikingEncoderSpec = { ...SPIKING_DEFAULTS, hidden: DEFAULT_SPEC.encoder.hidden, steps };
+      rates[`T=${steps} predict sight→sound, ${rule}`] = await epochRates({ ...DEFAULT_SPEC, encoder, rule }, work, repeats);
+    }
+  }
   return rates;
 }

@@ -51,6 +51,22 @@ export const LATENT_KIND: Readonly<Record<LatentName, 'continuous' | 'categorica
   bumped: 'categorical',
 };
 
+/** What a latent's number means: a unit for continuous ones, the class index rule for categorical ones. */
+export const LATENT_UNITS: Readonly<Record<LatentName, string>> = {
+  x: 'cell column, 0 at the left (west) edge',
+  y: 'cell row, 0 at the top (north) edge',
+  heading: 'class index',
+  material_under: 'class index',
+  material_ahead: 'class index',
+  wall_ahead: 'class index (0 no, 1 yes)',
+  nearest_emitter: 'class index',
+  nearest_distance_m: 'metres between cell centres',
+  nearest_azimuth_deg: 'degrees, 0 straight ahead, positive to the right, −180 < azimuth ≤ 180',
+  emitter_in_view: 'class index (0 no, 1 yes)',
+  moved: 'class index (0 no, 1 yes)',
+  bumped: 'class index (0 no, 1 yes)',
+};
+
 /**
  * The number of classes of a categorical latent: one per class name of the dataset, never
  * fewer than the largest index present + 1 (a dataset built without names), and at least 2,
@@ -61,4 +77,12 @@ export function classCount(data: Dataset, name: LatentName): number {
   let count = Math.max(2, data.classNames[name]?.length ?? 0);
   for (const v of data.latents[name]) if (v >= 0) count = Math.max(count, v + 1);
   return count;
+}
+
+/** The latents as one row per step, [steps, LATENT_NAMES.length] in LATENT_NAMES order. */
+export function latentRows(data: Dataset): Float32Array {
+  const width = LATENT_NAMES.length;
+  const rows = new Float32Array(data.steps * width);
+  LATENT_NAMES.forEach((name, j) => data.latents[name].forEach((value, t) => { rows[t * width + j] = value; }));
+  return rows;
 }

@@ -25,23 +25,28 @@ function operandWords(operand: OperandDeclaration): string {
   return `${operand.optional === true ? `[${operand.name}]` : `<${operand.name}>`}${operand.repeats === true ? '...' : ''}`;
 }
 
-/** The words of the option that may be given instead of an operand (`--config FILE`), or null. */
-function standIn(usage: CommandUsage, operand: OperandDeclaration): string | null {
-  return operand.orOption == null ? null : optionWords(operand.orOption, usage.options[operand.orOption]);
+/** The words of each option that may be given instead of an operand (`--config FILE`). */
+function standIns(usage: CommandUsage, operand: OperandDeclaration): string[] {
+  return (operand.orOption ?? []).map((name) => optionWords(name, usage.options[name]));
 }
 
-/** An operand, or the option that may stand in for it, for messages: `<world> or --config FILE`. */
+/** An operand and the options that may stand in for it: `['<world>', '--config FILE']`. */
+export function operandChoices(usage: CommandUsage, operand: OperandDeclaration): string[] {
+  return [`<${operand.name}>`, ...standIns(usage, operand)];
+}
+
+/** An operand, or the options that may stand in for it, for messages: `<world> or --config FILE`, `<world>, --config FILE or --replay DIR`. */
 export function operandOrOption(usage: CommandUsage, operand: OperandDeclaration): string {
-  const option = standIn(usage, operand);
-  return option == null ? `<${operand.name}>` : `<${operand.name}> or ${option}`;
+  const words = operandChoices(usage, operand);
+  return words.length === 1 ? words[0] : `${words.slice(0, -1).join(', ')} or ${words.at(-1)}`;
 }
 
 /** The one-line form of a command: `crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--json]`. */
 export function synopsis(usage: CommandUsage): string {
-  const alternatives = new Set(usage.operands.map((o) => o.orOption).filter((name) => name != null));
+  const alternatives = new Set(usage.operands.flatMap((o) => o.orOption ?? []));
   const operands = usage.operands.map((o) => {
-    const option = standIn(usage, o);
-    return option == null ? operandWords(o) : `(${operandWords(o)} | ${option})`;
+    const options = standIns(usage, o);
+    return options.length === 0 ? operandWords(o) : `(${[operandWords(o), ...options].join(' | ')})`;
   });
   const options = Object.entries(usage.options).filter(([name]) => !alternatives.has(name)).map(([name, option]) => {
     const words = optionWords(name, option);

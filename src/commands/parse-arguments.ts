@@ -1,5 +1,5 @@
 import { suggestion } from '../experiment/config-errors.js';
-import { operandOrOption, placeholder, synopsis } from './help.js';
+import { operandChoices, operandOrOption, placeholder, synopsis } from './help.js';
 import { UsageError, type CommandUsage, type OptionDeclaration, type OptionValues, type ParsedArguments } from './usage.js';
 
 /**
@@ -49,12 +49,14 @@ function optionFlags(usage: CommandUsage): string[] {
 
 /** Checks the number of operands; an operand whose stand-in option was given (`orOption`) must be left out. */
 function checkOperands(usage: CommandUsage, operands: readonly string[], given: ReadonlyMap<string, string | null>): void {
-  const replaced = usage.operands.filter((o) => o.orOption != null && given.has(o.orOption));
+  const replaced = usage.operands.filter((o) => o.orOption?.some((name) => given.has(name)) === true);
   const declared = usage.operands.filter((o) => !replaced.includes(o));
   const least = declared.filter((operand) => operand.optional !== true).length;
   const most = declared.at(-1)?.repeats === true ? Infinity : declared.length;
   if (replaced.length > 0 && operands.length > most) {
-    throw new UsageError(`give ${operandOrOption(usage, replaced[0])}, not both (usage: ${synopsis(usage)})`);
+    const words = operandChoices(usage, replaced[0]);
+    const choice = words.length === 2 ? `${words.join(' or ')}, not both` : `only one of ${words.join(', ')}`;
+    throw new UsageError(`give ${choice} (usage: ${synopsis(usage)})`);
   }
   if (operands.length < least) {
     throw new UsageError(`missing ${operandOrOption(usage, declared[operands.length])} (usage: ${synopsis(usage)})`);

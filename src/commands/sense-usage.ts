@@ -6,7 +6,7 @@ export const senseUsage = defineCommand({
   name: 'sense',
   summary: 'every channel and latent at one pose of a world',
   details: "Values are in physical units (listed per channel), with the default sense settings or a config's.",
-  operands: [{ name: 'world', orOption: 'config', description: 'a world file (YAML)' }],
+  operands: [{ name: 'world', orOption: ['config'], description: 'a world file (YAML)' }],
   options: {
     config: { kind: 'text', value: 'FILE', description: 'a sweep config, for its world and sense settings' },
     at: { kind: 'text', value: 'X,Y,HEADING', required: true, description: "the agent's cell (from 0, x to the right, y down) and heading, e.g. 2,3,north" },

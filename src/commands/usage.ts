@@ -53,8 +53,8 @@ export interface OperandDeclaration {
   readonly optional?: boolean;
   /** Takes one or more values (`<file>...`); only the last operand may repeat. */
   readonly repeats?: boolean;
-  /** An option given instead of this operand, one or the other: `(<world> | --config FILE)`. */
-  readonly orOption?: string;
+  /** Options any one of which may be given instead of this operand: `(<world> | --config FILE | --replay DIR)`. */
+  readonly orOption?: readonly string[];
 }
 
 /** What a command does when it runs: takes the words after its name, returns the exit code. */

@@ -1,13 +1,9 @@
-import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
-import { collect } from '../collect/collector.js';
-import { splitByEpisode } from '../collect/split.js';
-import { LATENT_NAMES, type Dataset } from '../collect/dataset.js';
+import { LATENT_NAMES, latentRows, type Dataset } from '../collect/dataset.js';
 import { initBackend, softwareVersions, trainLearner, type FeatureExtractor } from '../learn/index.js';
 import { evaluateEncoder } from '../probe/evaluate.js';
-import { parseWorld } from '../world/parse.js';
 import type { NpyArray } from '../results/npy.js';
 import type { Measurement } from '../results/results-table.js';
+import { cellData } from './cell-data.js';
 import type { CellOutcome, CellWork } from './cell-work.js';
 
 /**
@@ -17,20 +13,17 @@ import type { CellOutcome, CellWork } from './cell-work.js';
  */
 export const cellWork: CellWork = async (cell, onEpoch) => {
   const clock = stopwatch();
-  const worldBytes = readFileSync(cell.world.path);
-  if (createHash('sha256').update(worldBytes).digest('hex') !== cell.world.sha256) {
-    throw new Error(`world file ${cell.world.path} changed since the sweep was planned; plan again`);
-  }
-  const world = parseWorld(worldBytes.toString('utf8'), cell.world.path); // the bytes just hashed, not a second read
-  const data = collect(world, { policy: cell.collect.policy, steps: cell.collect.steps, episodeSteps: cell.collect.episodeSteps }, cell.senses, cell.seed);
-  const split = splitByEpisode(data, cell.collect.split, cell.seed);
+  const { data, split } = cellData(cell);
   const collectSeconds = clock();
   await initBackend(cell.backend);
   const { encoder, log } = await trainLearner(cell.learner, data, split, { seed: cell.seed, onEpoch, alignEvery: cell.output.alignEvery });
   const trainSeconds = clock();
   try {
     const evaluation = evaluateEncoder({ encoder, data, split, targets: cell.probe.targets, noise: cell.noise, seed: cell.seed });
-    const rows: Measurement[] = evaluation.rows.map((row) => ({ ...row, measure: 'score' }));
+    const rows: Measurement[] = [
+      ...evaluation.rows.map((row) => ({ ...row, measure: 'score' as const })),
+      ...evaluation.measures.map((row) => ({ ...row, severity: null, parameter: null })),
+    ];
     const arrays: Record<string, NpyArray> = {
       test_features: { shape: [evaluation.testFeatureRows, evaluation.featureSize], data: evaluation.testFeatures },
       ...(cell.output.saveFeatures ? everyStep(encoder, data) : {}),
@@ -51,11 +44,9 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
 /** Features of every collected step [steps, featureSize] and the latents [steps, LATENT_NAMES.length] in LATENT_NAMES order. */
 function everyStep(encoder: FeatureExtractor, data: Dataset): Record<string, NpyArray> {
   const inputs = Object.fromEntries(encoder.input.map((channel) => [channel, data.channels[channel]]));
-  const latents = new Float32Array(data.steps * LATENT_NAMES.length);
-  LATENT_NAMES.forEach((name, j) => data.latents[name].forEach((value, t) => { latents[t * LATENT_NAMES.length + j] = value; }));
   return {
     features: { shape: [data.steps, encoder.featureSize], data: encoder.features(inputs, data.steps) },
-    latents: { shape: [data.steps, LATENT_NAMES.length], data: latents },
+    latents: { shape: [data.steps, LATENT_NAMES.length], data: latentRows(data) },
   };
 }
 

@@ -1,6 +1,8 @@
+import { spikingProblems } from '../learn/spiking-checks.js';
 import { noiseProblems } from '../noise/validate.js';
 import { suggestion, type ConfigProblem } from './config-errors.js';
 import type { ConfigParts } from './config-parts.js';
+import { encoderSpec } from './resolved-config.js';
 import type { FilledConfig } from './schema.js';
 
 type Learner = FilledConfig['learners'][number];
@@ -71,6 +73,10 @@ function checkLearner(learner: Learner, at: readonly (string | number)[]): Confi
   }
   if (learner.objective === 'supervised' && learner.supervised_targets?.length === 0) {
     problem('supervised_targets', 'expected at least 1 item, got an empty list');
+  }
+  const encoder = encoderSpec(learner.encoder);
+  if (encoder.kind === 'spiking') {
+    problems.push(...spikingProblems(encoder, learner.rule).map(({ key, message }) => ({ path: [...at, ...key], message })));
   }
   return problems;
 }

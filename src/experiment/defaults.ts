@@ -1,6 +1,7 @@
 import type { LatentName } from '../collect/dataset.js';
 import type { PolicyName } from '../collect/policies.js';
-import type { ActivationName, BackendName, OptimizerName, RuleName } from '../learn/spec.js';
+import { CONTROL_OBJECTIVES, type ActivationName, type BackendName, type EncoderKindName, type InputCodingName, type ObjectiveName, type OptimizerName, type ResetName, type RuleName, type SpikingEncoderSpec, type SurrogateName } from '../learn/spec.js';
+import type { SeedMeasure } from '../probe/robustness.js';
 import { DEFAULT_SENSE_SETTINGS, type SenseSettings } from '../senses/channel.js';
 
 /** How the agent gathers experience for one seed. */
@@ -16,6 +17,8 @@ export interface ProbeSettings {
   readonly targets: readonly LatentName[];
   /** Name of the learner that corruption errors are relative to and paired tests compare against. */
   readonly baseline: string;
+  /** The per-seed measure the primary family of hypotheses tests (report only; not part of a cell's id). */
+  readonly primary: SeedMeasure;
 }
 
 /**
@@ -58,9 +61,33 @@ export const DEFAULTS = {
     /** supervised only: latents predicted directly; empty means the probe targets. */
     supervisedTargets: [] as readonly LatentName[],
     encoder: {
+      /** mlp: rate units with an activation; spiking: leaky integrate-and-fire units simulated in time (README, "Spiking encoders"). */
+      kind: 'mlp' as EncoderKindName,
       /** Units per hidden layer; the last layer is the representation the probes read. */
       hidden: [128, 64] as readonly number[],
+      /** mlp only: the hidden layers' nonlinearity. */
       activation: 'relu' as ActivationName,
+      /** spiking only: time steps T each sample is simulated for; the probes read spike count ÷ T. */
+      steps: 16,
+      /** spiking only: length of one time step, ms. */
+      dtMs: 1,
+      /**
+       * spiking only: membrane time constant τ, ms. Short beside the simulated window (steps × dt_ms) so the membrane
+       * settles within it; cortical neurons are slower, ~10–20 ms (Gerstner et al. 2014). Tuned on the demo worlds.
+       */
+      tauMs: 2,
+      /** spiking only: membrane potential at which a unit spikes; an input current of this size (times resistance) is the rheobase. */
+      threshold: 1,
+      /** spiking only: after a spike the membrane loses the threshold (subtract) or returns to 0 (zero). */
+      reset: 'subtract' as ResetName,
+      /** spiking only: time after a spike during which the membrane is held at 0, ms; a whole number of time steps. */
+      refractoryMs: 0,
+      /** spiking only: current (the standardised input held over the steps) or poisson (Bernoulli spikes, p = logistic of the input per step). */
+      inputCoding: 'current' as InputCodingName,
+      /** spiking only: the spike's derivative in the backward pass: fast-sigmoid (Zenke & Ganguli 2018), arctan (Fang et al. 2021) or straight-through. */
+      surrogate: 'fast-sigmoid' as SurrogateName,
+      /** spiking only: steepness k of the surrogate, per unit of membrane potential (tuned on the demo worlds; common practice spans ~1–100). */
+      surrogateSlope: 5,
     },
     /** Learning rule: exact gradients, or a fixed random feedback path (Lillicrap 2016; Nøkland 2016). */
     rule: 'backprop' as RuleName,
@@ -81,10 +108,21 @@ export const DEFAULTS = {
     },
     /** Also write the features and the latents of every collected step (features.npy, latents.npy) beside the cell's scores (output-only). */
     saveFeatures: false,
+    /**
+     * Whether the learner is a control (a floor or a ceiling), compared with the baseline in
+     * the exploratory family only; when a config leaves it out, learners with these objectives are.
+     */
+    controlObjectives: CONTROL_OBJECTIVES,
   },
   probe: {
     /** Latents read out linearly from the frozen features. */
     targets: ['wall_ahead', 'material_ahead', 'nearest_emitter', 'nearest_distance_m', 'heading'] as readonly LatentName[],
+    /**
+     * The per-seed measure of the primary family: noisy (the mean chance-corrected score over
+     * the noisy severities: how much of the world the features still carry under noise), drop
+     * (corrected clean score − noisy) or area (normalised area under the corrected curve).
+     */
+    primary: 'noisy' as SeedMeasure,
   },
   /** Corruptions scored at test time; none by default (clean scores only). */
   noise: [] as readonly never[],
@@ -93,3 +131,13 @@ export const DEFAULTS = {
   /** Output folder when a config names none: runs/<name>, relative to the config file like `out`. */
   outRoot: 'runs',
 } as const;
+
+/** Whether a learner is a control: as its config says, else by its objective (DEFAULTS.learner.controlObjectives). */
+export function isControl(objective: ObjectiveName, control: boolean | undefined): boolean {
+  return control ?? DEFAULTS.learner.controlObjectives.includes(objective);
+}
+
+/** A spiking encoder with every default, as `encoder: { kind: spiking }` gives it. */
+export const SPIKING_DEFAULTS: SpikingEncoderSpec = (({ hidden, steps, dtMs, tauMs, threshold, reset, refractoryMs, inputCoding, surrogate, surrogateSlope }) => ({
+  kind: 'spiking', hidden, steps, dtMs, tauMs, threshold, reset, refractoryMs, inputCoding, surrogate, surrogateSlope,
+}))(DEFAULTS.learner.encoder);

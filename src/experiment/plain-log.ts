@@ -20,7 +20,9 @@ export function plainLine(event: RunEvent, total: number): string {
     case 'epoch': {
       const { log } = event;
       const angles = log.alignmentDeg.length === 0 ? '' : ` alignment ${log.alignmentDeg.map((a) => `${a.toFixed(1)}°`).join(' ')}`;
-      return `${at(event.cell.index)} ${describe(event.cell)} epoch ${log.epoch} train loss ${log.trainLoss.toPrecision(4)} validation loss ${log.validationLoss.toPrecision(4)}${angles}`;
+      const firing = log.firing == null ? ''
+        : ` firing ${log.firing.rateHz.map((r) => r.toFixed(0)).join('/')} Hz silent ${log.firing.silentFraction.map((f) => `${(100 * f).toFixed(0)}%`).join('/')}`;
+      return `${at(event.cell.index)} ${describe(event.cell)} epoch ${log.epoch} train loss ${log.trainLoss.toPrecision(4)} validation loss ${log.validationLoss.toPrecision(4)}${angles}${firing}`;
     }
     case 'cell-done':
       return `${at(event.cell.index)} done ${describe(event.cell)} in ${event.seconds.toFixed(1)} s, ${event.scores.length} scores`;

@@ -1,14 +1,16 @@
 import type { LatentName } from '../collect/dataset.js';
-import type { BackendName, LearnerSpec } from '../learn/spec.js';
+import type { BackendName, EncoderSpec, LearnerSpec } from '../learn/spec.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import type { ChannelName, SenseSettings } from '../senses/channel.js';
-import type { CollectSettings, OutputSettings, ProbeSettings } from './defaults.js';
+import { isControl, type CollectSettings, type OutputSettings, type ProbeSettings } from './defaults.js';
 import type { FilledConfig } from './schema.js';
 
 /** A learner as the sweep runs it: what it learns, and what its cells record beside the numbers. */
 export interface PlannedLearner {
   readonly spec: LearnerSpec;
   readonly output: OutputSettings;
+  /** Compared with the baseline in the exploratory family only (report only: not part of the cell id). */
+  readonly control: boolean;
 }
 
 /** One combination of a sweep's settings, in the camelCase types the modules take. */
@@ -40,8 +42,9 @@ export function resolveSettings(config: FilledConfig, worldPath: string): Resolv
     learners: config.learners.map((learner) => ({
       spec: learnerSpec(learner, probeTargets),
       output: { saveFeatures: learner.save_features, alignEvery: learner.train.align_every },
+      control: isControl(learner.objective, learner.control),
     })),
-    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name },
+    probe: { targets: probeTargets, baseline: config.probe.baseline ?? config.learners[0].name, primary: config.probe.primary },
     noise: config.noise.map((entry) => ({
       channel: entry.channel,
       kind: entry.kind,
@@ -59,7 +62,7 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
     target: (learner.target ?? []) as ChannelName[],
     offset: learner.offset,
     supervisedTargets: learner.objective === 'supervised' ? learner.supervised_targets ?? probeTargets : [],
-    encoder: { hidden: [...learner.encoder.hidden], activation: learner.encoder.activation },
+    encoder: encoderSpec(learner.encoder),
     rule: learner.rule,
     train: {
       optimizer: learner.train.optimizer,
@@ -69,6 +72,24 @@ function learnerSpec(learner: FilledConfig['learners'][number], probeTargets: re
       patience: learner.train.patience,
       temperature: learner.train.temperature,
     },
+  };
+}
+
+/** An encoder's settings in module spelling. */
+export function encoderSpec(encoder: FilledConfig['learners'][number]['encoder']): EncoderSpec {
+  if (encoder.kind === 'mlp') return { kind: 'mlp', hidden: [...encoder.hidden], activation: encoder.activation };
+  return {
+    kind: 'spiking',
+    hidden: [...encoder.hidden],
+    steps: encoder.steps,
+    dtMs: encoder.dt_ms,
+    tauMs: encoder.tau_ms,
+    threshold: encoder.threshold,
+    reset: encoder.reset,
+    refractoryMs: encoder.refractory_ms,
+    inputCoding: encoder.input_coding,
+    surrogate: encoder.surrogate,
+    surrogateSlope: encoder.surrogate_slope,
   };
 }
 

@@ -19,6 +19,7 @@ export function resolvedConfigYaml(sweep: Sweep): string {
     learners: filled.learners.map((learner, i) => ({
       ...learner,
       ...(learner.objective === 'supervised' ? { supervised_targets: [...base.learners[i].spec.supervisedTargets] } : {}),
+      control: base.learners[i].control,
     })),
     vary: filled.vary.world == null ? filled.vary : { ...filled.vary, world: filled.vary.world.map(moved) },
     out: '.',

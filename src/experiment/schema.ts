@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { LATENT_NAMES } from '../collect/dataset.js';
-import { ACTIVATIONS, BACKENDS, OBJECTIVES, OPTIMIZERS, RULES } from '../learn/spec.js';
+import { ACTIVATIONS, BACKENDS, INPUT_CODINGS, OBJECTIVES, OPTIMIZERS, RESETS, RULES, SURROGATES } from '../learn/spec.js';
 import { NOISE_KINDS } from '../noise/spec.js';
+import { SEED_MEASURES } from '../probe/robustness.js';
 import { CHANNELS } from '../senses/channel.js';
 import { POLICY_NAMES } from '../collect/policies.js';
 import { DEFAULTS } from './defaults.js';
@@ -14,10 +15,31 @@ const int = (min: number, max: number) => z.number().int().min(min).max(max);
 const fraction = z.number().gt(0).lt(1);
 const channelList = z.array(z.enum(CHANNELS));
 
-const encoder = z.strictObject({
-  hidden: z.array(int(1, 4096)).min(1).max(8).default([...d.learner.encoder.hidden]),
-  activation: z.enum(ACTIVATIONS).default(d.learner.encoder.activation),
-}).describe('Hidden layer widths and their activation.');
+const e = d.learner.encoder;
+const hidden = z.array(int(1, 4096)).min(1).max(8).default([...e.hidden]);
+const positive = (max: number, fallback: number) => z.number().gt(0).max(max).default(fallback);
+
+const mlpEncoder = z.strictObject({
+  kind: z.literal('mlp').default('mlp'),
+  hidden,
+  activation: z.enum(ACTIVATIONS).default(e.activation),
+}).describe('Rate units: hidden layer widths and their activation.');
+
+const spikingEncoder = z.strictObject({
+  kind: z.literal('spiking'),
+  hidden,
+  steps: int(1, 1000).default(e.steps).describe('Time steps T per sample.'),
+  dt_ms: positive(100, e.dtMs).describe('Length of a time step, ms.'),
+  tau_ms: positive(100_000, e.tauMs).describe('Membrane time constant, ms.'),
+  threshold: positive(1_000, e.threshold).describe('Membrane potential at which a unit spikes.'),
+  reset: z.enum(RESETS).default(e.reset),
+  refractory_ms: z.number().min(0).max(100_000).default(e.refractoryMs).describe('Refractory period, ms: a whole number of time steps.'),
+  input_coding: z.enum(INPUT_CODINGS).default(e.inputCoding),
+  surrogate: z.enum(SURROGATES).default(e.surrogate),
+  surrogate_slope: positive(1_000, e.surrogateSlope).describe('Steepness of the surrogate derivative, per unit of membrane potential.'),
+}).describe('Leaky integrate-and-fire units simulated for `steps` time steps per sample.');
+
+const encoder = z.discriminatedUnion('kind', [mlpEncoder, spikingEncoder]);
 
 const train = z.strictObject({
   optimizer: z.enum(OPTIMIZERS).default(d.learner.train.optimizer),
@@ -42,6 +64,8 @@ const learner = z.strictObject({
   train: train.prefault({}),
   save_features: z.boolean().default(d.learner.saveFeatures)
     .describe('Also store features.npy and latents.npy of every collected step. Output-only: not part of the cell id.'),
+  control: z.boolean().optional()
+    .describe(`A control (floor or ceiling): compared with the baseline in the exploratory family only. Defaults to true for ${d.learner.controlObjectives.join(' and ')} learners. Report only: not part of the cell id.`),
 });
 
 /** A number, where YAML's .inf (the clean SNR of masking) is allowed too. */
@@ -88,6 +112,8 @@ export const configSchema = z.strictObject({
   probe: z.strictObject({
     targets: z.array(z.enum(LATENT_NAMES)).min(1).default([...d.probe.targets]),
     baseline: z.string().optional().describe('A learner name; defaults to the first learner.'),
+    primary: z.enum(SEED_MEASURES).default(d.probe.primary)
+      .describe('The per-seed robustness measure the primary family tests: noisy, drop or area. Report only: not part of the cell id.'),
   }).prefault({}),
   noise: z.array(noise).default([]),
   vary: z.record(z.string(), z.array(z.unknown()).min(1)).default({})

@@ -66,7 +66,8 @@ function resultRows(cell: PlannedCell, measurements: readonly Measurement[]): Re
 }
 
 let version: string | undefined;
-function crosswiseVersion(): string {
+/** The version in package.json, read once. */
+export function crosswiseVersion(): string {
   version ??= (JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string }).version;
   return version;
 }

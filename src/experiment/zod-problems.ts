@@ -8,7 +8,7 @@ export function problemsFromIssues(schema: z.ZodType, issues: readonly Issue[]):
   return issues.flatMap((issue) => {
     const path = issue.path.map((segment) => (typeof segment === 'symbol' ? String(segment) : segment));
     if (issue.code === 'unrecognized_keys') {
-      const allowed = keysAt(schema, path);
+      const allowed = keysAt(schema, path, issue.input);
       return issue.keys.map((key) => ({
         path: [...path, key],
         atKey: true,
@@ -40,10 +40,20 @@ function describeIssue(issue: Issue): string {
     case 'invalid_format':
       return `expected ${issue.message}, got ${got}`;
     case 'invalid_union':
-      return `expected ${unionExpectation(issue)}, got ${got}`;
+      return discriminatorProblem(issue) ?? `expected ${unionExpectation(issue)}, got ${got}`;
     default:
       return `${issue.message}, got ${got}`;
   }
+}
+
+/** An unknown value of a discriminated union's key (`encoder.kind`), reported at that key. */
+function discriminatorProblem(issue: z.core.$ZodIssueInvalidUnion & { readonly input?: unknown }): string | null {
+  const { discriminator, options } = issue as { discriminator?: string; options?: unknown[] };
+  if (discriminator == null || options == null) return null;
+  const values = options.filter((o) => o != null).map(String);
+  const value = (issue.input as Record<string, unknown> | undefined)?.[discriminator];
+  const near = typeof value === 'string' ? suggestion(value, values) : '';
+  return `expected one of ${values.join(' | ')}, got ${value === undefined ? 'nothing' : shown(value)}${near}`;
 }
 
 function unionExpectation(issue: z.core.$ZodIssueInvalidUnion): string {
@@ -59,8 +69,11 @@ function shown(value: unknown): string {
   return String(value);
 }
 
-/** Keys the schema allows at an object path (through defaults, optionals and arrays). */
-function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[] {
+/**
+ * Keys the schema allows at an object path (through defaults, optionals and arrays); at a
+ * discriminated union, those of the option the object's discriminator picks (else the first).
+ */
+function keysAt(schema: z.ZodType, path: readonly (string | number)[], input: unknown): string[] {
   let node: z.ZodType | undefined = schema;
   for (const segment of path) {
     node = node == null ? undefined : unwrap(node);
@@ -70,7 +83,15 @@ function keysAt(schema: z.ZodType, path: readonly (string | number)[]): string[]
     else node = undefined;
   }
   node = node == null ? undefined : unwrap(node);
+  if (node instanceof z.ZodDiscriminatedUnion) node = optionFor(node, input);
   return node instanceof z.ZodObject ? Object.keys(node.shape) : [];
+}
+
+function optionFor(union: z.ZodDiscriminatedUnion, input: unknown): z.ZodType {
+  const key = union._zod.def.discriminator;
+  const value = input != null && typeof input === 'object' ? (input as Record<string, unknown>)[key] : undefined;
+  const options = union.options as z.ZodType[];
+  return options.find((o) => o instanceof z.ZodObject && (unwrap(o.shape[key] as z.ZodType) as z.ZodLiteral).values.has(value as never)) ?? options[0];
 }
 
 function unwrap(schema: z.ZodType): z.ZodType {
@@ -94,7 +115,9 @@ export function schemaPaths(schema: z.ZodType): string[] {
         .flatMap(([key, value]) => [`${prefix}${key}`, ...walk(value, `${prefix}${key}.`)]);
     }
     if (inner instanceof z.ZodArray && unwrap(inner.element as z.ZodType) instanceof z.ZodObject) return walk(inner.element as z.ZodType, `${prefix}*.`);
+    // A union (the encoder kinds) offers the paths of every option.
+    if (inner instanceof z.ZodUnion) return (inner.options as readonly z.ZodType[]).flatMap((option) => walk(option, prefix));
     return [];
   };
-  return walk(schema, '');
+  return [...new Set(walk(schema, ''))];
 }

@@ -4,6 +4,7 @@ import '@tensorflow/tfjs-backend-wasm';
 import { registerDenseKernels } from './dense-kernels.js';
 import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
+import { registerSpikingKernels } from './spiking-kernels.js';
 import { registerStockGradients } from './stock-gradients.js';
 import type { BackendName } from './spec.js';
 
@@ -23,6 +24,7 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     registerFastMatMulGradient();
     registerOptimizerKernels();
     registerDenseKernels();
+    registerSpikingKernels();
     gradientsReady = true;
   }
   // engine().backendName stays null until a backend is chosen; getBackend() would pick one.

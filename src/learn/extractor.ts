@@ -7,15 +7,32 @@ import type { FeatureExtractor } from './spec.js';
 /** Rows per forward pass when extracting features, to bound memory on large inputs. */
 const CHUNK_ROWS = 4096;
 
-/** Wraps a trained encoder (a tower without head) and its training-split standardiser. */
+/** A frozen encoder as a function of standardised input rows. */
+export interface Representation {
+  readonly featureSize: number;
+  /** Features of standardised rows x ([rows, cols]), [rows, featureSize]; called inside tf.tidy. */
+  features(x: Float32Array, rows: number, cols: number): tf.Tensor2D;
+  dispose(): void;
+}
+
+/** The representation of a rate tower without head: its last hidden layer's activations. */
+export function rateRepresentation(tower: Tower): Representation {
+  return {
+    featureSize: layerWidth(tower.encoder[tower.encoder.length - 1]),
+    features: (x, rows, cols) => encode(tower, tf.tensor2d(x, [rows, cols])),
+    dispose: () => disposeTower(tower),
+  };
+}
+
+/** Wraps a trained representation and its training-split standardiser. */
 export function createExtractor(
   input: readonly ChannelName[],
   channelSize: Readonly<Record<ChannelName, number>>,
-  encoder: Tower,
+  representation: Representation,
   standardiser: Standardiser,
 ): FeatureExtractor {
   const channels = orderedChannels(input);
-  const featureSize = layerWidth(encoder.encoder[encoder.encoder.length - 1]);
+  const { featureSize } = representation;
   return {
     input: channels,
     featureSize,
@@ -33,7 +50,7 @@ export function createExtractor(
         const rows = Math.min(CHUNK_ROWS, n - start);
         const chunk = x.data.subarray(start * x.cols, (start + rows) * x.cols);
         // The tensor, not its values, leaves tidy: tidy walks a returned typed array element by element.
-        const features = tf.tidy(() => encode(encoder, tf.tensor2d(chunk, [rows, x.cols])));
+        const features = tf.tidy(() => representation.features(chunk, rows, x.cols));
         try {
           out.set(features.dataSync(), start * featureSize);
         } finally {
@@ -42,6 +59,6 @@ export function createExtractor(
       }
       return out;
     },
-    dispose: () => disposeTower(encoder),
+    dispose: () => representation.dispose(),
   };
 }

@@ -20,3 +20,19 @@ export function heNormal(rng: Rng, fanIn: number, fanOut: number): Float32Array 
 export function hiddenInit(activation: ActivationName): (rng: Rng, fanIn: number, fanOut: number) => Float32Array {
   return activation === 'relu' ? heNormal : glorotUniform;
 }
+
+/**
+ * Spiking layers: He-normal weights scaled by 1/r₀ where a layer reads spikes, so that its mean
+ * input current has the spread He et al. give a ReLU layer when its inputs fire at r₀ spikes
+ * per step; a layer that reads the standardised input held as a current starts He-normal.
+ */
+export function spikingInit(heldInput: (layer: number) => boolean, inputRate = SPIKING_INPUT_RATE): (rng: Rng, fanIn: number, fanOut: number, layer: number) => Float32Array {
+  return (rng, fanIn, fanOut, layer) => {
+    const w = heNormal(rng, fanIn, fanOut);
+    if (heldInput(layer)) return w;
+    return w.map((v) => v / inputRate);
+  };
+}
+
+/** The firing rate, spikes per step, that spiking layers' initial weights assume of their inputs (common practice: tuned on the demo worlds). */
+export const SPIKING_INPUT_RATE = 0.2;

@@ -10,11 +10,12 @@ export interface Dense {
   readonly b: tf.Variable; // [out]
 }
 
-/** An MLP encoder with a linear head on its last hidden layer (plus optional extra head inputs). */
+/** An encoder with a linear head on its last hidden layer (plus optional extra head inputs). */
 export interface Tower {
   readonly encoder: readonly Dense[];
   readonly head: Dense | null;
-  readonly activation: ActivationName;
+  /** The hidden layers' activation; null in a spiking tower, whose units are leaky integrate-and-fire neurons (spiking-network.ts). */
+  readonly activation: ActivationName | null;
 }
 
 /** What one tower reads and its sizes. */
@@ -42,6 +43,12 @@ export const ACTIVATION_REGISTRY: Record<ActivationName, Activation> = {
   sigmoid: { f: (a) => tf.sigmoid(a), derivative: (_pre, h) => tf.mul(h, tf.sub(1, h)) },
 };
 
+/** The activation of a rate tower's hidden layers; a spiking tower has none. */
+export function activationOf(tower: Pick<Tower, 'activation'>): ActivationName {
+  if (tower.activation == null) throw new Error('a spiking tower has no activation function: run it with spiking-network.ts');
+  return tower.activation;
+}
+
 function dense(W: Float32Array, fanIn: number, fanOut: number): Dense {
   // tidy frees the initial-value tensors; the variables it returns stay alive.
   return tf.tidy(() => ({ W: tf.variable(tf.tensor2d(W, [fanIn, fanOut])), b: tf.variable(tf.zeros([fanOut])) }));
@@ -58,13 +65,18 @@ export function headShape(shape: TowerShape): [number, number] {
   return [shape.hidden[shape.hidden.length - 1] + shape.extraWidth, shape.outputWidth];
 }
 
-/** Builds a tower; weights come from the streams only (biases start at zero). */
-export function createTower(shape: TowerShape, activation: ActivationName, streams: TowerStreams): Tower {
-  const init = hiddenInit(activation);
+/** Draws the initial weights of hidden layer `layer` (0-based), [fanIn, fanOut] row-major. */
+export type LayerInit = (rng: Rng, fanIn: number, fanOut: number, layer: number) => Float32Array;
+
+/**
+ * Builds a tower; weights come from the streams only (biases start at zero). Hidden layers
+ * start from `init`, by default the initialiser suited to the activation.
+ */
+export function createTower(shape: TowerShape, activation: ActivationName | null, streams: TowerStreams, init: LayerInit = hiddenInit(activationOf({ activation }))): Tower {
   const encoder: Dense[] = [];
   let fanIn = shape.inputWidth;
-  for (const width of shape.hidden) {
-    encoder.push(dense(init(streams.encoder, fanIn, width), fanIn, width));
+  for (const [layer, width] of shape.hidden.entries()) {
+    encoder.push(dense(init(streams.encoder, fanIn, width, layer), fanIn, width));
     fanIn = width;
   }
   const [headIn, outputs] = headShape(shape);
@@ -82,24 +94,27 @@ export interface ForwardCache {
   readonly output: tf.Tensor2D;
 }
 
-function affine(x: tf.Tensor2D, layer: Dense): tf.Tensor2D {
+/** x·W + b for a layer. */
+export function affine(x: tf.Tensor2D, layer: Dense): tf.Tensor2D {
   return tf.add(tf.matMul(x, layer.W as tf.Tensor2D), layer.b);
 }
 
 /** Representation (last hidden layer) for inputs x: [batch, in] → [batch, hidden_k]. */
 export function encode(tower: Tower, x: tf.Tensor2D): tf.Tensor2D {
-  return tower.encoder.reduce((h, layer) => ACTIVATION_REGISTRY[tower.activation].f(affine(h, layer)), x);
+  const { f } = ACTIVATION_REGISTRY[activationOf(tower)];
+  return tower.encoder.reduce((h, layer) => f(affine(h, layer)), x);
 }
 
 /** Full forward pass with every intermediate kept. */
 export function forwardCached(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D | null): ForwardCache {
   if (tower.head == null) throw new Error('this tower has no head to train');
+  const { f } = ACTIVATION_REGISTRY[activationOf(tower)];
   const post = [x];
   const pre: tf.Tensor2D[] = [];
   for (const layer of tower.encoder) {
     const a = affine(post[post.length - 1], layer);
     pre.push(a);
-    post.push(ACTIVATION_REGISTRY[tower.activation].f(a));
+    post.push(f(a));
   }
   const representation = post[post.length - 1];
   const headInput = extra == null ? representation : tf.concat([representation, extra], 1);

@@ -6,6 +6,7 @@ import { infoNce, meanSquaredError, softmaxCrossEntropy } from './losses.js';
 import { channelWidth, datasetRows, orderedChannels, withSuccessor } from './matrix.js';
 import type { TowerShape } from './network.js';
 import type { LearnerSpec, ObjectiveName } from './spec.js';
+import { spikingProblems } from './spiking-checks.js';
 
 /** How an objective trains: its examples and its loss. */
 export interface TrainingSignal {
@@ -190,4 +191,8 @@ export function checkSpec(spec: LearnerSpec): void {
   if (!Number.isInteger(spec.train.patience) || spec.train.patience < 1) fail(`patience must be a positive integer, got ${spec.train.patience}`);
   if (!(spec.train.learningRate > 0)) fail(`learning rate must be positive, got ${spec.train.learningRate}`);
   if (!(spec.train.temperature > 0)) fail(`temperature must be positive, got ${spec.train.temperature}`);
+  if (spec.encoder.kind === 'spiking') {
+    const [first] = spikingProblems(spec.encoder, spec.rule);
+    if (first != null) fail(`${first.key.join('.')}: ${first.message}`);
+  }
 }

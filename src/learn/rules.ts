@@ -2,7 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
 import { columnSums, matMulT } from './dense-kernels.js';
 import { glorotUniform } from './init.js';
-import { ACTIVATION_REGISTRY, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
+import { ACTIVATION_REGISTRY, activationOf, forward, layerWidth, forwardCached, towerVariables, type ForwardCache, type Tower } from './network.js';
 import type { RuleName } from './spec.js';
 
 /** One mini-batch as tensors: an input per tower, the action for tower 0's head, the target. */
@@ -49,19 +49,19 @@ export function createFeedback(rule: Rule, towers: readonly Tower[], streamOf: (
 }
 
 /** Output error e = ∂L/∂output of each tower (for contrast: the gradient w.r.t. each embedding). */
-function outputErrors(caches: readonly ForwardCache[], loss: LossOfOutputs): { loss: tf.Scalar; errors: tf.Tensor2D[] } {
+export function outputErrors(caches: readonly Pick<ForwardCache, 'output'>[], loss: LossOfOutputs): { loss: tf.Scalar; errors: tf.Tensor2D[] } {
   const { value, grads } = tf.valueAndGrads((...outputs: tf.Tensor[]) => loss(outputs as tf.Tensor2D[]))(caches.map((c) => c.output));
   return { loss: value, errors: grads as tf.Tensor2D[] };
 }
 
 /** ∂L/∂W = inputᵀ·δ and ∂L/∂b = Σ_rows δ for a layer with input x and error δ at its pre-activation. */
-function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
+export function layerGrads(x: tf.Tensor2D, delta: tf.Tensor2D): tf.Tensor[] {
   return [matMulT(x, delta, true, false), columnSums(delta)];
 }
 
 /** δ_l = g ⊙ f′(a_l) for hidden layer l (1-based), given the signal g arriving at its output. */
 function hiddenDelta(tower: Tower, cache: ForwardCache, l: number, g: tf.Tensor2D): tf.Tensor2D {
-  return tf.mul(g, ACTIVATION_REGISTRY[tower.activation].derivative(cache.pre[l - 1], cache.post[l]));
+  return tf.mul(g, ACTIVATION_REGISTRY[activationOf(tower)].derivative(cache.pre[l - 1], cache.post[l]));
 }
 
 /**
@@ -114,7 +114,7 @@ function errorRule(
  * The forward weights in feedback-alignment order, [W_2, …, W_k, W_head over its
  * representation rows]: sending the error back through their transposes is exact backprop.
  */
-function forwardWeights(tower: Tower): tf.Tensor2D[] {
+export function forwardWeights(tower: Tower): tf.Tensor2D[] {
   const { hidden } = widths(tower);
   const head = tower.head!.W as tf.Tensor2D;
   const representation = hidden[hidden.length - 1];

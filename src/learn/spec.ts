@@ -5,6 +5,13 @@ import type { LatentName } from '../collect/dataset.js';
 export const OBJECTIVES = ['predict', 'reconstruct', 'forecast', 'contrast', 'supervised', 'untrained'] as const;
 export type ObjectiveName = (typeof OBJECTIVES)[number];
 
+/**
+ * Objectives whose learners are controls unless their config says otherwise: the floor
+ * (frozen random weights) and the ceiling (trained on the latents themselves). A control
+ * is reported beside the question, never in the primary family of hypotheses.
+ */
+export const CONTROL_OBJECTIVES: readonly ObjectiveName[] = ['untrained', 'supervised'];
+
 /** How weight updates are computed (the config's `rule`). */
 export const RULES = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'] as const;
 export type RuleName = (typeof RULES)[number];
@@ -12,6 +19,56 @@ export type RuleName = (typeof RULES)[number];
 /** Hidden-layer nonlinearities (the config's `encoder.activation`). */
 export const ACTIVATIONS = ['relu', 'tanh', 'sigmoid'] as const;
 export type ActivationName = (typeof ACTIVATIONS)[number];
+
+/** Encoder kinds (the config's `encoder.kind`): rate units, or leaky integrate-and-fire neurons simulated in time. */
+export const ENCODER_KINDS = ['mlp', 'spiking'] as const;
+export type EncoderKindName = (typeof ENCODER_KINDS)[number];
+
+/** What a spiking unit's membrane does after a spike (the config's `encoder.reset`). */
+export const RESETS = ['subtract', 'zero'] as const;
+export type ResetName = (typeof RESETS)[number];
+
+/** How a spiking encoder's input enters its first layer (the config's `encoder.input_coding`). */
+export const INPUT_CODINGS = ['current', 'poisson'] as const;
+export type InputCodingName = (typeof INPUT_CODINGS)[number];
+
+/** Surrogate derivatives of the spike in the backward pass (the config's `encoder.surrogate`). */
+export const SURROGATES = ['fast-sigmoid', 'arctan', 'straight-through'] as const;
+export type SurrogateName = (typeof SURROGATES)[number];
+
+/** Learning rules that can train a spiking encoder (each with the same surrogate derivative). */
+export const SPIKING_RULES: readonly RuleName[] = ['backprop', 'feedback-alignment', 'direct-feedback-alignment'];
+
+/** A rate encoder: hidden layers of one activation. `kind` may be left out. */
+export interface MlpEncoderSpec {
+  readonly kind?: 'mlp';
+  readonly hidden: readonly number[];
+  readonly activation: ActivationName;
+}
+
+/** A spiking encoder: hidden layers of leaky integrate-and-fire units simulated for `steps` time steps per sample. */
+export interface SpikingEncoderSpec {
+  readonly kind: 'spiking';
+  readonly hidden: readonly number[];
+  /** Time steps T each sample is simulated for. */
+  readonly steps: number;
+  /** Length of one time step, ms. */
+  readonly dtMs: number;
+  /** Membrane time constant τ, ms. */
+  readonly tauMs: number;
+  /** Membrane potential at which a unit spikes (the input current times resistance is in the same units). */
+  readonly threshold: number;
+  readonly reset: ResetName;
+  /** Time after a spike during which the membrane is held at 0, ms (a whole number of time steps). */
+  readonly refractoryMs: number;
+  readonly inputCoding: InputCodingName;
+  readonly surrogate: SurrogateName;
+  /** Steepness k of the surrogate derivative, per unit of membrane potential. */
+  readonly surrogateSlope: number;
+}
+
+/** A learner's encoder. */
+export type EncoderSpec = MlpEncoderSpec | SpikingEncoderSpec;
 
 /** Optimisers applied to the rule's updates (the config's `train.optimizer`). */
 export const OPTIMIZERS = ['adam', 'sgd'] as const;
@@ -33,7 +90,7 @@ export interface LearnerSpec {
   readonly offset: 0 | 1;
   /** supervised only: the latents predicted directly. */
   readonly supervisedTargets: readonly LatentName[];
-  readonly encoder: { readonly hidden: readonly number[]; readonly activation: ActivationName };
+  readonly encoder: EncoderSpec;
   readonly rule: RuleName;
   readonly train: {
     readonly optimizer: OptimizerName;
@@ -59,6 +116,16 @@ export interface EpochLog {
    * target encoder's; recorded every `alignEvery` steps (TrainOptions). Empty for backprop.
    */
   readonly alignmentDeg: readonly number[];
+  /** Spiking encoders only: the input encoder's activity on the validation split after the epoch. */
+  readonly firing?: LayerFiring;
+}
+
+/** Spiking activity per hidden layer of an encoder, first layer first. */
+export interface LayerFiring {
+  /** Mean firing rate over units, samples and time steps, Hz. */
+  readonly rateHz: readonly number[];
+  /** Fraction of units that never spiked on any sample. */
+  readonly silentFraction: readonly number[];
 }
 
 /** A trained, frozen encoder as the probes see it. */

@@ -1,18 +1,18 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import { permutation, type Rng } from '../random.js';
-import { batchOf } from './batches.js';
 import { BatchLosses } from './batch-losses.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
 import { TrainingStatistics, type ExampleSet } from './examples.js';
+import { encoderKind, type EncoderKind } from './encoder-kinds.js';
 import { createExtractor } from './extractor.js';
-import { createTower, disposeTower, type Tower } from './network.js';
+import { disposeTower, type Tower } from './network.js';
 import { createOptimizer, type Optimizer } from './optimizers.js';
 import { checkSpec, OBJECTIVE_REGISTRY, type Objective, type TrainingSignal } from './objectives.js';
-import { allVariables, createFeedback, RULE_REGISTRY, towerOutputs, trueGradients, type Rule } from './rules.js';
+import { allVariables, createFeedback } from './rules.js';
 import type { EpochLog, FeatureExtractor, LearnerSpec } from './spec.js';
-import { batchOrderStream, feedbackStream, towerStreams } from './streams.js';
+import { batchOrderStream, feedbackStream } from './streams.js';
 
 /** Options of one training run. */
 export interface TrainOptions {
@@ -38,6 +38,8 @@ export interface TrainedLearner {
 /** Every tower with its heads, for callers that need the objective's outputs (the caller disposes). */
 export interface TrainedNetwork {
   readonly towers: Tower[];
+  /** How the towers run (rate or spiking units). */
+  readonly kind: EncoderKind;
   readonly objective: Objective;
   readonly stats: TrainingStatistics;
   readonly log: EpochLog[];
@@ -52,7 +54,7 @@ function minBatch(spec: LearnerSpec): number {
 interface EpochContext {
   readonly spec: LearnerSpec;
   readonly towers: Tower[];
-  readonly rule: Rule;
+  readonly kind: EncoderKind;
   readonly feedback: tf.Tensor2D[][];
   readonly signal: TrainingSignal;
   readonly optimizer: Optimizer;
@@ -67,7 +69,7 @@ interface EpochContext {
  * fails the epoch with that value (the steps after it only move weights that are lost anyway).
  */
 function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
-  const { spec, towers, rule, feedback, signal, optimizer } = ctx;
+  const { spec, towers, kind, feedback, signal, optimizer } = ctx;
   const vars = allVariables(towers);
   const order = permutation(train.n, ctx.shuffle);
   const angles = new AngleAverage();
@@ -80,10 +82,10 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
       const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
       const record = spec.rule !== 'backprop' && (due || (last && !angles.recorded));
       losses.add(tf.tidy(() => {
-        const batch = batchOf(train, rows);
+        const batch = kind.batch(train, rows, 'train');
         const lossOf = (outputs: readonly tf.Tensor2D[]) => signal.loss(outputs, batch.target);
-        const { loss, grads } = rule.gradients(towers, feedback, batch, lossOf);
-        if (record) angles.add(weightAngles(grads, trueGradients(towers, batch, lossOf).grads));
+        const { loss, grads } = kind.rule.gradients(towers, feedback, batch, lossOf);
+        if (record) angles.add(weightAngles(grads, kind.reference(towers, batch, lossOf).grads));
         optimizer.applyGradients(vars, grads);
         return loss;
       }), rows.length);
@@ -102,7 +104,7 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
  * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
  * of them would be far harder than the shuffled training batches.
  */
-function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, split: ExampleSet, order: Int32Array): number {
+function evaluate(spec: LearnerSpec, kind: EncoderKind, towers: Tower[], signal: TrainingSignal, split: ExampleSet, order: Int32Array): number {
   const losses = new BatchLosses();
   try {
     for (let start = 0; start < split.n; start += spec.train.batch) {
@@ -110,8 +112,8 @@ function evaluate(spec: LearnerSpec, towers: Tower[], signal: TrainingSignal, sp
       if (end - start < minBatch(spec) && losses.count > 0) continue;
       const rows = order.subarray(start, end);
       losses.add(tf.tidy(() => {
-        const batch = batchOf(split, rows);
-        return signal.loss(towerOutputs(towers, batch), batch.target);
+        const batch = kind.batch(split, rows, 'evaluate');
+        return signal.loss(kind.outputs(towers, batch), batch.target);
       }), end - start);
     }
     return losses.read().mean;
@@ -129,7 +131,7 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
 async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: ExampleSet, options: TrainOptions, log: EpochLog[]): Promise<number> {
-  const { spec, towers, signal } = ctx;
+  const { spec, towers, kind, signal } = ctx;
   const vars = allVariables(towers);
   const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
   let best: tf.Tensor[] = [];
@@ -140,9 +142,11 @@ async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: Examp
     for (let epoch = 1; epoch <= spec.train.epochs; epoch++) {
       const started = performance.now();
       const { loss, angles } = trainEpoch(ctx, train, epoch);
-      const validationLoss = evaluate(spec, towers, signal, validation, validationOrder);
+      const validationLoss = evaluate(spec, kind, towers, signal, validation, validationOrder);
       if (!Number.isFinite(validationLoss)) throw new LearnerDivergedError(spec.name, 'validation', epoch, validationLoss);
-      const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds: (performance.now() - started) / 1000, alignmentDeg: angles };
+      const seconds = (performance.now() - started) / 1000; // the firing measurement is not training time
+      const firing = kind.firing?.(towers[0], validation);
+      const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds, alignmentDeg: angles, ...(firing == null ? {} : { firing }) };
       log.push(entry);
       options.onEpoch?.(entry);
       if (validationLoss < bestLoss) {
@@ -181,16 +185,16 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     const n = examples?.[i].n ?? Infinity;
     if (n < minBatch(spec)) throw new Error(`learner '${spec.name}': the ${which} split has ${n} usable rows`);
   }
-  const towers = objective.towers.map((shape, i) => createTower(shape, spec.encoder.activation, towerStreams(options.seed, shape, spec.encoder.activation, i)));
+  const kind = encoderKind(spec, options.seed);
+  const towers = objective.towers.map((shape, i) => kind.createTower(shape, i));
   const log: EpochLog[] = [];
-  if (signal == null || examples == null) return { towers, objective, stats, log, bestEpoch: 0 };
-  const rule = RULE_REGISTRY[spec.rule];
-  const feedback = createFeedback(rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
+  if (signal == null || examples == null) return { towers, kind, objective, stats, log, bestEpoch: 0 };
+  const feedback = createFeedback(kind.rule, towers, (tower, matrix, shape) => feedbackStream(options.seed, tower, matrix, shape));
   const [train, validation] = examples;
   const optimizer = createOptimizer(spec.train);
   let bestEpoch = 0;
   try {
-    const ctx: EpochContext = { spec, towers, rule, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
+    const ctx: EpochContext = { spec, towers, kind, feedback, signal, optimizer, shuffle: batchOrderStream(options.seed, 'train'), alignEvery: options.alignEvery, step: 0 };
     bestEpoch = await runEpochs(ctx, train, validation, options, log);
   } catch (error) {
     towers.forEach(disposeTower);
@@ -199,15 +203,15 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
     tf.dispose(feedback.flat());
     optimizer.dispose();
   }
-  return { towers, objective, stats, log, bestEpoch };
+  return { towers, kind, objective, stats, log, bestEpoch };
 }
 
 /** Trains a learner and keeps only its frozen encoder (input tower without head). */
 export async function trainLearner(spec: LearnerSpec, data: Dataset, split: DatasetSplit, options: TrainOptions): Promise<TrainedLearner> {
-  const { towers, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
+  const { towers, kind, stats, log, bestEpoch } = await trainNetwork(spec, data, split, options);
   const [first, ...others] = towers;
   others.forEach(disposeTower);
   if (first.head != null) tf.dispose([first.head.W, first.head.b]);
-  const encoder = createExtractor(spec.input, data.channelSize, { ...first, head: null }, stats.channels(spec.input));
+  const encoder = createExtractor(spec.input, data.channelSize, kind.representation({ ...first, head: null }), stats.channels(spec.input));
   return { encoder, log, bestEpoch };
 }

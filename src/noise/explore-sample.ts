@@ -34,6 +34,14 @@ export interface ExploreStep {
   /** The world clock; emitters cycle on it. */
   readonly stepIndex: number;
   readonly noise: Readonly<Record<ChannelName, ChannelNoise>>;
+  /** What a recording holds for this step, shown instead of sensing the pose afresh (replay). */
+  readonly recorded?: RecordedStep;
+}
+
+/** One step of a recording: every channel as recorded and the ground truth (categorical values as class indices). */
+export interface RecordedStep {
+  readonly senses: Readonly<Record<ChannelName, Float32Array>>;
+  readonly latents: Readonly<Record<LatentName, number>>;
 }
 
 /** Everything the explore screen shows about one step, computed and ready to format. */
@@ -75,13 +83,14 @@ export function everyPoseReference(world: World, settings: SenseSettings): Recor
 }
 
 /**
- * The step as the explore screen shows it. Noise draws come from the stream
- * `explore/<world>/<step>/<channel>/<kind>/<severity>` of the seed, so drawing the same
- * step again shows the same noise.
+ * The step as the explore screen shows it: the senses at the pose, or what a recording
+ * holds for the step, each channel then corrupted as its noise setting says. Noise draws
+ * come from the stream `explore/<world>/<step>/<channel>/<kind>/<severity>` of the seed,
+ * so drawing the same step again, live or replayed, shows the same noise.
  */
 export function exploreSample(step: ExploreStep): ExploreSample {
   const { world, settings } = step;
-  const clean = senseAll(world, step.pose, step.transition, step.action, step.stepIndex, settings);
+  const clean = step.recorded?.senses ?? senseAll(world, step.pose, step.transition, step.action, step.stepIndex, settings);
   const senses = { ...clean };
   const noiseParameter = {} as Record<ChannelName, number>;
   for (const channel of CHANNELS) {
@@ -96,7 +105,7 @@ export function exploreSample(step: ExploreStep): ExploreSample {
   return {
     senses,
     noiseParameter,
-    latents: latentsAt(world, step.pose, step.transition, settings),
+    latents: step.recorded?.latents ?? latentsAt(world, step.pose, step.transition, settings),
     cellsInView: new Set([...view].filter((cell) => cell >= 0)),
     bandsHz: bandCentresHz(settings),
     sounding: world.emitters.map((e) => emitterIsOn(e, step.stepIndex)),

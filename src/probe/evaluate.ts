@@ -1,12 +1,12 @@
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import type { FeatureExtractor } from '../learn/spec.js';
-import { corruptChannel, noiseRng } from '../noise/corrupt.js';
 import { checkNoiseEntries } from '../noise/validate.js';
-import { channelReference } from '../noise/reference.js';
 import { noiseParameter } from '../noise/severity.js';
+import { corruptTestRows, trainingReference } from '../noise/test-rows.js';
 import type { NoiseSpec } from '../noise/spec.js';
 import { preparedCka, prepareCka } from './cka.js';
 import { encodeDistinct, type RowInputs } from './distinct.js';
+import { correctedScore, seedRobustness, SEED_MEASURES, type SeedMeasure } from './robustness.js';
 import { chanceLevel, evenSubsample, fitProbe, fitRows, scoreProbe, type FitRows, type FittedProbe } from './probe.js';
 import { takeRows } from './rows.js';
 import { probeTarget } from './targets.js';
@@ -26,6 +26,20 @@ export interface EvaluationRow {
   readonly value: number;
 }
 
+/**
+ * One per-seed robustness measure (seedRobustness) on the chance-corrected scale
+ * (correctedScore); `metric` names the probe score it was computed from. NaN when
+ * undefined (an area whose corrected clean score is below AREA_MIN_CLEAN).
+ */
+export interface SeedMeasureRow {
+  readonly target: string;
+  readonly channel: string;
+  readonly kind: string;
+  readonly measure: SeedMeasure;
+  readonly metric: 'r2' | 'accuracy';
+  readonly value: number;
+}
+
 /** The penalty each probe chose on validation, for the record. */
 export interface ProbeChoice {
   readonly target: string;
@@ -38,6 +52,8 @@ export interface ProbeChoice {
 /** Everything one encoder's evaluation produces. */
 export interface EvaluationResult {
   readonly rows: readonly EvaluationRow[];
+  /** noisy, drop and area per target and noise setting with at least one noisy severity. */
+  readonly measures: readonly SeedMeasureRow[];
   /** Clean features of the first min(n_test, TEST_FEATURE_ROWS) test rows. */
   readonly testFeatures: Float32Array; // [testFeatureRows, featureSize]
   readonly testFeatureRows: number;
@@ -91,7 +107,7 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
   const probes = targets.map((target) => fitProbe(target, data, all, pathRows));
 
   const labels = targets.map((target) => target.labels(data, split.test));
-  const chance = targets.map((target) => (target.kind === 'categorical' ? chanceLevel(target, data, split.train, split.test) : NaN));
+  const chance = targets.map((target) => (target.kind === 'categorical' ? chanceLevel(target, data, split.train) : NaN));
   const nTest = split.test.length;
   const cleanFeatures = takeRows(test.features, d, test.index); // [nTest, d]
   const cleanCka = prepareCka(cleanFeatures, nTest, d);
@@ -102,17 +118,23 @@ export function evaluateEncoder(args: EvaluationArgs): EvaluationResult {
   const clean = measure(cleanFeatures);
 
   const rows: EvaluationRow[] = [];
+  const measures: SeedMeasureRow[] = [];
   for (const spec of args.noise) {
     const corrupted = encoder.input.includes(spec.channel) ? corruptedFeatures(args, spec, testInputs) : [];
-    spec.severities.forEach((severity, i) => {
+    const conditions = spec.severities.map((severity, i) => {
       const features = corrupted[i];
-      const at = { channel: spec.channel, kind: spec.kind, severity, parameter: noiseParameter(spec, i) };
-      rows.push(...conditionRows(at, features === undefined ? clean : measure(features), probes, chance));
+      const condition = features === undefined ? clean : measure(features);
+      rows.push(...conditionRows({ channel: spec.channel, kind: spec.kind, severity, parameter: noiseParameter(spec, i) }, condition, probes, chance));
+      return condition;
     });
+    if (spec.severities.some((severity) => severity > 0)) {
+      measures.push(...seedMeasureRows(spec, [clean, ...conditions], probes, chance));
+    }
   }
   const testFeatureRows = Math.min(nTest, TEST_FEATURE_ROWS);
   return {
     rows,
+    measures,
     testFeatures: cleanFeatures.slice(0, testFeatureRows * d),
     testFeatureRows,
     featureSize: d,
@@ -132,18 +154,33 @@ function inputsOf(encoder: FeatureExtractor, data: Dataset, steps: Int32Array): 
  */
 function corruptedFeatures(args: EvaluationArgs, spec: NoiseSpec, test: RowInputs): (Float32Array | undefined)[] {
   const { encoder, data, split, seed } = args;
-  const size = data.channelSize[spec.channel];
-  const reference = channelReference(data.channels[spec.channel], size, split.train, spec.channel);
+  const reference = trainingReference(data, split, spec.channel);
   const clean = test.channels[spec.channel] as Float32Array;
   const noisy = spec.severities.filter((severity) => severity > 0); // severities never repeat (checkNoiseSpec)
   const encoded = encodeDistinct(encoder, data.channelSize, noisy.map((severity) => {
     const parameter = noiseParameter(spec, spec.severities.indexOf(severity));
-    const values = corruptChannel(clean, size, spec.kind, parameter, reference, noiseRng(seed, spec.channel, spec.kind, severity));
+    const values = corruptTestRows(clean, reference, spec.kind, severity, parameter, seed);
     return { n: test.n, channels: { ...test.channels, [spec.channel]: values } };
   }));
   return spec.severities.map((severity) => {
     const e = encoded[noisy.indexOf(severity)];
     return e === undefined ? undefined : takeRows(e.features, encoder.featureSize, e.index);
+  });
+}
+
+/**
+ * noisy, drop and area of every target under one noise setting, from the corrected
+ * clean score and the corrected score at each severity above 0 (conditions[0] is clean,
+ * conditions[1 + i] belongs to spec.severities[i]).
+ */
+function seedMeasureRows(spec: NoiseSpec, conditions: readonly Condition[], probes: readonly FittedProbe[], chance: readonly number[]): SeedMeasureRow[] {
+  return probes.flatMap((probe, t) => {
+    const metric = probe.target.metric;
+    const corrected = (c: Condition) => correctedScore(metric, c.scores[t], chance[t]);
+    const curve = [{ severity: 0, score: corrected(conditions[0]) },
+      ...spec.severities.flatMap((severity, i) => (severity > 0 ? [{ severity, score: corrected(conditions[1 + i]) }] : []))];
+    const figures = seedRobustness(curve);
+    return SEED_MEASURES.map((measure) => ({ target: probe.target.name, channel: spec.channel, kind: spec.kind, measure, metric, value: figures[measure].value }));
   });
 }
 

@@ -81,18 +81,16 @@ export function scoreProbe(probe: FittedProbe, features: Float32Array, labels: T
 }
 
 /**
- * Chance accuracy: the share of test rows whose class is the most frequent class of the
- * training rows, i.e. the test accuracy of the best constant guess a featureless read-out
- * could learn. Taking the majority from training keeps test labels out of the choice.
+ * Chance accuracy: the majority class's share of the training rows, the accuracy of the
+ * best constant guess a featureless read-out could learn from them. It is the chance term
+ * of the corrected score (correctedScore), and it comes from training rows only, so test
+ * labels never enter it. NaN when there are no training rows.
  */
-export function chanceLevel(target: ProbeTarget, data: Dataset, trainRows: ArrayLike<number>, testRows: ArrayLike<number>): number {
+export function chanceLevel(target: ProbeTarget, data: Dataset, trainRows: ArrayLike<number>): number {
   const train = target.labels(data, trainRows);
-  const test = target.labels(data, testRows);
-  if (train.kind !== 'categorical' || test.kind !== 'categorical') throw new Error(`chanceLevel: target '${target.name}' is not categorical`);
+  if (train.kind !== 'categorical') throw new Error(`chanceLevel: target '${target.name}' is not categorical`);
+  if (train.classes.length === 0) return NaN;
   const counts = new Int32Array(train.classCount);
   for (const c of train.classes) counts[c]++;
-  let majority = 0;
-  for (let c = 1; c < counts.length; c++) if (counts[c] > counts[majority]) majority = c;
-  if (test.classes.length === 0) return NaN;
-  return test.classes.filter((c) => c === majority).length / test.classes.length;
+  return Math.max(...counts) / train.classes.length;
 }

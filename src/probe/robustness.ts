@@ -12,34 +12,75 @@ export interface Figure {
 
 const undefinedFigure = (reason: string): Figure => ({ value: NaN, reason });
 
+/** Corrected clean scores below this leave the normalised area undefined: a ratio to almost nothing (common practice). */
+export const AREA_MIN_CLEAN = 0.05;
+
+/**
+ * A probe score on a chance-corrected scale, so that features that carry nothing score 0
+ * and cannot look sturdy: accuracy becomes (accuracy − chance) / (1 − chance), the form of
+ * Cohen's kappa (Cohen 1960, eq. 1) with chance the majority class's share of the training
+ * rows; R² is taken as it is. Both are floored at 0: a read-out fitted on clean features
+ * can score far below that on noisy ones (R² of −14, or accuracy so far below a chance of
+ * 0.8 that the corrected value is −3.9), and below 0 it measures only how far the read-out
+ * extrapolates, not what the features carry. NaN when chance is 1.
+ */
+export function correctedScore(metric: 'r2' | 'accuracy', score: number, chance: number): number {
+  const corrected = metric === 'r2' ? score : chance < 1 ? (score - chance) / (1 - chance) : NaN;
+  return Number.isNaN(corrected) ? NaN : Math.max(0, corrected);
+}
+
+/** The per-seed robustness measures, in the order every output lists them. */
+export const SEED_MEASURES = ['noisy', 'drop', 'area'] as const;
+export type SeedMeasure = (typeof SEED_MEASURES)[number];
+
+/** The per-seed robustness measures of one corrected curve. */
+export interface SeedRobustness extends Record<SeedMeasure, Figure> {
+  /** Mean corrected score over the noisy severities: how much the features still carry under noise. */
+  readonly noisy: Figure;
+  /** Corrected clean score minus `noisy`: how much the noise took away. */
+  readonly drop: Figure;
+  /** Normalised area under the corrected curve (normalisedArea); undefined below AREA_MIN_CLEAN. */
+  readonly area: Figure;
+}
+
+/**
+ * noisy, drop and area of one learner, seed, target and noise from its corrected curve
+ * (severity 0 and the noisy severities). `noisy` is the per-seed counterpart of the mean
+ * corruption error of Hendrycks & Dietterich (2019, ICLR, §3) on an accuracy-like scale.
+ */
+export function seedRobustness(curve: readonly CurvePoint[]): SeedRobustness {
+  const clean = cleanScore(curve);
+  const noisyPoints = curve.filter((p) => p.severity > 0);
+  const missing = clean === undefined ? 'the curve has no severity 0 (clean) point'
+    : noisyPoints.length === 0 ? 'the curve has no severity beyond 0' : '';
+  if (clean === undefined || missing !== '') {
+    const none = undefinedFigure(missing);
+    return { noisy: none, drop: none, area: none };
+  }
+  const noisy = noisyPoints.reduce((sum, p) => sum + p.score, 0) / noisyPoints.length;
+  return { noisy: { value: noisy }, drop: { value: clean - noisy }, area: normalisedArea(curve, AREA_MIN_CLEAN) };
+}
+
 /**
  * Area under the curve by the trapezoid rule over the measured severities, divided by
  * clean score × severity range: 1 when noise costs nothing, lower as the curve falls
  * (common practice; the trapezoid handles unevenly spaced explicit severities). Needs
- * severity 0 and one more; undefined when the clean score is not positive, because the
- * ratio then has no sign-stable meaning.
+ * severity 0 and one more; undefined when the clean score is not positive (the ratio then
+ * has no sign-stable meaning) or below `minClean`.
  */
-export function normalisedArea(curve: readonly CurvePoint[]): Figure {
+export function normalisedArea(curve: readonly CurvePoint[], minClean = 0): Figure {
   const points = sorted(curve);
   const clean = cleanScore(points);
   if (clean === undefined) return undefinedFigure('the curve has no severity 0 (clean) point');
   if (points.length < 2) return undefinedFigure('the curve needs at least one severity beyond 0');
-  if (!(clean > 0)) return undefinedFigure(`the clean score ${clean} is not positive`);
+  if (!(clean > 0)) return undefinedFigure(`the clean score ${roundedText(clean)} is not positive`);
+  if (clean < minClean) return undefinedFigure(`the clean score ${roundedText(clean)} is below ${minClean}`);
   let area = 0;
   for (let i = 1; i < points.length; i++) {
     area += ((points[i].score + points[i - 1].score) / 2) * (points[i].severity - points[i - 1].severity);
   }
   const range = points[points.length - 1].severity - points[0].severity;
   return { value: area / (clean * range) };
-}
-
-/** Clean score minus the mean score over the severities above 0 (same units as the score). */
-export function dropFromClean(curve: readonly CurvePoint[]): Figure {
-  const clean = cleanScore(curve);
-  if (clean === undefined) return undefinedFigure('the curve has no severity 0 (clean) point');
-  const noisy = curve.filter((p) => p.severity > 0);
-  if (noisy.length === 0) return undefinedFigure('the curve has no severity beyond 0');
-  return { value: clean - noisy.reduce((sum, p) => sum + p.score, 0) / noisy.length };
 }
 
 /**
@@ -93,6 +134,11 @@ function pairSeverities(learner: readonly CurvePoint[], baseline: readonly Curve
   }
   if (l.length === 0) throw new Error('corruption error needs at least one severity beyond 0');
   return l.map((p, i) => [p.score, b[i].score]);
+}
+
+/** A number for a sentence: three significant decimals, not the 17 digits of a double. */
+function roundedText(x: number): string {
+  return Number.isFinite(x) ? String(Number(x.toFixed(3))) : String(x);
 }
 
 function cleanScore(curve: readonly CurvePoint[]): number | undefined {

@@ -11,6 +11,7 @@ import { cellsOf, learnerCka, type LearnerCka } from './learner-cka.js';
 import { loadRun, type StoredCell, type StoredRun } from './load.js';
 import { bandPlotSvg, robustnessPlotPath, trainingPlotPath, type BandPoint } from './plots.js';
 import { learnerSummaries } from './sections.js';
+import { silentLayerNotes } from './silent-layers.js';
 import { summaryMarkdown } from './summary.js';
 
 /** What `buildReport` wrote. */
@@ -32,9 +33,10 @@ export interface ReportFiles {
 export async function buildReport(outDir: string): Promise<ReportFiles> {
   const run = loadRun(outDir);
   const resultsPath = writeResultsCsv(outDir, run.results);
-  const warnings = [...run.warnings];
-  const combos = combinations(run.rows, run.varyKeys);
-  const comparisons = run.baseline == null ? [] : compareWithBaseline(run.rows, run.varyKeys, run.baseline);
+  const warnings = [...run.warnings, ...silentLayerNotes(run.cells)];
+  const combos = combinations(run.rows, run.varyKeys, run.measures);
+  const controls = new Set([...run.learners].filter(([, control]) => control).map(([name]) => name));
+  const comparisons = run.baseline == null ? [] : compareWithBaseline(combos, { baseline: run.baseline, primary: run.primary, controls });
   const learners = unique(run.rows.map((r) => r.learner));
   await mkdir(outputPath(outDir, 'plots'), { recursive: true });
   const plots = new Set<string>();
@@ -67,13 +69,15 @@ async function removeStalePlots(outDir: string, written: ReadonlySet<string>): P
 /** The robustness plots (one per target and noise) and the training plot of one combination. */
 async function comboPlots(run: StoredRun, combo: Combination, index: number | null, learners: readonly string[]): Promise<[string, string][]> {
   const out: [string, string][] = [];
-  for (const { target, metric, channel, kind, rows } of scoreGroups(combo.rows)) {
+  for (const { target, metric, channel, kind, rows } of scoreGroups(combo)) {
     const levels = severities(rows);
     const points = unique(rows.map((r) => r.learner)).flatMap((learner) =>
       learnerSummaries(rows, learner, levels).map((s, i): BandPoint => ({ learner, x: levels[i], mean: s.mean, low: s.ciLow, high: s.ciHigh })));
     const title = `${target} under ${channel} ${kind} noise`;
     out.push([robustnessPlotPath(target, channel, kind, index),
-      await bandPlotSvg(points, learners, { title, x: 'severity', y: metric === 'r2' ? 'R² (mean, 95% CI)' : 'accuracy (mean, 95% CI)' }, run.baseline)]);
+      await bandPlotSvg(points, learners, metric === 'r2'
+        ? { title, x: 'severity', y: 'R² (mean, 95% CI)', range: [-Infinity, 1] }
+        : { title, x: 'severity', y: 'accuracy (mean, 95% CI)', range: [0, 1] }, run.baseline)]);
   }
   const training = trainingPoints(run, combo);
   if (training.length > 0) {

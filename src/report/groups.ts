@@ -1,4 +1,4 @@
-import type { ScoreRow } from '../results/results-table.js';
+import type { MeasureRow, ScoreRow } from '../results/results-table.js';
 
 /** One combination of vary values, with the result rows measured under it. */
 export interface Combination {
@@ -6,6 +6,8 @@ export interface Combination {
   readonly index: number;
   readonly values: Readonly<Record<string, string>>;
   readonly rows: readonly ScoreRow[];
+  /** Its per-seed robustness measures. */
+  readonly measures: readonly MeasureRow[];
 }
 
 /** A corrupted channel and the kind of corruption. */
@@ -19,8 +21,8 @@ export function comboKey(values: Readonly<Record<string, string>>, varyKeys: rea
   return JSON.stringify(varyKeys.map((k) => values[k] ?? ''));
 }
 
-/** Splits rows by their vary values (one combination when there are no vary keys). */
-export function combinations(rows: readonly ScoreRow[], varyKeys: readonly string[]): Combination[] {
+/** Splits score rows and measure rows by their vary values (one combination when there are no vary keys). */
+export function combinations(rows: readonly ScoreRow[], varyKeys: readonly string[], measures: readonly MeasureRow[] = []): Combination[] {
   const byKey = new Map<string, ScoreRow[]>();
   for (const r of rows) {
     const key = comboKey(r.vary, varyKeys);
@@ -28,7 +30,9 @@ export function combinations(rows: readonly ScoreRow[], varyKeys: readonly strin
     list.push(r);
     byKey.set(key, list);
   }
-  return [...byKey.values()].map((list, i) => ({ index: i + 1, values: list[0].vary, rows: list }));
+  return [...byKey.entries()].map(([key, list], i) => ({
+    index: i + 1, values: list[0].vary, rows: list, measures: measures.filter((m) => comboKey(m.vary, varyKeys) === key),
+  }));
 }
 
 /** Distinct values in order of first appearance. */
@@ -37,7 +41,7 @@ export function unique<T>(items: Iterable<T>): T[] {
 }
 
 /** Distinct noises (channel, kind) in order of first appearance. */
-export function noises(rows: readonly ScoreRow[]): Noise[] {
+export function noises(rows: readonly Noise[]): Noise[] {
   const seen = new Map<string, Noise>();
   for (const r of rows) {
     const key = `${r.channel}\u0000${r.kind}`;
@@ -47,7 +51,7 @@ export function noises(rows: readonly ScoreRow[]): Noise[] {
 }
 
 /** The value per seed of the rows that pass `match` (the last row wins for a repeated seed). */
-export function bySeed(rows: readonly ScoreRow[], match: (r: ScoreRow) => boolean): Map<number, number> {
+export function bySeed<T extends { readonly seed: number; readonly value: number }>(rows: readonly T[], match: (r: T) => boolean): Map<number, number> {
   const values = new Map<number, number>();
   for (const r of rows) if (match(r)) values.set(r.seed, r.value);
   return values;
@@ -69,17 +73,24 @@ export interface ScoreGroup extends Noise {
   readonly target: string;
   readonly metric: 'r2' | 'accuracy';
   readonly rows: readonly ScoreRow[];
+  /** The per-seed measures computed from these scores. */
+  readonly measures: readonly MeasureRow[];
 }
 
-/** The score rows split by target, then by noise, in order of first appearance; targets without a probe score (CKA) are left out. */
-export function scoreGroups(rows: readonly ScoreRow[]): ScoreGroup[] {
+/**
+ * A combination's score rows split by target, then by noise, in order of first
+ * appearance, each with its measure rows; targets without a probe score (CKA) are left out.
+ */
+export function scoreGroups(combo: Pick<Combination, 'rows' | 'measures'>): ScoreGroup[] {
   const groups: ScoreGroup[] = [];
+  const { rows } = combo;
   for (const target of unique(rows.map((r) => r.target))) {
     const metric = scoreMetric(rows, target);
     if (metric == null) continue;
     const scored = rows.filter((r) => r.target === target && r.metric === metric);
     for (const { channel, kind } of noises(scored)) {
-      groups.push({ target, metric, channel, kind, rows: scored.filter((r) => r.channel === channel && r.kind === kind) });
+      const here = (r: ScoreRow | MeasureRow) => r.target === target && r.metric === metric && r.channel === channel && r.kind === kind;
+      groups.push({ target, metric, channel, kind, rows: scored.filter(here), measures: combo.measures.filter(here) });
     }
   }
   return groups;

@@ -1,13 +1,14 @@
 import type { Summary } from '../stats/summarise.js';
 
-/** A number with fixed decimals, or 'n/a' when undefined. */
+/** A number with fixed decimals, or 'n/a' when undefined; a value that rounds to zero has no minus sign. */
 export function num(x: number, digits = 3): string {
-  return Number.isFinite(x) ? x.toFixed(digits) : 'n/a';
+  return Number.isFinite(x) ? x.toFixed(digits).replace(/^-(?=0\.?0*$)/, '') : 'n/a';
 }
 
-/** A signed number with fixed decimals ('+0.012', '-0.300'), or 'n/a'. */
+/** A signed number with fixed decimals ('+0.012', '-0.300', '+0.000'), or 'n/a'. */
 export function signed(x: number, digits = 3): string {
-  return Number.isFinite(x) ? (x >= 0 ? '+' : '') + x.toFixed(digits) : 'n/a';
+  const text = num(x, digits);
+  return text === 'n/a' || text.startsWith('-') ? text : `+${text}`;
 }
 
 /** A p-value: three decimals, '<0.001' below that, 'n/a' when undefined. */

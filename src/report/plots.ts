@@ -16,11 +16,13 @@ export interface BandPoint {
   readonly high: number;
 }
 
-/** Axis titles and the plot title. */
+/** Axis titles and the plot title, and the range the plotted quantity can take. */
 export interface PlotLabels {
   readonly title: string;
   readonly x: string;
   readonly y: string;
+  /** Lowest and highest possible value (accuracy [0, 1], R² [−∞, 1]): CI bands are clamped to it. */
+  readonly range?: readonly [number, number];
 }
 
 /**
@@ -31,13 +33,16 @@ export interface PlotLabels {
 export async function bandPlotSvg(
   points: readonly BandPoint[], learners: readonly string[], labels: PlotLabels, baseline: string | null = null,
 ): Promise<string> {
+  const [min, max] = labels.range ?? [-Infinity, Infinity];
+  const clamp = (v: number) => Math.min(max, Math.max(min, v));
   const values = points.filter((p) => Number.isFinite(p.mean)).map((p) => ({
-    ...p, low: Number.isFinite(p.low) ? p.low : p.mean, high: Number.isFinite(p.high) ? p.high : p.mean,
+    ...p, low: clamp(Number.isFinite(p.low) ? p.low : p.mean), high: clamp(Number.isFinite(p.high) ? p.high : p.mean),
   }));
   const scale = { domain: [...learners], range: learners.map((_, i) => PALETTE[i % PALETTE.length]) };
   // One merged legend (fill and stroke share the field), drawn as solid line swatches.
   const legend = { symbolType: 'stroke', symbolStrokeWidth: 3, symbolOpacity: 1, symbolFillColor: 'transparent' } as const;
-  const x = { field: 'x', type: 'quantitative', title: labels.x, axis: { tickMinStep: 1 } } as const;
+  // Whole-number severities and epochs; y ticks with at most 3 significant digits (d3-format), never '1.000000'.
+  const x = { field: 'x', type: 'quantitative', title: labels.x, axis: { tickMinStep: 1, format: 'd' } } as const;
   const dashed = baseline == null ? 'false' : `datum.learner === ${JSON.stringify(baseline)}`;
   const spec: TopLevelSpec = {
     title: baseline == null ? labels.title : { text: labels.title, subtitle: `dashed: baseline ${baseline}` },
@@ -53,7 +58,7 @@ export async function bandPlotSvg(
         mark: { type: 'line', strokeWidth: 2, point: { filled: true, size: 28 } },
         encoding: {
           x,
-          y: { field: 'mean', type: 'quantitative', title: labels.y, scale: { zero: false } },
+          y: { field: 'mean', type: 'quantitative', title: labels.y, scale: { zero: false }, axis: { format: '.3~g' } },
           color: { field: 'learner', type: 'nominal', title: 'learner', scale, legend },
           strokeDash: { condition: { test: dashed, value: [6, 3] }, value: [1, 0] },
         },

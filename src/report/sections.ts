@@ -1,12 +1,12 @@
 import { createRng } from '../random.js';
 import { bootstrapCi, interquartileMean } from '../stats/robust.js';
 import { summarise, type Summary } from '../stats/summarise.js';
-import { isReliable, type Comparison } from './comparisons.js';
-import { bySeed, severities, unique, type Noise } from './groups.js';
-import { englishList, meanCi, num, pValue, signed, table } from './markdown.js';
+import type { Comparison } from './comparisons.js';
+import { bySeed, severities, unique } from './groups.js';
+import { meanCi, num, pValue, signed, table } from './markdown.js';
 import type { StoredCell } from './load.js';
-import type { ScoreRow } from '../results/results-table.js';
-import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
+import type { MeasureRow, ScoreRow } from '../results/results-table.js';
+import { AREA_MIN_CLEAN, SEED_MEASURES, corruptionError, relativeCorruptionError, type CurvePoint, type Figure } from '../probe/robustness.js';
 
 /** Below this many seeds the summary warns that the paired tests have little power (common practice). */
 export const FEW_SEEDS = 10;
@@ -26,23 +26,46 @@ export function scoreTable(rows: readonly ScoreRow[], chance: readonly ScoreRow[
   return table(['learner', ...levels.map((s) => `severity ${s}`)], body);
 }
 
-/** The paired comparisons of one target and noise against the baseline. */
+/**
+ * The per-seed robustness measures of each learner, mean ± CI over seeds, then one line
+ * saying in how many seeds the area was undefined and why.
+ */
+export function measureTable(measures: readonly MeasureRow[]): string[] {
+  const learners = unique(measures.map((r) => r.learner));
+  const lines = table(['learner', ...SEED_MEASURES], learners.map((learner) => [learner, ...SEED_MEASURES.map((measure) =>
+    meanCi(summarise(measures.filter((r) => r.learner === learner && r.measure === measure).map((r) => r.value))))]));
+  const missing = learners.flatMap((learner) => {
+    const areas = measures.filter((r) => r.learner === learner && r.measure === 'area');
+    const undefinedAreas = areas.filter((r) => !Number.isFinite(r.value)).length;
+    return undefinedAreas === 0 ? [] : [`${learner} in ${undefinedAreas} of ${areas.length} seeds`];
+  });
+  if (missing.length > 0) lines.push('', `area n/a (a corrected clean score below ${AREA_MIN_CLEAN} leaves nothing to keep a share of): ${missing.join('; ')}.`);
+  return lines;
+}
+
+/** What a comparison compares: a score severity or a per-seed measure. */
+export function comparedText(c: Pick<Comparison, 'measure' | 'severity'>): string {
+  return c.measure === 'score' ? `score at severity ${c.severity}` : c.measure;
+}
+
+/** The paired comparisons of one target and noise against the baseline, with each one's family. */
 export function comparisonTable(comparisons: readonly Comparison[]): string[] {
-  return table(['learner', 'severity', 'difference', '95% CI', 'p (Holm)', 'd_z', 'n'], comparisons.map((c) => [
-    c.learner, String(c.severity), signed(c.meanDiff), `[${signed(c.ciLow)}, ${signed(c.ciHigh)}]`,
-    pValue(c.pHolm), num(c.dz, 2), String(c.n),
+  return table(['learner', 'compared', 'family', 'difference', '95% CI', 'p (Holm)', 'd_z', 'n'], comparisons.map((c) => [
+    c.learner, comparedText(c), c.family, signed(c.meanDiff), `[${signed(c.ciLow)}, ${signed(c.ciHigh)}]`,
+    c.family === 'identical' ? 'none' : pValue(c.pHolm), num(c.dz, 2), String(c.n),
   ]));
 }
 
 /**
- * Normalised area, drop from clean, CE and relative CE of each learner's mean curve
- * (definitions in src/probe/robustness.ts), then one line naming why any figure is n/a.
+ * Corruption error and relative corruption error (Hendrycks & Dietterich 2019) of each
+ * learner's mean curve of raw scores against the baseline's: descriptive figures, defined
+ * per model, so they carry no CI and no test. One line names why any figure is n/a.
  */
-export function robustnessTable(rows: readonly ScoreRow[], baseline: string | null): string[] {
+export function descriptiveTable(rows: readonly ScoreRow[], baseline: string): string[] {
   const levels = severities(rows);
   const curve = (learner: string): CurvePoint[] =>
     learnerSummaries(rows, learner, levels).map((s, i) => ({ severity: levels[i], score: s.mean }));
-  const base = baseline != null && rows.some((r) => r.learner === baseline) ? curve(baseline) : null;
+  const base = curve(baseline);
   const reasons: string[] = [];
   const cell = (learner: string, name: string, figure: () => Figure): string => {
     const f = guarded(figure);
@@ -51,11 +74,9 @@ export function robustnessTable(rows: readonly ScoreRow[], baseline: string | nu
   };
   const body = unique(rows.map((r) => r.learner)).map((l) => {
     const mine = curve(l);
-    return [l, cell(l, 'normalised area', () => normalisedArea(mine)), cell(l, 'drop', () => dropFromClean(mine)),
-      base == null ? 'n/a' : cell(l, 'CE', () => corruptionError(mine, base)),
-      base == null ? 'n/a' : cell(l, 'relative CE', () => relativeCorruptionError(mine, base))];
+    return [l, cell(l, 'CE', () => corruptionError(mine, base)), cell(l, 'relative CE', () => relativeCorruptionError(mine, base))];
   });
-  const lines = table(['learner', 'normalised area', 'drop from clean', 'CE', 'relative CE'], body);
+  const lines = table(['learner', 'CE', 'relative CE'], body);
   if (reasons.length > 0) lines.push('', `n/a: ${reasons.join('; ')}.`);
   return lines;
 }
@@ -67,29 +88,6 @@ function guarded(figure: () => Figure): Figure {
   } catch (error) {
     return { value: NaN, reason: (error as Error).message };
   }
-}
-
-/** One plain-English sentence on which learners differ reliably from the baseline under this noise. */
-export function verdict(target: string, noise: Noise, baseline: string, comparisons: readonly Comparison[]): string {
-  if (comparisons.length === 0) return `In these runs, no learner could be paired with ${baseline} by seed for ${target} under ${noise.channel} ${noise.kind} noise.`;
-  const noisy = comparisons.some((c) => c.severity > 0) ? comparisons.filter((c) => c.severity > 0) : comparisons;
-  const seeds = Math.max(0, ...noisy.map((c) => c.n));
-  const parts: string[] = [];
-  const quiet: string[] = [];
-  for (const learner of unique(noisy.map((c) => c.learner))) {
-    const mine = noisy.filter((c) => c.learner === learner && isReliable(c));
-    const higher = mine.filter((c) => c.meanDiff > 0).map((c) => String(c.severity));
-    const lower = mine.filter((c) => c.meanDiff < 0).map((c) => String(c.severity));
-    const at = (levels: readonly string[]): string => `${levels.length === 1 ? 'severity' : 'severities'} ${englishList(levels)}`;
-    if (higher.length > 0) parts.push(`${learner} scored reliably higher than ${baseline} at ${at(higher)}`);
-    if (lower.length > 0) parts.push(`${learner} scored reliably lower than ${baseline} at ${at(lower)}`);
-    if (higher.length === 0 && lower.length === 0) quiet.push(learner);
-  }
-  if (quiet.length > 0) parts.push(`${englishList(quiet)} ${quiet.length === 1 ? 'was' : 'were'} not distinguishable from ${baseline}`);
-  const noun = seeds === 1 ? 'seed' : 'seeds';
-  let line = `In these runs (${seeds} ${noun}), for ${target} under ${noise.channel} ${noise.kind} noise, counting a difference as reliable when its Holm-adjusted p < 0.05 and its 95% CI excludes 0: ${parts.join('; ')}.`;
-  if (seeds < FEW_SEEDS) line += ` With ${seeds} ${noun} the paired tests have little power, so "not distinguishable" is not evidence of equal robustness.`;
-  return line;
 }
 
 /**
@@ -108,14 +106,30 @@ export function iqmTable(rows: readonly ScoreRow[], streamName: string): string[
   ]));
 }
 
-/** Final-epoch angle between each rule's update and the true gradient, per learner and layer, over seeds. */
+/**
+ * The weight-update angle of each layer at the epoch whose weights the cell kept (the
+ * lowest validation loss, where early stopping restored the encoder), per learner over
+ * seeds, with the epochs it comes from.
+ */
 export function alignmentTable(cells: readonly StoredCell[]): string[] {
-  const measured = cells.filter((c) => c.record.status === 'done' && (c.log.at(-1)?.alignmentDeg.length ?? 0) > 0);
-  const layers = Math.max(0, ...measured.map((c) => c.log.at(-1)?.alignmentDeg.length ?? 0));
+  const measured = cells.flatMap((c) => {
+    const best = keptEpoch(c);
+    return c.record.status === 'done' && best != null && best.alignmentDeg.length > 0 ? [{ cell: c, best }] : [];
+  });
+  const layers = Math.max(0, ...measured.map((m) => m.best.alignmentDeg.length));
   if (layers === 0) return [];
   const learnerOf = (c: StoredCell) => c.record.identity.learner.name;
-  const finalAngle = (c: StoredCell, layer: number) => c.log.at(-1)?.alignmentDeg[layer] ?? NaN;
-  return table(['learner', ...Array.from({ length: layers }, (_, i) => `layer ${i + 1} (degrees)`)], unique(measured.map(learnerOf)).map((learner) => [
-    learner, ...Array.from({ length: layers }, (_, layer) => meanCi(summarise(measured.filter((c) => learnerOf(c) === learner).map((c) => finalAngle(c, layer))))),
-  ]));
+  return table(['learner', 'epoch kept (per seed)', ...Array.from({ length: layers }, (_, i) => `layer ${i + 1} (degrees)`)],
+    unique(measured.map((m) => learnerOf(m.cell))).map((learner) => {
+      const mine = measured.filter((m) => learnerOf(m.cell) === learner);
+      return [learner, mine.map((m) => m.best.epoch).join(', '),
+        ...Array.from({ length: layers }, (_, layer) => meanCi(summarise(mine.map((m) => m.best.alignmentDeg[layer] ?? NaN))))];
+    }));
+}
+
+/** The log entry of the epoch the trainer kept: the first with the lowest validation loss. */
+function keptEpoch(cell: StoredCell): StoredCell['log'][number] | undefined {
+  let best: StoredCell['log'][number] | undefined;
+  for (const entry of cell.log) if (best == null || entry.validationLoss < best.validationLoss) best = entry;
+  return best;
 }

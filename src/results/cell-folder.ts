@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, renameSync, rmSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { join } from 'node:path';
+import { writeFolderAtomic } from './atomic-file.js';
 import { cellDir, cellPath, outputPath } from './layout.js';
 
 /** Whether a cell is finished (done or failed); only a complete folder ever exists under its id. */
@@ -16,12 +17,9 @@ export function isFinished(out: string, id: string): boolean {
 export function commitCellFolder(out: string, id: string, files: Readonly<Record<string, string | Uint8Array>>): void {
   const target = cellDir(out, id);
   const temporary = join(outputPath(out, 'cells'), `${PARTIAL}${hostname()}-${process.pid}-${randomUUID()}`);
-  mkdirSync(temporary, { recursive: true });
-  for (const [name, content] of Object.entries(files)) writeFileSync(join(temporary, name), content);
   try {
-    renameSync(temporary, target);
+    writeFolderAtomic(target, temporary, files);
   } catch (error) {
-    rmSync(temporary, { recursive: true, force: true });
     // Another process finished the same cell first; its copy holds the same numbers.
     if (!isFinished(out, id)) throw error;
   }

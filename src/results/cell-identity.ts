@@ -4,7 +4,7 @@ import type { CollectOptions } from '../collect/collector.js';
 import { LATENT_NAMES } from '../collect/dataset.js';
 import { POLICY_NAMES } from '../collect/policies.js';
 import type { SplitFractions } from '../collect/split.js';
-import { ACTIVATIONS, OBJECTIVES, OPTIMIZERS, RULES, type LearnerSpec } from '../learn/spec.js';
+import { ACTIVATIONS, INPUT_CODINGS, OBJECTIVES, OPTIMIZERS, RESETS, RULES, SURROGATES, type EncoderSpec, type LearnerSpec } from '../learn/spec.js';
 import { NOISE_KINDS, type NoiseSpec } from '../noise/spec.js';
 import { CHANNELS, type SenseSettings } from '../senses/channel.js';
 import { RESULTS_FORMAT_VERSION } from './format-version.js';
@@ -26,6 +26,24 @@ export interface CellSettings {
 
 const channels = z.array(z.enum(CHANNELS));
 
+// An MLP encoder's identity has no `kind`, as before spiking encoders existed, so its cells keep their ids.
+const encoderIdentity = z.union([
+  z.object({ hidden: z.array(z.number().int()), activation: z.enum(ACTIVATIONS) }),
+  z.object({
+    kind: z.literal('spiking'),
+    hidden: z.array(z.number().int()),
+    steps: z.number().int(),
+    dt_ms: z.number(),
+    tau_ms: z.number(),
+    threshold: z.number(),
+    reset: z.enum(RESETS),
+    refractory_ms: z.number(),
+    input_coding: z.enum(INPUT_CODINGS),
+    surrogate: z.enum(SURROGATES),
+    surrogate_slope: z.number(),
+  }),
+]);
+
 /**
  * A cell's identity as stored in cell.json, in the config's snake_case spelling. It holds
  * what determines the numbers and nothing else: not the backend, the world's path, the
@@ -39,7 +57,7 @@ export const cellIdentitySchema = z.object({
     target: channels,
     offset: z.union([z.literal(0), z.literal(1)]),
     supervised_targets: z.array(z.enum(LATENT_NAMES)),
-    encoder: z.object({ hidden: z.array(z.number().int()), activation: z.enum(ACTIVATIONS) }),
+    encoder: encoderIdentity,
     rule: z.enum(RULES),
     train: z.object({
       optimizer: z.enum(OPTIMIZERS),
@@ -86,7 +104,7 @@ export function cellIdentity(settings: CellSettings): CellIdentity {
       target: [...learner.target],
       offset: learner.offset,
       supervised_targets: [...learner.supervisedTargets],
-      encoder: { hidden: [...learner.encoder.hidden], activation: learner.encoder.activation },
+      encoder: encoderIdentityOf(learner.encoder),
       rule: learner.rule,
       train: {
         optimizer: learner.train.optimizer,
@@ -109,6 +127,23 @@ export function cellIdentity(settings: CellSettings): CellIdentity {
       ...(entry.parameters == null ? {} : { parameters: [...entry.parameters] }),
     })),
     vary: { ...settings.vary },
+  };
+}
+
+function encoderIdentityOf(encoder: EncoderSpec): CellIdentity['learner']['encoder'] {
+  if (encoder.kind !== 'spiking') return { hidden: [...encoder.hidden], activation: encoder.activation };
+  return {
+    kind: 'spiking',
+    hidden: [...encoder.hidden],
+    steps: encoder.steps,
+    dt_ms: encoder.dtMs,
+    tau_ms: encoder.tauMs,
+    threshold: encoder.threshold,
+    reset: encoder.reset,
+    refractory_ms: encoder.refractoryMs,
+    input_coding: encoder.inputCoding,
+    surrogate: encoder.surrogate,
+    surrogate_slope: encoder.surrogateSlope,
   };
 }
 

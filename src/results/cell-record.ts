@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { BACKENDS } from '../learn/spec.js';
 import { cellId, cellIdentitySchema } from './cell-identity.js';
 import { RESULTS_FORMAT_VERSION } from './format-version.js';
+import { checkedJson, parseJsonText } from './json-text.js';
 import { cellPath } from './layout.js';
 
 const seconds = z.number().min(0);
@@ -41,24 +42,15 @@ export function formatCellRecord(record: CellRecord): string {
 
 /** Parses cell.json text; every problem is one line naming the file and the key. */
 export function parseCellRecord(text: string, fileName: string): CellRecord {
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (error) {
-    throw new Error(`${fileName}: not valid JSON (${(error as Error).message})`);
-  }
+  const json = parseJsonText(text, fileName);
   const version = (json as { format_version?: unknown } | null)?.format_version;
   if (version !== RESULTS_FORMAT_VERSION) {
     throw new Error(`${fileName}: format_version: expected ${RESULTS_FORMAT_VERSION}, got ${JSON.stringify(version) ?? 'none'} (written by another version of crosswise; run the sweep again into a new folder)`);
   }
-  const parsed = cellRecordSchema.safeParse(json);
-  if (!parsed.success) {
-    const issue = parsed.error.issues[0];
-    throw new Error(`${fileName}: ${issue.path.join('.') || '(top level)'}: ${issue.message}`);
-  }
-  const expected = cellId(parsed.data.identity);
-  if (parsed.data.id !== expected) throw new Error(`${fileName}: id: expected ${expected} (the hash of its identity), got '${parsed.data.id}'`);
-  return parsed.data;
+  const record = checkedJson(cellRecordSchema, json, fileName);
+  const expected = cellId(record.identity);
+  if (record.id !== expected) throw new Error(`${fileName}: id: expected ${expected} (the hash of its identity), got '${record.id}'`);
+  return record;
 }
 
 /** Reads the cell.json of a stored cell, which must be the record of the cell its folder names. */

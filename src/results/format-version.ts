@@ -4,4 +4,4 @@
  * format are never taken for finished cells of this one. Raise it whenever a reader
  * could no longer read what an older writer wrote.
  */
-export const RESULTS_FORMAT_VERSION = 1;
+export const RESULTS_FORMAT_VERSION = 2; // 2: scores.csv holds the per-seed noisy, drop and area rows; chance is the training share

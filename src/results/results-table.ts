@@ -1,3 +1,4 @@
+import { SEED_MEASURES, type SeedMeasure } from '../probe/robustness.js';
 import { csvLine, parseCsv, type CsvRecord } from './csv.js';
 import { formatCsvNumber, formatOptionalNumber, parseCsvNumber } from './csv-number.js';
 
@@ -5,7 +6,7 @@ import { formatCsvNumber, formatOptionalNumber, parseCsvNumber } from './csv-num
  * What a row measures: `score` is a probe score at one severity; `noisy`, `drop` and `area`
  * are per-seed robustness measures over every severity of a noise (no severity of their own).
  */
-export const MEASURES = ['score', 'noisy', 'drop', 'area'] as const;
+export const MEASURES = ['score', ...SEED_MEASURES] as const;
 export type Measure = (typeof MEASURES)[number];
 
 /** Metrics a row may carry: probe scores (r2, accuracy), the chance level beside accuracy, and CKA ('-' target). */
@@ -60,6 +61,17 @@ export type ScoreRow = Score<ResultRow>;
 /** Whether a row is a probe score at one severity. */
 export function isScore<T extends Measurement>(row: T): row is Score<T> {
   return row.measure === 'score';
+}
+
+/** A per-seed robustness measure: a row with no severity or parameter of its own. */
+export type SeedMeasureOf<T extends Measurement> = T & { readonly measure: SeedMeasure; readonly severity: null; readonly parameter: null };
+
+/** A results row holding a per-seed robustness measure (noisy, drop or area). */
+export type MeasureRow = SeedMeasureOf<ResultRow>;
+
+/** Whether a row is a per-seed robustness measure. */
+export function isSeedMeasure<T extends Measurement>(row: T): row is SeedMeasureOf<T> {
+  return row.measure !== 'score';
 }
 
 /** A parsed results table. */

@@ -19,6 +19,7 @@ function figures(overrides: Partial<BenchFigures> = {}): BenchFigures {
     startupS: fig(0.3, 0.2, 0.4),
     peerQuickstartWallS: fig(13, 14, 15),
     trainObjectivesSamplesPerS: { 'reconstruct sight': fig(1, 2, 3) },
+    trainSpikingSamplesPerS: { 'T=8 predict sight→sound, backprop': fig(4, 5, 6) },
     machine: { cores: 2, cpu_model: 'test CPU', node: 'v20.0.0', load_1min: 0.5 },
     notes: [],
     ...overrides,
@@ -49,11 +50,12 @@ describe('bench --json', () => {
   it('has every key the bench promises', () => {
     const json = benchJson(figures(), { quick: false, repeats: 3 });
     for (const key of ['collect_steps_per_s', 'train_samples_per_s', 'torch_samples_per_s', 'torch_blas', 'ratio_to_torch',
-      'train_stacked_samples_per_s', 'probe_s_per_cell', 'quickstart_wall_s', 'startup_s', 'peer_quickstart_wall_s', 'machine', 'spread']) {
+      'train_stacked_samples_per_s', 'probe_s_per_cell', 'quickstart_wall_s', 'startup_s', 'peer_quickstart_wall_s', 'train_spiking_samples_per_s', 'machine', 'spread']) {
       expect(json).toHaveProperty(key);
     }
     expect(json.machine).toEqual({ cores: 2, cpu_model: 'test CPU', node: 'v20.0.0', load_1min: 0.5 });
     expect(json.torch_blas).toBe('openblas');
+    expect(json.train_spiking_samples_per_s).toEqual({ 'T=8 predict sight→sound, backprop': 5 });
   });
 
   it('divides the best backend by PyTorch: 65 000 / 250 000 = 0.26, spread 60 000 / 260 000 to 70 000 / 240 000', () => {

@@ -36,7 +36,29 @@ describe('experiment commands', () => {
     expect(lines[8]).toMatch(/^7 {6}[0-9a-f]{10} {2}untrained {9}2 {5}\[16,8\]$/);
     // 2 vary combinations × 2 seeds × 2 learners = 8 cells.
     expect(lines[9]).toBe(`8 cells (2 combinations × 2 seeds × 2 learners); out ${join(dir, 'out')}`);
+    // The first learner is the baseline and untrained is a control by default.
+    expect(lines[10]).toBe('Power: the primary family is empty: every learner other than the baseline is a control, so every comparison is exploratory.');
     expect(existsSync(join(dir, 'out'))).toBe(false);
+  });
+
+  it('plan states what the primary family can detect: 1 learner × 3 targets × 2 noises with 9 seeds', async () => {
+    const dir = configFolder(`name: power
+world: world.yaml
+seeds: [1, 2, 3, 4, 5, 6, 7, 8, 9]
+learners:
+  - { name: sound-from-sight, objective: predict, input: [sight], target: [sound] }
+  - { name: sight-autoencoder, objective: reconstruct, input: [sight] }
+  - { name: untrained, objective: untrained, input: [sight] }
+probe: { targets: [wall_ahead, heading, nearest_emitter], baseline: sight-autoencoder }
+noise:
+  - { channel: sight, kind: gaussian }
+  - { channel: sight, kind: dropout }
+`);
+    const lines = captureLog();
+    expect(await planCommand([join(dir, 'config.yaml')])).toBe(0);
+    // m = 6, α = 0.05/6, n = 9: d_z 1.49 and 16 seeds for d_z = 1 (noncentral t, src/stats/power.ts, checked against SciPy there).
+    expect(lines.at(-1)).toBe("Power: the primary family has 6 hypotheses (1 learner × 3 targets × 2 noises). With 9 seeds, a two-sided paired "
+      + "t-test at Holm's first step (α = 0.05/6) detects d_z ≥ 1.49 with 80% power; d_z = 1 would need 16 seeds.");
   });
 
   it('cluster reports a folder it cannot create in one line and exits 5 (a write failed)', async () => {

@@ -47,6 +47,7 @@ describe('crosswise --help', () => {
       '  explore  walk a world with every sense drawn live (an interactive terminal',
       '           app)',
       '  listen   what the agent hears along a walk, as a stereo WAV file',
+      "  record   the agent's experience as NumPy arrays, for use outside crosswise",
       '  bench    speed of collection, training and a whole sweep, beside PyTorch when',
       '           present',
       '  schema   print the config JSON Schema, for editors',

@@ -5,9 +5,11 @@ import { join, resolve } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { collect } from '../../src/collect/collector.js';
 import { listenCommand } from '../../src/commands/listen.js';
+import { recordCommand } from '../../src/commands/record.js';
 import { loadSweep } from '../../src/experiment/config.js';
 import { planCells } from '../../src/experiment/plan.js';
 import { createRng } from '../../src/random.js';
+import { readRecording } from '../../src/results/recording.js';
 import { writeWavFile } from '../../src/results/wav.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
 import { bandCentresHz } from '../../src/senses/mel.js';
@@ -171,6 +173,47 @@ describe('crosswise listen --config', () => {
   });
 });
 
+describe('crosswise listen --replay', () => {
+  const record = async (...args: string[]) => {
+    const folder = join(dir, 'walk');
+    expect(await recordCommand([GREENHOUSE, ...args, '--out', folder])).toBe(0);
+    out.length = 0;
+    return folder;
+  };
+
+  it('renders a recording\'s sound: each ear of each step within 2 dB of its recorded bands', async () => {
+    const folder = await record('--steps', '30', '--seed', '4', '--policy', 'uniform');
+    const path = join(dir, 'replay.wav');
+    expect(await listenCommand(['--replay', folder, '--steps', '20', '--out', path])).toBe(0);
+    const errors = stepErrors(path, readRecording(folder).channels.sound, 20, 16);
+    // Tolerance as for the world's walk above.
+    expect(Math.max(...errors.map(Math.abs))).toBeLessThan(2);
+    expect(out).toEqual([expect.stringContaining(`wrote ${path}: 20 steps of greenhouse (recording ${folder}: uniform, seed 4), 2.0 s,`)]);
+  });
+
+  it('writes the very file listen writes for the same walk of the world (one episode, same seed)', async () => {
+    // record walks in episodes of 200 steps, listen on a world in one episode: for 25 steps both are one episode.
+    const folder = await record('--steps', '25', '--seed', '8');
+    const [replayed, walked] = [join(dir, 'replayed.wav'), join(dir, 'walked.wav')];
+    expect(await listenCommand(['--replay', folder, '--out', replayed])).toBe(0);
+    expect(await listenCommand([GREENHOUSE, '--steps', '25', '--seed', '8', '--out', walked])).toBe(0);
+    expect(readFileSync(replayed).equals(readFileSync(walked))).toBe(true);
+    expect(readWav(replayed).samples[0].length).toBe(25 * STEP); // the whole recording when shorter than 300 steps
+  });
+
+  it('refuses a folder that is no recording and the options that choose another walk, writing nothing', async () => {
+    const folder = await record('--steps', '10');
+    const wav = join(dir, 'x.wav');
+    expect(await listenCommand(['--replay', dir, '--out', wav])).toBe(1);
+    expect(await listenCommand(['--replay', folder, '--seed', '3', '--policy', 'seek', '--out', wav])).toBe(1);
+    expect(err).toEqual([
+      `crosswise listen: --replay: ${dir}: not a recording (no manifest.json; crosswise record writes one)`,
+      "crosswise listen: --replay renders the recording's own walk: drop --seed, --policy",
+    ]);
+    expect(existsSync(wav)).toBe(false);
+  });
+});
+
 describe('crosswise listen argument errors', () => {
   it('needs --out, a world or a config, and a known policy', async () => {
     expect(await listenCommand([GREENHOUSE])).toBe(1);
@@ -179,7 +222,7 @@ describe('crosswise listen argument errors', () => {
     expect(await listenCommand([GREENHOUSE, '--index', '0', '--out', join(dir, 'x.wav')])).toBe(1);
     expect(err).toEqual([
       'crosswise listen: --out FILE.wav is required (the WAV file to write)',
-      'crosswise listen: missing <world> or --config FILE (usage: crosswise listen (<world> | --config FILE) [--index I] [--steps N] '
+      'crosswise listen: missing <world>, --config FILE or --replay DIR (usage: crosswise listen (<world> | --config FILE | --replay DIR) [--index I] [--steps N] '
         + '[--seed S] [--policy P] --out FILE.wav)',
       "crosswise listen: --policy: expected one of wander, uniform, seek, got 'run'",
       'crosswise listen: --index names a cell of a config; give --config too',
@@ -192,6 +235,18 @@ if (!hasSox) console.warn('skipping the sox checks of crosswise listen: sox is n
 
 describe.skipIf(!hasSox)('sox reads what crosswise listen writes', () => {
   const sox = (...args: string[]) => spawnSync('sox', args, { encoding: 'utf8' });
+
+  it('reports 2 channels, 44100 Hz, 16-bit and 1.5 s for a replayed recording of 15 steps (sox --i)', async () => {
+    const folder = join(dir, 'walk');
+    await recordCommand([GREENHOUSE, '--steps', '15', '--out', folder]);
+    const path = join(dir, 'replay.wav');
+    expect(await listenCommand(['--replay', folder, '--out', path])).toBe(0);
+    const info = sox('--i', path).stdout;
+    expect(info).toMatch(/Channels\s*: 2/);
+    expect(info).toMatch(/Sample Rate\s*: 44100/);
+    expect(info).toMatch(/Precision\s*: 16-bit/);
+    expect(info).toMatch(/Duration\s*: 00:00:01\.50 = 66150 samples/);
+  });
 
   it('reports 2 channels, 44100 Hz, 16-bit and 2 s for 20 steps (sox --i)', async () => {
     const path = join(dir, 'walk.wav');

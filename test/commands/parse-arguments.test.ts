@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseArguments } from '../../src/commands/parse-arguments.js';
 import { runUsage } from '../../src/commands/run-usage.js';
+import { listenUsage } from '../../src/commands/listen-usage.js';
 import { senseUsage } from '../../src/commands/sense-usage.js';
 import { checkUsage } from '../../src/commands/check-usage.js';
 
@@ -62,6 +63,13 @@ describe('reading a command line against its usage', () => {
     const synopsis = 'crosswise sense (<world> | --config FILE) --at X,Y,HEADING [--action A] [--step N] [--json]';
     expect(problem(['w.yaml', '--config', 'c.yaml', '--at', '1,1,east'], senseUsage)).toBe(`give <world> or --config FILE, not both (usage: ${synopsis})`);
     expect(problem(['--at', '1,1,east'], senseUsage)).toBe(`missing <world> or --config FILE (usage: ${synopsis})`);
+  });
+
+  it('takes any one of several options in place of an operand', () => {
+    const synopsis = 'crosswise listen (<world> | --config FILE | --replay DIR) [--index I] [--steps N] [--seed S] [--policy P] --out FILE.wav';
+    expect(parseArguments(listenUsage, ['--replay', 'walk', '--out', 'a.wav']).operands).toEqual([]);
+    expect(problem(['w.yaml', '--replay', 'walk', '--out', 'a.wav'], listenUsage)).toBe(`give only one of <world>, --config FILE, --replay DIR (usage: ${synopsis})`);
+    expect(problem(['--out', 'a.wav'], listenUsage)).toBe(`missing <world>, --config FILE or --replay DIR (usage: ${synopsis})`);
   });
 
   it('does not mistake a name inherited by every object for an option', () => {

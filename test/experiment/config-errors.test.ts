@@ -183,6 +183,33 @@ describe('config validation', () => {
     ]);
   });
 
+  it('accepts a spiking encoder and fills its documented defaults', () => {
+    const dir = configFolder(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, steps: 8 }\n'));
+    const { spec } = loadSweep(join(dir, 'config.yaml')).combinations[0].settings.learners[0];
+    expect(spec.encoder).toEqual({
+      kind: 'spiking', hidden: [128, 64], steps: 8, dtMs: 1, tauMs: 2, threshold: 1, reset: 'subtract', refractoryMs: 0,
+      inputCoding: 'current', surrogate: 'fast-sigmoid', surrogateSlope: 5,
+    });
+  });
+
+  it('rejects an unknown encoder kind, and keys of the other kind, naming the keys this kind has', async () => {
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spikng }\n'))).toEqual([
+      "config.yaml:9:22: learners.0 (sound-from-sight).encoder.kind: expected one of mlp | spiking, got 'spikng' (did you mean 'spiking'?)",
+    ]);
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, activation: relu }\n'))).toEqual([
+      'config.yaml:9:31: learners.0 (sound-from-sight).encoder.activation: unknown key; expected one of kind, hidden, steps, dt_ms, tau_ms, threshold, reset, refractory_ms, input_coding, surrogate, surrogate_slope',
+    ]);
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { tau_ms: 3 }\n'))).toEqual([
+      'config.yaml:9:16: learners.0 (sound-from-sight).encoder.tau_ms: unknown key; expected one of kind, hidden, activation',
+    ]);
+  });
+
+  it('rejects a refractory period that is not a whole number of time steps', async () => {
+    expect(await rejection(VALID.replace('    target: [sound]\n', '    target: [sound]\n    encoder: { kind: spiking, dt_ms: 0.5, refractory_ms: 1.2 }\n'))).toEqual([
+      'config.yaml:9:58: learners.0 (sound-from-sight).encoder.refractory_ms: expected 0 or a whole number of time steps (dt_ms = 0.5), got 1.2',
+    ]);
+  });
+
   it('reports every problem of a config at once, one line each', async () => {
     const lines = await rejection(VALID.replace('seeds: [1]', 'seeds: []').replace('objective: predict', 'objective: predikt'));
     expect(lines).toHaveLength(2);

@@ -10,8 +10,8 @@ const CONFIGS = fileURLToPath(new URL('../../configs/', import.meta.url));
 const files = readdirSync(CONFIGS).filter((name) => name.endsWith('.yaml')).sort();
 
 describe('shipped configs', () => {
-  it('ship the five example sweeps', () => {
-    expect(files).toEqual(['multisense.yaml', 'quickstart.yaml', 'rules.yaml', 'sound-noise.yaml', 'vary.yaml']);
+  it('ship the six example sweeps', () => {
+    expect(files).toEqual(['multisense.yaml', 'quickstart.yaml', 'rules.yaml', 'sound-noise.yaml', 'spiking.yaml', 'vary.yaml']);
   });
 
   it.each(files)('%s is valid and points editors at the schema', (name) => {
@@ -20,13 +20,14 @@ describe('shipped configs', () => {
     expect(readFileSync(join(CONFIGS, name), 'utf8').split('\n')[0]).toBe('# yaml-language-server: $schema=crosswise.schema.json');
   });
 
-  it('quickstart has at least 5 learners, 3 seeds, 4 probe targets and sight gaussian noise at severities 0–5', () => {
+  it('quickstart asks the question with a primary family of 6 hypotheses: 1 learner × 3 targets × 2 sight noises, 9 seeds', () => {
     const sweep = loadSweep(join(CONFIGS, 'quickstart.yaml'));
     const settings = sweep.combinations[0].settings;
-    expect(settings.learners.map((l) => l.spec.name)).toEqual(['sound-from-sight', 'touch-from-sight-and-motor', 'sight-autoencoder', 'sight-forecaster', 'untrained']);
-    expect(sweep.seeds.length).toBeGreaterThanOrEqual(3);
-    expect(settings.probe.targets.length).toBeGreaterThanOrEqual(4);
-    expect(settings.noise).toEqual([{ channel: 'sight', kind: 'gaussian', severities: [0, 1, 2, 3, 4, 5] }]);
+    expect(settings.learners.map((l) => `${l.spec.name}${l.control ? ' (control)' : ''}`)).toEqual(['sound-from-sight', 'sight-autoencoder', 'untrained (control)']);
+    expect(settings.probe.baseline).toBe('sight-autoencoder');
+    expect(sweep.seeds.length).toBe(9);
+    expect(settings.probe.targets.length).toBe(3);
+    expect(settings.noise.map((n) => `${n.channel} ${n.kind}`)).toEqual(['sight gaussian', 'sight dropout']);
   });
 
   it('configs/crosswise.schema.json is what `crosswise schema` prints', () => {

@@ -35,12 +35,13 @@ describe('the production cell pipeline', () => {
     expect(sweep.stdout).toContain('sweep done: 2 done, 0 failed');
     expect(alone.stdout).toMatch(/done sound-from-sight seed 7/);
     const results = readFileSync(join(dir, 'sweep', 'results.csv'), 'utf8').trim().split('\n');
-    // 2 learners × (wall_ahead: accuracy + chance, nearest_distance_m: r2, cka) × 2 severities, plus the header.
-    expect(results.length).toBe(1 + 2 * 4 * 2);
+    // 2 learners × ((wall_ahead: accuracy + chance, nearest_distance_m: r2, cka) × 2 severities
+    // + (noisy, drop, area) × 2 targets), plus the header.
+    expect(results.length).toBe(1 + 2 * (4 * 2 + 3 * 2));
     expect(existsSync(join(dir, 'sweep', 'summary.md'))).toBe(true);
     // The parameter column holds σ of the severity table (src/noise/severity.ts): 0 clean, 1 at severity 3.
     const table = parseResultsCsv(results.join('\n'));
-    expect([...new Set(table.rows.map((r) => `${r.severity}:${r.parameter}:${r.measure}`))]).toEqual(['0:0:score', '3:1:score']);
+    expect([...new Set(table.rows.map((r) => `${r.severity}:${r.parameter}:${r.measure}`))]).toEqual(['0:0:score', '3:1:score', 'null:null:noisy', 'null:null:drop', 'null:null:area']);
     const id = results[1].split(',')[0];
     const scores = (out: string) => readFileSync(join(dir, out, 'cells', id, 'scores.csv'), 'utf8');
     expect(scores('alone')).toBe(scores('sweep'));

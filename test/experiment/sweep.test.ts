@@ -98,12 +98,22 @@ describe('sweep expansion', () => {
     expect(settings.learners[1]).toEqual({
       spec: {
         name: 'sight-autoencoder', objective: 'reconstruct', input: ['sight'], target: [], offset: 0, supervisedTargets: [],
-        encoder: { hidden: [64], activation: 'relu' }, rule: 'backprop',
+        encoder: { kind: 'mlp', hidden: [64], activation: 'relu' }, rule: 'backprop',
         train: { optimizer: 'adam', learningRate: 0.001, batch: 256, epochs: 10, patience: 3, temperature: 0.1 },
       },
       output: { saveFeatures: false, alignEvery: 50 },
+      control: false,
     });
     expect(settings.probe.baseline).toBe('sound-from-sight');
+    expect(settings.probe.primary).toBe('noisy');
+  });
+
+  it('makes untrained and supervised learners controls unless the config says otherwise', () => {
+    const config = CONFIG.replace('{ name: sight-autoencoder, objective: reconstruct, input: [sight] }',
+      '{ name: sight-autoencoder, objective: reconstruct, input: [sight] }\n  - { name: floor, objective: untrained, input: [sight] }\n'
+      + '  - { name: ceiling, objective: supervised, input: [sight], control: false }\n  - { name: odd, objective: reconstruct, input: [sight], control: true }');
+    const { learners } = plan(config).sweep.combinations[0].settings;
+    expect(learners.map((l) => `${l.spec.name} ${l.control}`)).toEqual(['sound-from-sight false', 'sight-autoencoder false', 'floor true', 'ceiling false', 'odd true']);
   });
 });
 

@@ -52,6 +52,25 @@ describe('evaluateEncoder with a sight-only linear encoder', () => {
     expect(chance.every((v) => v === chance[0] && v > 0.15 && v < 0.4)).toBe(true); // four headings, about 1/4 each
   });
 
+  it('takes chance as the majority heading\'s share of the training rows (counted here by a plain loop)', () => {
+    const counts = [0, 0, 0, 0];
+    for (const step of split.train) counts[data.latents.heading[step]]++;
+    expect(value(result.rows, { target: 'heading', metric: 'chance' })[0]).toBe(Math.max(...counts) / split.train.length);
+  });
+
+  it('adds noisy, drop and area per target and noise on the corrected scale (src/probe/robustness.ts, Cohen 1960)', () => {
+    const chance = value(result.rows, { target: 'heading', metric: 'chance' })[0];
+    const corrected = value(result.rows, { target: 'heading', channel: 'sight', metric: 'accuracy' }).map((a) => (a - chance) / (1 - chance));
+    const noisy = corrected.slice(1).reduce((a, b) => a + b, 0) / 5;
+    const measure = (name: string, channel = 'sight') => result.measures.find((m) => m.target === 'heading' && m.channel === channel && m.measure === name)?.value;
+    expect(measure('noisy')).toBeCloseTo(noisy, 12);
+    expect(measure('drop')).toBeCloseTo(corrected[0] - noisy, 12);
+    expect(result.measures.filter((m) => m.target === 'x' && m.channel === 'sight').map((m) => m.measure)).toEqual(['noisy', 'drop', 'area']);
+    // Sound noise never reaches this encoder: nothing dropped, the whole area kept.
+    expect(measure('drop', 'sound')).toBe(0);
+    expect(measure('area', 'sound')).toBeCloseTo(1, 12);
+  });
+
   it('returns the clean features of the test rows, [n_test, featureSize] when n_test ≤ 2000', () => {
     expect(result.testFeatureRows).toBe(split.test.length);
     expect(Array.from(result.testFeatures)).toEqual(Array.from(testFeaturesOf(data, split.test, 16, 1)));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { corruptionError, dropFromClean, normalisedArea, relativeCorruptionError, type CurvePoint } from '../../src/probe/robustness.js';
+import { AREA_MIN_CLEAN, correctedScore, corruptionError, normalisedArea, relativeCorruptionError, seedRobustness, type CurvePoint } from '../../src/probe/robustness.js';
 
 const curve = (...scores: number[]): CurvePoint[] => scores.map((score, severity) => ({ severity, score }));
 
@@ -52,14 +52,65 @@ describe('normalisedArea', () => {
   it('is NaN with a reason when the clean score is not positive', () => {
     expect(normalisedArea(curve(-0.1, -0.2)).reason).toBe('the clean score -0.1 is not positive');
   });
+
+  it('names a long clean score rounded to three decimals, not as 17 digits', () => {
+    expect(normalisedArea(curve(-0.004014661204202796, 0)).reason).toBe('the clean score -0.004 is not positive');
+  });
 });
 
-describe('dropFromClean', () => {
-  it('is the clean score minus the mean noisy score: 0.9 − 0.7 = 0.2', () => {
-    expect(dropFromClean(learner).value).toBeCloseTo(0.2, 12);
+describe('correctedScore', () => {
+  it('is Cohen\'s kappa form (p_o − p_e) / (1 − p_e) for accuracy: 0.7 against chance 0.5 gives 0.4 (Cohen 1960, eq. 1; worked by hand)', () => {
+    expect(correctedScore('accuracy', 0.7, 0.5)).toBeCloseTo(0.4, 12);
   });
 
-  it('is NaN with a reason without a clean point', () => {
-    expect(dropFromClean([{ severity: 1, score: 0.5 }]).reason).toBe('the curve has no severity 0 (clean) point');
+  it('is 0 at chance and 1 at perfect accuracy, whatever the chance level', () => {
+    expect(correctedScore('accuracy', 0.8, 0.8)).toBe(0);
+    expect(correctedScore('accuracy', 1, 0.8)).toBeCloseTo(1, 12);
+  });
+
+  it('floors R² at 0 and keeps positive R² as it is', () => {
+    expect(correctedScore('r2', -14.7, NaN)).toBe(0);
+    expect(correctedScore('r2', 0.42, NaN)).toBe(0.42);
+  });
+
+  it('floors accuracy below chance at 0: 0.1 against chance 0.8 would be −3.5', () => {
+    expect(correctedScore('accuracy', 0.1, 0.8)).toBe(0);
+  });
+
+  it('is NaN when every training row has the majority class (chance 1)', () => {
+    expect(correctedScore('accuracy', 1, 1)).toBeNaN();
+  });
+});
+
+// A hand-worked two-seed example (numbers invented for the arithmetic, worked in the comments).
+describe('seedRobustness per seed', () => {
+  it('seed 1, accuracy 0.9, 0.8, 0.6 at chance 0.5 → corrected 0.8, 0.6, 0.2: noisy 0.4, drop 0.4, area (0.7 + 0.4) / (0.8 × 2) = 0.6875', () => {
+    const corrected = [0.9, 0.8, 0.6].map((a) => correctedScore('accuracy', a, 0.5));
+    const seed1 = seedRobustness(curve(...corrected));
+    expect(seed1.noisy.value).toBeCloseTo(0.4, 12);
+    expect(seed1.drop.value).toBeCloseTo(0.4, 12);
+    expect(seed1.area.value).toBeCloseTo(0.6875, 12);
+  });
+
+  it('seed 2, accuracy 0.61, 0.6, 0.55 at chance 0.6 → corrected 0.025, 0, 0 (floored): noisy 0, drop 0.025, area undefined (clean below 0.05)', () => {
+    const corrected = [0.61, 0.6, 0.55].map((a) => correctedScore('accuracy', a, 0.6));
+    const seed2 = seedRobustness(curve(...corrected));
+    expect(seed2.noisy.value).toBe(0);
+    expect(seed2.drop.value).toBeCloseTo(0.025, 12);
+    expect(seed2.area.value).toBeNaN();
+    expect(seed2.area.reason).toBe(`the clean score 0.025 is below ${AREA_MIN_CLEAN}`);
+  });
+
+  it('R² 0.5, 0.3, −2 → floored 0.5, 0.3, 0: noisy 0.15, drop 0.35, area (0.4 + 0.15) / (0.5 × 2) = 0.55', () => {
+    const figures = seedRobustness(curve(...[0.5, 0.3, -2].map((r2) => correctedScore('r2', r2, NaN))));
+    expect(figures.noisy.value).toBeCloseTo(0.15, 12);
+    expect(figures.drop.value).toBeCloseTo(0.35, 12);
+    expect(figures.area.value).toBeCloseTo(0.55, 12);
+  });
+
+  it('is undefined, with the reason, without a noisy severity', () => {
+    const figures = seedRobustness(curve(0.5));
+    expect(figures.noisy.value).toBeNaN();
+    expect(figures.drop.reason).toBe('the curve has no severity beyond 0');
   });
 });

@@ -25,8 +25,8 @@ describe('summary.md (from the fixture test data)', () => {
     // At severity 1: 0.8, 0.7, 0.7 → mean 0.733, sd 0.057735, half-width 0.143 (by hand).
     const text = await readFile(files.summaryPath, 'utf8');
     const lines = text.split('\n');
-    const at = lines.indexOf('### x: sight gaussian noise (R²)');
-    expect(lines.slice(at + 2, at + 7)).toEqual([
+    const at = lines.indexOf('## x: sight gaussian noise (R²)');
+    expect(lines.slice(at + 4, at + 9)).toEqual([
       '| learner | severity 0 | severity 1 |',
       '| --- | --- | --- |',
       '| sound-from-sight | 0.800 ± 0.248 (n=3) | 0.733 ± 0.143 (n=3) |',
@@ -40,20 +40,35 @@ describe('summary.md (from the fixture test data)', () => {
     expect(text).toContain('| chance (majority class) | 0.600 | 0.600 |');
   });
 
-  it('says in plain words which learners differ reliably, hedged for few seeds', async () => {
+  it('gives one verdict line per target and noise from the primary family, hedged for few seeds', async () => {
+    // sound-from-sight − sight-autoencoder noisy (= R² at severity 1, floored at 0): 0.3, 0.2, 0.3 → +0.267,
+    // CI ± 4.3027 · 0.033333 = ± 0.143; clean 0.1, 0.1, 0 → +0.067 ± 0.143 (by hand, t from standard tables).
+    // Holm over the primary family: wall_ahead is identical in every seed, so m = 1 and p_holm = p = 1 − 8/√66 = 0.015.
     const text = await readFile(files.summaryPath, 'utf8');
-    expect(text).toContain('In these runs (3 seeds), for x under sight gaussian noise, counting a difference as reliable when its '
-      + 'Holm-adjusted p < 0.05 and its 95% CI excludes 0: sound-from-sight scored reliably higher than sight-autoencoder at severity 1; '
-      + 'untrained scored reliably lower than sight-autoencoder at severity 1. With 3 seeds the paired tests have little power');
-    expect(text).toContain('for wall_ahead under sight gaussian noise, counting a difference as reliable when its Holm-adjusted p < 0.05 '
-      + 'and its 95% CI excludes 0: sound-from-sight and untrained were not distinguishable from sight-autoencoder.');
+    expect(text).toContain('- x under sight gaussian noise (noisy, learner − sight-autoencoder, chance-corrected): in these runs, '
+      + 'sound-from-sight kept reliably more of the world under noise than sight-autoencoder: +0.267 [+0.123, +0.410], Holm p 0.015, 3 seeds; '
+      + 'clean +0.067 [-0.077, +0.210].');
+    expect(text).toContain('- wall_ahead under sight gaussian noise (noisy, learner − sight-autoencoder, chance-corrected): in these runs, '
+      + 'sound-from-sight − sight-autoencoder was +0.000 in every seed (identical features, or noise that changes neither): nothing to test.');
+    expect(text).toContain('With 3 seeds the tests have little power; a difference that is not reliable here is not evidence that the learners are equally robust.');
   });
 
-  it('tabulates the final alignment angle per layer over seeds', async () => {
-    // layer 1 ends at 61, 62, 63 degrees → mean 62, sd 1, half-width 4.3027 / √3 = 2.484 (t from standard tables).
+  it('states what the primary family can detect: 1 learner × 2 targets × 1 noise, 3 seeds (src/stats/power.ts)', async () => {
     const text = await readFile(files.summaryPath, 'utf8');
-    expect(text).toContain('| learner | layer 1 (degrees) | layer 2 (degrees) |');
-    expect(text).toContain('| sound-from-sight | 62.000 ± 2.484 (n=3) | 0.000 ± 0.000 (n=3) |');
+    expect(text).toMatch(/Power: the primary family has 2 hypotheses \(1 learner × 2 targets × 1 noise\)\. With 3 seeds, a two-sided paired t-test at Holm's first step \(α = 0\.05\/2\) detects d_z ≥ \d+\.\d\d with 80% power; d_z = 1 would need \d+ seeds\./);
+  });
+
+  it('never jumps a heading level', async () => {
+    const levels = (await readFile(files.summaryPath, 'utf8')).split('\n').filter((l) => l.startsWith('#')).map((l) => l.indexOf(' '));
+    levels.forEach((level, i) => { if (i > 0) expect(level - levels[i - 1]).toBeLessThanOrEqual(1); });
+  });
+
+  it('tabulates the weight-update angle per layer at the epoch each cell kept', async () => {
+    // Validation loss 1.2, 0.9: epoch 2 is kept, where layer 1 is at 61, 62, 63 degrees → mean 62, sd 1,
+    // half-width 4.3027 / √3 = 2.484 (t from standard tables).
+    const text = await readFile(files.summaryPath, 'utf8');
+    expect(text).toContain('| learner | epoch kept (per seed) | layer 1 (degrees) | layer 2 (degrees) |');
+    expect(text).toContain('| sound-from-sight | 2, 2, 2 | 62.000 ± 2.484 (n=3) | 0.000 ± 0.000 (n=3) |');
   });
 
   it('lists the failed cell with its reason', async () => {
@@ -87,16 +102,17 @@ describe('comparisons.csv (from the fixture test data)', () => {
     expect(Number(sound.d_z)).toBeCloseTo(4.6188, 4);
     expect(Number(sound.ci_low)).toBeCloseTo(0.266667 - 4.3027 * 0.033333, 3);
     expect(sound.n_seeds).toBe('3');
-    // untrained − sight-autoencoder at severity 0: −0.5, −0.4, −0.5 → t = −14; at severity 1:
-    // −0.4, −0.3, −0.3 → t = −10; sound-from-sight at severity 0: 0.1, 0.1, 0 → t = 2.
-    // Holm over the 4 finite p-values (the 4 accuracy comparisons have zero variance → NaN):
-    // sorted p(14), p(10), p(8), p(2) get factors 4, 3, 2, 1 (Holm 1979).
-    expect(Number(row('untrained', '0').p_holm)).toBeCloseTo(4 * p2(14), 6);
-    expect(Number(row('untrained', '1').p_holm)).toBeCloseTo(3 * p2(10), 6);
-    expect(Number(sound.p_holm)).toBeCloseTo(2 * p2(8), 6);
-    expect(Number(row('sound-from-sight', '0').p_holm)).toBeCloseTo(p2(2), 6);
-    // A p that was not computed is an empty field, never the text NaN.
+    // Exploratory, Holm within x under sight gaussian noise over 9 hypotheses: untrained − sight-autoencoder at
+    // severity 0 (−0.5, −0.4, −0.5 → t = −14) has the smallest p and gets the factor m = 9 (Holm 1979).
+    expect(sound.family).toBe('exploratory');
+    expect(Number(row('untrained', '0').p_holm)).toBeCloseTo(9 * p2(14), 6);
+    // The primary family (noisy) holds one tested hypothesis: its Holm p is its p.
+    const noisy = records.find((x) => x.fields[0] === 'sound-from-sight' && x.fields[2] === 'x' && x.fields[6] === 'noisy')!.fields;
+    expect(noisy[header.indexOf('family')]).toBe('primary');
+    expect(Number(noisy[header.indexOf('p_holm')])).toBeCloseTo(p2(8), 6);
+    // wall_ahead is identical in every seed: family identical, and p is an empty field, never the text NaN.
     const accuracy = records.find((x) => x.fields[2] === 'wall_ahead')!.fields;
+    expect(accuracy[header.indexOf('family')]).toBe('identical');
     expect(accuracy.slice(header.indexOf('p'), header.indexOf('p_holm') + 1)).toEqual(['', '']);
     expect(sound.measure).toBe('score');
   });

@@ -1,4 +1,5 @@
 import type { EpochLog } from '../../src/learn/spec.js';
+import { correctedScore, seedRobustness, SEED_MEASURES } from '../../src/probe/robustness.js';
 import type { Measurement } from '../../src/results/results-table.js';
 import { testCellId, writeRun, type TestCell } from './stored-cells.js';
 
@@ -24,6 +25,24 @@ const epoch = (n: number, trainLoss: number, validationLoss: number, alignmentDe
   ({ epoch: n, trainLoss, validationLoss, seconds: 0.1, alignmentDeg });
 
 function measurements(learner: string, seed: number): Measurement[] {
+  return [...scores(learner, seed), ...seedMeasures(learner, seed)];
+}
+
+/** noisy, drop and area of each target as the cell computes them (src/probe/robustness.ts), chance 0.6 for wall_ahead. */
+function seedMeasures(learner: string, seed: number): Measurement[] {
+  const curves = {
+    x: { metric: 'r2', chance: NaN, values: SCORES[learner][seed] },
+    wall_ahead: { metric: 'accuracy', chance: 0.6, values: [0, 1].map((severity) => 0.9 - 0.1 * severity - 0.01 * seed) },
+  } as const;
+  return Object.entries(curves).flatMap(([target, { metric, chance, values }]) => {
+    const figures = seedRobustness(values.map((score, severity) => ({ severity, score: correctedScore(metric, score, chance) })));
+    return SEED_MEASURES.map((measure): Measurement => ({
+      target, channel: 'sight', kind: 'gaussian', severity: null, parameter: null, measure, metric, value: figures[measure].value,
+    }));
+  });
+}
+
+function scores(learner: string, seed: number): Measurement[] {
   return [0, 1].flatMap((severity): Measurement[] => {
     const at = { channel: 'sight', kind: 'gaussian', severity, parameter: [0, 0.25][severity], measure: 'score' } as const; // σ from the severity table
     return [

@@ -74,7 +74,7 @@ describe('crosswise run and crosswise report', () => {
 
   it('order the summary and comparisons by the config, not by which cell finished first', () => {
     const summary = byRun.get('summary.md')!.toString('utf8');
-    const table = summary.slice(summary.indexOf('### heading: sound masking noise'));
+    const table = summary.slice(summary.indexOf('## heading: sound masking noise'));
     expect(table.indexOf('| zeta |')).toBeLessThan(table.indexOf('| alpha |'));
     expect(table.indexOf('| alpha |')).toBeLessThan(table.indexOf('| mid |'));
     expect(summary).not.toContain('Rebuilt by');

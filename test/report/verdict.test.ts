@@ -1,33 +1,56 @@
 import { describe, expect, it } from 'vitest';
 import type { Comparison } from '../../src/report/comparisons.js';
-import { verdict } from '../../src/report/sections.js';
+import type { ScoreGroup } from '../../src/report/groups.js';
+import type { MeasureRow } from '../../src/results/results-table.js';
+import { verdictLine, type VerdictInput } from '../../src/report/verdict.js';
 
-// Test data: hand-made comparison records (only the fields the sentence reads matter).
-function comparison(learner: string, severity: number, meanDiff: number, pHolm: number, n: number): Comparison {
-  const half = 0.05;
-  return { learner, severity, meanDiff, pHolm, n, ciLow: meanDiff - half, ciHigh: meanDiff + half, p: pHolm, t: NaN, dz: NaN,
-    sdDiff: NaN, note: '', combination: 1, vary: {}, baseline: 'base', target: 'x', channel: 'sight', kind: 'gaussian', measure: 'score', family: 'primary', metric: 'r2' };
+// Test data: hand-made comparison records and measure rows (only the fields the sentence reads matter).
+function comparison(learner: string, meanDiff: number, pHolm: number, fields: Partial<Comparison> = {}): Comparison {
+  return { learner, severity: null, meanDiff, pHolm, n: 9, ciLow: meanDiff - 0.05, ciHigh: meanDiff + 0.05, p: pHolm, t: NaN, dz: NaN,
+    sdDiff: 0.04, note: '', combination: 1, vary: {}, baseline: 'base', target: 'x', channel: 'sight', kind: 'gaussian',
+    measure: 'noisy', family: 'primary', metric: 'r2', ...fields };
 }
-const noise = { channel: 'sight', kind: 'gaussian' };
 
-describe('verdict', () => {
-  it('lists severities in plain English and judges only noisy severities', () => {
-    const line = verdict('x', noise, 'base', [
-      comparison('a', 0, 0.3, 0.001, 12), comparison('a', 1, 0.2, 0.01, 12), comparison('a', 2, 0.2, 0.02, 12),
-      comparison('a', 3, 0.01, 0.6, 12), comparison('b', 1, 0.02, 0.04, 12),
-    ]);
-    // b's CI [−0.03, 0.07] includes 0, so p < 0.05 alone does not make it reliable.
-    expect(line).toBe('In these runs (12 seeds), for x under sight gaussian noise, counting a difference as reliable when its '
-      + 'Holm-adjusted p < 0.05 and its 95% CI excludes 0: a scored reliably higher than base at severities 1 and 2; '
-      + 'b was not distinguishable from base.');
+// Corrected clean score = noisy + drop per seed: a 0.6, 0.7 and base 0.5, 0.6 → clean difference +0.1 in both seeds.
+function measures(): MeasureRow[] {
+  const row = (learner: string, seed: number, measure: MeasureRow['measure'], value: number): MeasureRow => ({
+    cell: learner, learner, objective: 'predict', rule: 'backprop', seed, target: 'x', channel: 'sight', kind: 'gaussian',
+    severity: null, parameter: null, measure, metric: 'r2', value, vary: {} });
+  return [row('a', 1, 'noisy', 0.4), row('a', 1, 'drop', 0.2), row('a', 2, 'noisy', 0.5), row('a', 2, 'drop', 0.2),
+    row('base', 1, 'noisy', 0.3), row('base', 1, 'drop', 0.2), row('base', 2, 'noisy', 0.35), row('base', 2, 'drop', 0.25)];
+}
+const group: ScoreGroup = { target: 'x', metric: 'r2', channel: 'sight', kind: 'gaussian', rows: [], measures: measures() };
+const input = (comparisons: Comparison[], learners = ['a']): VerdictInput =>
+  ({ group, baseline: 'base', primary: 'noisy', comparisons, learners, familySize: 6 });
+
+describe('verdictLine', () => {
+  it('names a reliable difference in the primary measure with its CI beside the clean difference', () => {
+    // Reliable: Holm p 0.01 < 0.05 and the CI [+0.070, +0.170] excludes 0 (the rule in src/report/comparisons.ts).
+    expect(verdictLine(input([comparison('a', 0.12, 0.01)]))).toBe('x under sight gaussian noise (noisy, learner − base, chance-corrected): '
+      + 'in these runs, a kept reliably more of the world under noise than base: +0.120 [+0.070, +0.170], Holm p 0.010, 9 seeds; '
+      + 'clean +0.100 [+0.100, +0.100].');
   });
 
-  it('adds the low-power caution below 10 seeds (common practice)', () => {
-    expect(verdict('x', noise, 'base', [comparison('a', 1, 0, 1, 3)])).toContain(
-      'With 3 seeds the paired tests have little power, so "not distinguishable" is not evidence of equal robustness.');
+  it('says what the seeds could have detected, and that a miss is not equality, when a difference is not reliable', () => {
+    // d_z detectable by 9 seeds at α = 0.05/6 with 80% power: 1.49 (src/stats/power.ts, checked against SciPy there);
+    // in the measure's units 1.49 × the spread of differences 0.04 ≈ 0.060.
+    expect(verdictLine(input([comparison('a', -0.02, 0.6)]))).toContain('a did not differ reliably from base: -0.020 [-0.070, +0.030], '
+      + 'Holm p 0.600, 9 seeds; clean +0.100 [+0.100, +0.100]; these seeds detect d_z ≥ 1.49 (about 0.060 at this spread) with 80% power, '
+      + 'so a smaller difference may have been missed: not evidence that the two are equally robust.');
   });
 
-  it('says so when nothing could be paired', () => {
-    expect(verdict('x', noise, 'base', [])).toBe('In these runs, no learner could be paired with base by seed for x under sight gaussian noise.');
+  it('does not test an identical comparison', () => {
+    const identical = comparison('a', 0, NaN, { family: 'identical', note: 'differences have zero variance', ciLow: 0, ciHigh: 0 });
+    expect(verdictLine(input([identical]))).toContain('a − base was +0.000 in every seed (identical features, or noise that changes neither): nothing to test.');
+  });
+
+  it('says that both kept nothing when both are at 0 on the corrected scale in every seed', () => {
+    const zero = { ...group, measures: group.measures.map((r) => ({ ...r, value: r.measure === 'noisy' ? 0 : r.value })) };
+    const identical = comparison('a', 0, NaN, { family: 'identical', note: 'differences have zero variance', ciLow: 0, ciHigh: 0 });
+    expect(verdictLine({ ...input([identical]), group: zero })).toContain('both a and base kept nothing of it under this noise (corrected noisy 0 in every seed): nothing to compare.');
+  });
+
+  it('says so when the primary family has no learner', () => {
+    expect(verdictLine(input([], []))).toBe('x under sight gaussian noise: no learner other than the baseline and the controls, so there is no primary comparison.');
   });
 });

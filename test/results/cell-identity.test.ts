@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
+import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { canonicalJson, cellId, cellIdentity, type CellSettings } from '../../src/results/cell-identity.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
 
@@ -28,7 +29,7 @@ describe('canonical JSON', () => {
 describe('cell id', () => {
   it('is the first 10 hex digits of the SHA-256 of the canonical JSON of the format version and the identity', () => {
     const identity = cellIdentity(settings);
-    const text = `{"format_version":1,"identity":${canonicalJson(identity)}}`;
+    const text = `{"format_version":${RESULTS_FORMAT_VERSION},"identity":${canonicalJson(identity)}}`;
     expect(cellId(identity)).toBe(createHash('sha256').update(text).digest('hex').slice(0, 10));
     expect(cellId(identity)).toMatch(/^[0-9a-f]{10}$/);
   });
@@ -45,5 +46,26 @@ describe('cell id', () => {
     expect(cellId(renamed)).not.toBe(cellId(cellIdentity(settings)));
     const reordered = cellIdentity({ ...settings, collect: { split: settings.collect.split, episodeSteps: 200, steps: 1000, policy: 'wander' } });
     expect(cellId(reordered)).toBe(cellId(cellIdentity(settings)));
+  });
+
+  it('keeps an MLP encoder\'s identity as it was before encoder kinds (no kind key), so its cells keep their ids', () => {
+    const explicit = cellIdentity({ ...settings, learner: { ...settings.learner, encoder: { kind: 'mlp', hidden: [64], activation: 'relu' } } });
+    expect(explicit.learner.encoder).toEqual({ hidden: [64], activation: 'relu' });
+    expect(cellId(explicit)).toBe(cellId(cellIdentity(settings)));
+  });
+
+  it('holds every setting of a spiking encoder, in config spelling, and each changes the id', () => {
+    const encoder = {
+      kind: 'spiking', hidden: [64], steps: 16, dtMs: 1, tauMs: 2, threshold: 1, reset: 'subtract', refractoryMs: 0,
+      inputCoding: 'current', surrogate: 'fast-sigmoid', surrogateSlope: 5,
+    } as const;
+    const identity = cellIdentity({ ...settings, learner: { ...settings.learner, encoder } });
+    expect(identity.learner.encoder).toEqual({
+      kind: 'spiking', hidden: [64], steps: 16, dt_ms: 1, tau_ms: 2, threshold: 1, reset: 'subtract', refractory_ms: 0,
+      input_coding: 'current', surrogate: 'fast-sigmoid', surrogate_slope: 5,
+    });
+    const ids = new Set([identity, ...[{ steps: 8 }, { tauMs: 3 }, { reset: 'zero' }, { inputCoding: 'poisson' }, { surrogate: 'arctan' }, { surrogateSlope: 2 }]
+      .map((change) => cellIdentity({ ...settings, learner: { ...settings.learner, encoder: { ...encoder, ...change } as typeof encoder } }))].map(cellId));
+    expect(ids.size).toBe(7);
   });
 });

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { commitCellFolder } from '../../src/results/cell-folder.js';
 import { cellId, cellIdentity, type CellSettings } from '../../src/results/cell-identity.js';
+import { RESULTS_FORMAT_VERSION } from '../../src/results/format-version.js';
 import { formatCellRecord, parseCellRecord, readCellRecord, type CellRecord } from '../../src/results/cell-record.js';
 import { DEFAULT_SENSE_SETTINGS } from '../../src/senses/channel.js';
 
@@ -24,7 +25,7 @@ const settings: CellSettings = {
 };
 const identity = cellIdentity(settings);
 const record: CellRecord = {
-  format_version: 1, id: cellId(identity), index: 4, status: 'done', reason: '', identity, backend: 'wasm',
+  format_version: RESULTS_FORMAT_VERSION, id: cellId(identity), index: 4, status: 'done', reason: '', identity, backend: 'wasm',
   world_path: '/worlds/greenhouse.yaml', output: { save_features: true, align_every: 25 },
   seconds: { collect: 0.5, train: 2.25, probe: 1, total: 3.75 }, versions: { node: '20.20.2', crosswise: '0.1.0', tfjs: '4.22.0' },
   finished_at: '2026-01-02T03:04:05.000Z',
@@ -39,7 +40,7 @@ describe('cell.json', () => {
     const keys = [...text.matchAll(/"([^"]+)":/g)].map((m) => m[1]).filter((key) => !key.includes('.'));
     expect(keys.filter((key) => /[A-Z]/.test(key))).toEqual([]);
     expect(keys).toEqual(expect.arrayContaining(['format_version', 'learning_rate', 'episode_steps', 'min_hz', 'supervised_targets', 'save_features', 'align_every']));
-    expect(JSON.parse(text)).toMatchObject({ format_version: 1, identity: { learner: { train: { learning_rate: 0.001 } } } });
+    expect(JSON.parse(text)).toMatchObject({ format_version: RESULTS_FORMAT_VERSION, identity: { learner: { train: { learning_rate: 0.001 } } } });
   });
 
   it('reads back exactly the record that was written, through a stored cell folder', () => {
@@ -50,9 +51,9 @@ describe('cell.json', () => {
   });
 
   it('rejects another format version, naming the file and the key', () => {
-    const text = formatCellRecord({ ...record, format_version: 2 as 1 });
-    expect(() => parseCellRecord(text, 'c/cell.json')).toThrow(/^c\/cell\.json: format_version: expected 1, got 2 \(written by another version/);
-    expect(() => parseCellRecord('{"id": "x"}', 'c/cell.json')).toThrow('c/cell.json: format_version: expected 1, got none');
+    const text = formatCellRecord({ ...record, format_version: 1 as typeof RESULTS_FORMAT_VERSION });
+    expect(() => parseCellRecord(text, 'c/cell.json')).toThrow(`c/cell.json: format_version: expected ${RESULTS_FORMAT_VERSION}, got 1 (written by another version`);
+    expect(() => parseCellRecord('{"id": "x"}', 'c/cell.json')).toThrow(`c/cell.json: format_version: expected ${RESULTS_FORMAT_VERSION}, got none`);
   });
 
   it('rejects a record whose id is not the hash of its identity', () => {

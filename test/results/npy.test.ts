@@ -29,6 +29,23 @@ describe('encodeNpy', () => {
     expect(hex(bytes.subarray(128))).toBe('0000003f000000c0');
   });
 
+  it("writes Int32Array as '<i4' with the bytes numpy.save gives", () => {
+    // numpy 1.24 `np.save` of np.array([[1, -2, 3], [70000, 0, -1]], dtype='<i4'): 152 bytes,
+    // the same 128-byte header layout, then two's-complement little-endian words.
+    const bytes = encodeNpy(new Int32Array([1, -2, 3, 70000, 0, -1]), [2, 3]);
+    expect(bytes.length).toBe(152);
+    expect(ascii(bytes.subarray(10, 80))).toContain("{'descr': '<i4', 'fortran_order': False, 'shape': (2, 3), }");
+    expect(hex(bytes.subarray(128))).toBe('01000000feffffff030000007011010000000000ffffffff');
+  });
+
+  it("writes Uint8Array as '|u1' with the bytes numpy.save gives", () => {
+    // numpy 1.24 `np.save` of np.array([0, 2, 255], dtype='u1'): 131 bytes, data 0002ff.
+    const bytes = encodeNpy(Uint8Array.from([0, 2, 255]), [3]);
+    expect(bytes.length).toBe(131);
+    expect(ascii(bytes.subarray(10, 80))).toContain("{'descr': '|u1', 'fortran_order': False, 'shape': (3,), }");
+    expect(hex(bytes.subarray(128))).toBe('0002ff');
+  });
+
   it('rejects a shape that does not match the data', () => {
     expect(() => encodeNpy(new Float32Array(5), [2, 3])).toThrow('encodeNpy: shape (2, 3) does not hold 5 values');
   });
@@ -40,6 +57,12 @@ describe('decodeNpy', () => {
     const back = decodeNpy(encodeNpy(data, [3, 2]));
     expect(back.shape).toEqual([3, 2]);
     expect(Array.from(back.data)).toEqual(Array.from(data));
+  });
+
+  it('round-trips int32 and uint8 arrays when asked for their type', () => {
+    expect(Array.from(decodeNpy(encodeNpy(Int32Array.from([-7, 0, 2 ** 31 - 1]), [3]), 'a.npy', '<i4').data)).toEqual([-7, 0, 2 ** 31 - 1]);
+    expect(Array.from(decodeNpy(encodeNpy(Uint8Array.from([3, 4]), [1, 2]), 'b.npy', '|u1').data)).toEqual([3, 4]);
+    expect(() => decodeNpy(encodeNpy(Uint8Array.from([3]), [1]), 'c.npy', '<i4')).toThrow("c.npy: descr: expected '<i4' (little-endian int32), got '|u1'");
   });
 
   it('rejects other dtypes and bad magic with a message naming the file', () => {

@@ -66,6 +66,23 @@ describe('Dashboard', () => {
     app.unmount();
   });
 
+  it('shows the firing of a spiking learner under its worker line', async () => {
+    const events = source();
+    const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={1} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);
+    await mounted(events);
+    events.emit({ type: 'cell-start', cell: cell(0, 'spiking-sound-from-sight', 1), worker: 1 });
+    events.emit({ type: 'epoch', cell: cell(0, 'spiking-sound-from-sight', 1), worker: 1, log: {
+      epoch: 1, trainLoss: 0.5, validationLoss: 0.6, seconds: 1, alignmentDeg: [], firing: { rateHz: [210, 35], silentFraction: [0, 0.25] },
+    } });
+    const frame = await waitFor(() => app.lastFrame() ?? '', 'epoch 1');
+    expect(frame.split('\n').slice(4, 7)).toEqual([
+      'worker 1  spiking-sound-from-sight seed 1 [c0]  epoch 1  loss 0.5000 ▁',
+      '          firing 210 · 35 Hz · silent 0% · 25%',
+      '',
+    ]);
+    app.unmount();
+  });
+
   it('shows mean ± half-width once two seeds are in', async () => {
     const events = source();
     const app = render(<Dashboard subscribe={events.subscribe} onStop={() => {}} total={2} name="demo" summarise={meanWithFixedHalfWidth} now={() => 0} />);

@@ -53,8 +53,15 @@ describe('run state', () => {
 
   it('formats a worker line with its latest loss and a loss trend', () => {
     expect(workerTexts(fold(0))[0]).toEqual({
-      worker: 'worker 1', cell: 'sound-from-sight seed 2 [c2]', epoch: 'epoch 3', loss: 'loss 0.1000', trend: '█▄▁',
+      worker: 'worker 1', cell: 'sound-from-sight seed 2 [c2]', epoch: 'epoch 3', loss: 'loss 0.1000', trend: '█▄▁', firing: '',
     });
+  });
+
+  it('shows a spiking learner\'s latest firing rate and silent share per hidden layer', () => {
+    const firing = { rateHz: [152.4, 97.6], silentFraction: [0, 0.0625] };
+    const s = reduceRun(fold(0), { type: 'epoch', cell: cell(2, 'sound-from-sight', 2), worker: 1, log: { epoch: 4, trainLoss: 0.1, validationLoss: 0.2, seconds: 1, alignmentDeg: [], firing } }, 0);
+    expect(s.workers[0].firing).toEqual(firing);
+    expect(workerTexts(s)[0].firing).toBe('firing 152 · 98 Hz · silent 0% · 6%');
   });
 
   it('shows a single seed\'s score without an interval', () => {

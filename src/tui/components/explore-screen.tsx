@@ -20,6 +20,7 @@ export function ExploreScreen({ view }: { readonly view: ExploreView }) {
   return (
     <Box flexDirection="column">
       <Text wrap="truncate-end">{view.status}</Text>
+      {view.replay != null ? <Text wrap="truncate-end">{view.replay}</Text> : null}
       <Box gap={COLUMN_GAP}>
         {view.mapWidth > 0 ? (
           <Box flexDirection="column" width={view.mapWidth} flexShrink={0}>

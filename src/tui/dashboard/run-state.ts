@@ -1,4 +1,5 @@
 import type { CellLabel, RunEvent } from '../../experiment/events.js';
+import type { LayerFiring } from '../../learn/spec.js';
 import { isScore, type Measurement } from '../../results/results-table.js';
 
 /** What one worker is doing right now. */
@@ -9,6 +10,8 @@ export interface WorkerActivity {
   readonly epoch: number | null;
   /** Training loss per finished epoch, oldest first. */
   readonly losses: readonly number[];
+  /** A spiking learner's activity per hidden layer at its latest epoch; null for rate encoders and before the first epoch. */
+  readonly firing: LayerFiring | null;
 }
 
 /** Probe scores collected so far for one learner row, one table of the dashboard. */
@@ -59,10 +62,10 @@ export function reduceRun(state: RunState, event: RunEvent, nowMs: number): RunS
     case 'sweep-start':
       return { ...state, name: event.name, out: event.out, total: event.total, skipped: event.skipped, jobs: Math.max(1, event.jobs), startedMs: nowMs };
     case 'cell-start':
-      return { ...state, workers: withWorker(state.workers, { worker: event.worker, cell: event.cell, startedMs: nowMs, epoch: null, losses: [] }) };
+      return { ...state, workers: withWorker(state.workers, { worker: event.worker, cell: event.cell, startedMs: nowMs, epoch: null, losses: [], firing: null }) };
     case 'epoch':
       return { ...state, workers: state.workers.map((w) => (w.worker === event.worker && w.cell.id === event.cell.id
-        ? { ...w, epoch: event.log.epoch, losses: [...w.losses, event.log.trainLoss] }
+        ? { ...w, epoch: event.log.epoch, losses: [...w.losses, event.log.trainLoss], firing: event.log.firing ?? null }
         : w)) };
     case 'cell-done':
       return {

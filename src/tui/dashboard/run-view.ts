@@ -1,5 +1,6 @@
 import { formatDuration, formatFixed, formatMeanCi } from '../format.js';
 import { sparkline } from '../sparkline.js';
+import type { LayerFiring } from '../../learn/spec.js';
 import type { RunState, ScoreSeries } from './run-state.js';
 
 /** A mean and, once there are at least two values, its 95% confidence half-width. */
@@ -27,6 +28,8 @@ export interface WorkerText {
   readonly epoch: string;
   readonly loss: string;
   readonly trend: string;
+  /** A spiking learner's firing per hidden layer, first layer first; empty for rate encoders. */
+  readonly firing: string;
 }
 
 /** The results table, already formatted. */
@@ -82,7 +85,15 @@ export function workerTexts(state: RunState): WorkerText[] {
     epoch: w.epoch == null ? 'starting' : `epoch ${w.epoch}`,
     loss: w.losses.length === 0 ? '' : `loss ${formatFixed(w.losses[w.losses.length - 1], 4)}`,
     trend: sparkline(w.losses, SPARK_WIDTH),
+    firing: w.firing == null ? '' : firingText(w.firing),
   }));
+}
+
+/** `firing 152 · 98 Hz · silent 0% · 6%`: rates and silent fractions of each hidden layer. */
+function firingText(firing: LayerFiring): string {
+  const rates = firing.rateHz.map((r) => formatFixed(r, 0)).join(' · ');
+  const silent = firing.silentFraction.map((f) => `${formatFixed(100 * f, 0)}%`).join(' · ');
+  return `firing ${rates} Hz · silent ${silent}`;
 }
 
 /** The table of one view (target and metric) under one noise condition: a row per learner, a column per severity. */

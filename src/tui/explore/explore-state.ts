@@ -1,5 +1,5 @@
 import { NOISE_CHANNELS } from '../../noise/corrupt.js';
-import type { ChannelNoise } from '../../noise/explore-sample.js';
+import type { ChannelNoise, RecordedStep } from '../../noise/explore-sample.js';
 import { MAX_SEVERITY } from '../../noise/severity.js';
 import { NOISE_KINDS, type NoiseKind } from '../../noise/spec.js';
 import { CHANNELS, DEFAULT_SENSE_SETTINGS, type ChannelName, type SenseSettings } from '../../senses/channel.js';
@@ -26,9 +26,11 @@ export interface ExploreState {
   readonly help: boolean;
   readonly latents: boolean;
   readonly quit: boolean;
+  /** What a recording holds for this step (replay); the live explorer senses the pose instead. */
+  readonly recorded?: RecordedStep;
 }
 
-/** A key as the root component names it: a printable character, or up/down/left/right. */
+/** A key as the root component names it: a printable character, up/down/left/right, home/end, enter, backspace or escape. */
 export type ExploreKey = string;
 
 const CLEAN: ChannelNoise = { kind: 'gaussian', severity: 0 };
@@ -62,7 +64,7 @@ const MOVES: Readonly<Record<string, Action>> = {
   ' ': 'stay', '.': 'stay',
 };
 
-/** The keys as the help lines list them; `reduceExplore` is their meaning (Esc arrives as q). */
+/** The keys as the help lines list them; `reduceExplore` is their meaning. */
 export const EXPLORE_KEYS: readonly (readonly [string, string])[] = [
   ['↑↓ ws', 'forward, back'], ['←→ ad', 'turn'], ['. space', 'stay one step'], ['t', 'stay until an emitter switches'],
   ['n', 'next channel'], ['k', 'noise kind'], ['+ -', 'severity'], ['g', 'next world'],
@@ -83,7 +85,7 @@ export function reduceExplore(state: ExploreState, key: ExploreKey): ExploreStat
     case 'c': return { ...state, colour: !state.colour };
     case 'l': return { ...state, latents: !state.latents };
     case '?': return { ...state, help: !state.help };
-    case 'q': return { ...state, quit: true };
+    case 'q': case 'escape': return { ...state, quit: true };
     default: return state;
   }
 }

@@ -34,6 +34,8 @@ export interface ColumnView {
 /** The whole explore screen for one state and terminal size, every line cut to fit. */
 export interface ExploreView {
   readonly status: string;
+  /** The replay's line under the status (where in the recording, the player), or null when exploring live. */
+  readonly replay: string | null;
   /** Terminal columns of the map's column (0 when there is no room for it). */
   readonly mapWidth: number;
   readonly map: readonly (readonly MapCell[])[];
@@ -63,14 +65,22 @@ interface Panel {
 
 const height = (view: PanelView) => 1 + (view.kind === 'sight' ? view.rows.length + 1 : view.kind === 'bars' ? view.bars.length : view.lines.length);
 
+/** What differs between exploring live and replaying: the keys the help lists, and the replay's line. */
+export interface ScreenMode {
+  readonly keys: readonly (readonly [string, string])[];
+  readonly replay: string | null;
+}
+
+const LIVE: ScreenMode = { keys: EXPLORE_KEYS, replay: null };
+
 /** The explore screen's content for a state on a terminal of the given size. */
-export function exploreView(state: ExploreState, size: TerminalSize): ExploreView {
+export function exploreView(state: ExploreState, size: TerminalSize, mode: ScreenMode = LIVE): ExploreView {
   const world = state.worlds[state.worldIndex];
   const sample = exploreSample({ ...state, world });
   const footerKeys = state.help
-    ? wrapItems(EXPLORE_KEYS.map(([key, action]) => `${key} ${action}`), size.columns)
+    ? wrapItems(mode.keys.map(([key, action]) => `${key} ${action}`), size.columns)
     : ['? keys · q quit'];
-  const panelRows = Math.max(1, size.rows - 1 - footerKeys.length);
+  const panelRows = Math.max(1, size.rows - 1 - (mode.replay == null ? 0 : 1) - footerKeys.length);
   const panels = panelsInOrder(state, world, sample, panelRows);
   const placement = placeBlocks(panels.map((p) => ({ id: p.id, width: p.width, height: height(p.view), follows: p.follows })), {
     columns: size.columns, height: panelRows, minMapColumns: Math.min(world.width, MIN_MAP_COLUMNS), wantedMapColumns: Math.max(2 * world.width, KEY_WIDTH),
@@ -88,6 +98,7 @@ export function exploreView(state: ExploreState, size: TerminalSize): ExploreVie
   const hidden = [...placement.hidden, ...(keyUnderMap || keyColumn != null ? [] : ['key'])];
   return {
     status: cut(statusLine(state, world), size.columns),
+    replay: mode.replay == null ? null : cut(mode.replay, size.columns),
     mapWidth: placement.mapColumns,
     map: mapRows(world, state.pose, sample, window, cellWidth, state.colour),
     mapKey: keyUnderMap ? mapKey : [],

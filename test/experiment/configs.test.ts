@@ -14,6 +14,17 @@ describe('shipped configs', () => {
     expect(files).toEqual(['multisense.yaml', 'quickstart.yaml', 'rules.yaml', 'sound-noise.yaml', 'spiking.yaml', 'vary.yaml']);
   });
 
+  it('spiking compares two spiking learners with their rate-MLP counterparts of the same widths and schedule under sight noise', () => {
+    const settings = loadSweep(join(CONFIGS, 'spiking.yaml')).combinations[0].settings;
+    const specs = settings.learners.map((l) => l.spec);
+    expect(specs.map((s) => [s.name, s.objective, s.encoder.kind])).toEqual([
+      ['spiking-sound-from-sight', 'predict', 'spiking'], ['spiking-sight-autoencoder', 'reconstruct', 'spiking'],
+      ['sound-from-sight', 'predict', 'mlp'], ['sight-autoencoder', 'reconstruct', 'mlp'],
+    ]);
+    expect(new Set(specs.map((s) => JSON.stringify([s.encoder.hidden, s.train]))).size).toBe(1);
+    expect(settings.noise.map((n) => `${n.channel} ${n.kind}`)).toEqual(['sight gaussian']);
+  });
+
   it.each(files)('%s is valid and points editors at the schema', (name) => {
     const sweep = loadSweep(join(CONFIGS, name));
     expect(planCells(sweep).length).toBeGreaterThan(0);

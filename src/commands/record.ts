@@ -2,6 +2,7 @@ import { createHash, randomUUID } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { loadSweep } from '../experiment/config.js';
+import { readWorldFile } from '../experiment/file-kind.js';
 import { DEFAULTS } from '../experiment/defaults.js';
 import { planCells } from '../experiment/plan.js';
 import { sweepPolicy } from '../experiment/plugin-catalog.js';
@@ -12,7 +13,6 @@ import type { NoiseKind, NoiseSpec } from '../noise/spec.js';
 import { writeFolderAtomic } from '../results/atomic-file.js';
 import { recordingFiles, SPLIT_NAMES, type Recording } from '../results/recording.js';
 import { DEFAULT_SENSE_SETTINGS, type ChannelName } from '../senses/channel.js';
-import { loadWorld } from '../world/parse.js';
 import { runAction } from './command-line.js';
 import { EXIT } from './exit-codes.js';
 import { recordUsage } from './record-usage.js';
@@ -25,7 +25,7 @@ function chooseSource(world: string | undefined, args: RecordValues): Omit<Recor
   if (args.index != null && args.config == null) throw new UsageError('--index names a cell of a config; give --config too');
   if (args.config == null) {
     const path = resolve(world as string);
-    loadWorld(path); // a WorldFileError names the file, line and column before anything is written
+    readWorldFile(path, 'record a cell of a config with --config FILE --index I'); // a WorldFileError names the file, line and column before anything is written
     const sha256 = createHash('sha256').update(readFileSync(path)).digest('hex');
     const collect = {
       ...DEFAULTS.collect, policy: args.policy ?? DEFAULTS.collect.policy, steps: args.steps ?? DEFAULTS.collect.steps,

@@ -1,9 +1,10 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { checkCommand } from '../../src/commands/check.js';
 import { planCommand } from '../../src/commands/plan.js';
+import { recordCommand } from '../../src/commands/record.js';
 import { runCommand } from '../../src/commands/run.js';
 import { senseCommand } from '../../src/commands/sense.js';
 import { fileKind } from '../../src/experiment/file-kind.js';
@@ -64,6 +65,17 @@ describe('a file is a world or a config by its content', () => {
       `crosswise sense: ${config}:1:1: this is a config, not a world (a world has 'map', 'materials' and 'emitters'; `
         + "a config names its world under 'world'); give a config with --config to use its world and senses",
     ]);
+  });
+
+  it('record given a config says "this is a config, not a world" and how to record a cell, writing nothing', async () => {
+    const dir = configFolder(CONFIG);
+    const config = join(dir, 'config.yaml');
+    expect(await recordCommand([config, '--out', join(dir, 'rec')])).toBe(1);
+    expect(err).toEqual([
+      `crosswise record: ${config}:1:1: this is a config, not a world (a world has 'map', 'materials' and 'emitters'; `
+        + "a config names its world under 'world'); record a cell of a config with --config FILE --index I",
+    ]);
+    expect(existsSync(join(dir, 'rec'))).toBe(false);
   });
 
   it('a config whose world key names a config says so at that key', async () => {

@@ -1,10 +1,13 @@
 // A test double for the runner's contract: a cell whose scores follow from its settings
 // alone (so any schedule must store the same numbers), that takes a little time per
 // epoch, and that fails like a diverging learner when its name says so, or kills its
-// worker thread as a heap exhaustion would when FAKE_DYING names its learner.
+// worker thread as a heap exhaustion would when FAKE_DYING names its learner. Its per-seed
+// noisy, drop and area rows come from its scores through the product's own definition
+// (probe/robustness.ts, with chance 0), so reports built on it have a primary family.
 import { createHash } from 'node:crypto';
 import type { CellWork } from '../../src/experiment/cell-work.js';
 import { noiseParameter } from '../../src/noise/severity.js';
+import { SEED_MEASURES, seedRobustness } from '../../src/probe/robustness.js';
 import type { Measurement } from '../../src/results/results-table.js';
 
 const EPOCH_MS = Number(process.env.FAKE_EPOCH_MS ?? '20');
@@ -28,7 +31,8 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
     log.push(entry);
     onEpoch(entry);
   }
-  const rows = cell.probe.targets.flatMap((target) =>
+  const score = (target: string, channel: string, kind: string, severity: number): number => unit(`${cell.id}/${target}/${channel}/${kind}/${severity}`);
+  const rows: Measurement[] = cell.probe.targets.flatMap((target) =>
     cell.noise.flatMap((noise) => noise.severities.map((severity, i): Measurement => ({
       target,
       channel: noise.channel,
@@ -37,7 +41,17 @@ export const cellWork: CellWork = async (cell, onEpoch) => {
       parameter: noiseParameter(noise, i),
       measure: 'score',
       metric: 'accuracy',
-      value: unit(`${cell.id}/${target}/${noise.channel}/${noise.kind}/${severity}`),
+      value: score(target, noise.channel, noise.kind, severity),
     }))));
+  for (const target of cell.probe.targets) {
+    for (const noise of cell.noise) {
+      if (!noise.severities.some((severity) => severity > 0)) continue;
+      const curve = [0, ...noise.severities.filter((severity) => severity > 0)].map((severity) => ({ severity, score: score(target, noise.channel, noise.kind, severity) }));
+      const figures = seedRobustness(curve);
+      for (const measure of SEED_MEASURES) {
+        rows.push({ target, channel: noise.channel, kind: noise.kind, severity: null, parameter: null, measure, metric: 'accuracy', value: figures[measure].value });
+      }
+    }
+  }
   return { rows, log, seconds: { collect: 0, train: 0, probe: 0 }, versions: { fake: '1' }, arrays: {} };
 };

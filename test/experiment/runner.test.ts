@@ -44,8 +44,8 @@ describe('crosswise run (with a test double for the cell work)', () => {
     expect(runs.map((run) => run.code)).toEqual([0, 0]);
     const results = readFileSync(join(one, 'out', 'results.csv'), 'utf8');
     expect(results).toBe(readFileSync(join(two, 'out', 'results.csv'), 'utf8'));
-    // 8 cells × 5 targets × 3 severities, plus the header.
-    expect(results.trim().split('\n')).toHaveLength(8 * 5 * 3 + 1);
+    // 8 cells × 5 targets × (3 severities + the per-seed noisy, drop and area), plus the header.
+    expect(results.trim().split('\n')).toHaveLength(8 * 5 * (3 + 3) + 1);
     expect(results.split('\n')[0]).toBe('cell,learner,objective,rule,seed,target,channel,kind,severity,parameter,measure,metric,value,collect.steps');
   });
 
@@ -87,7 +87,7 @@ describe('crosswise run (with a test double for the cell work)', () => {
     const records = cellFolders(out).map((id) => readCellRecord(out, id));
     expect(records.filter((r) => r.status === 'done').map((r) => r.identity.learner.name)).toEqual(Array(4).fill('sound-from-sight'));
     expect(records.filter((r) => r.status === 'failed').map((r) => r.reason)).toEqual(Array(4).fill('LearnerDivergedError: loss became NaN at epoch 1'));
-    expect(readFileSync(join(out, 'results.csv'), 'utf8').trim().split('\n')).toHaveLength(4 * 15 + 1);
+    expect(readFileSync(join(out, 'results.csv'), 'utf8').trim().split('\n')).toHaveLength(4 * 5 * (3 + 3) + 1);
     expect(run.stdout).toMatch(/sweep done: 4 done, 4 failed/);
   });
 

@@ -44,8 +44,8 @@ describe('faults in a real tiny sweep', () => {
     const first = await run(reference);
     expect(first.code).toBe(0);
     undisturbed = results(reference);
-    // 4 cells × 5 probe targets × 2 severities, plus the header.
-    expect(lines(undisturbed)).toHaveLength(4 * 5 * 2 + 1);
+    // 4 cells × 5 probe targets × (2 severities + the per-seed noisy, drop and area), plus the header.
+    expect(lines(undisturbed)).toHaveLength(4 * 5 * (2 + 3) + 1);
   });
 
   /** A copy of the finished reference sweep, to damage. */
@@ -89,7 +89,7 @@ describe('faults in a real tiny sweep', () => {
       errors.mockRestore();
       log.mockRestore();
     }
-    expect(lines(results(dir))).toHaveLength(3 * 5 * 2 + 1);
+    expect(lines(results(dir))).toHaveLength(3 * 5 * (2 + 3) + 1);
     const rerun = await run(dir);
     expect(rerun.code).toBe(0);
     expect(lines(rerun.stderr)).toEqual([`crosswise run: warning: cell ${a}: scores.csv missing — moved to cells/.damaged-${a}-1, recomputing`]);
@@ -184,7 +184,7 @@ describe('faults in a real tiny sweep', () => {
     expect(extended.code).toBe(0);
     expect(extended.stdout).toContain('9 cells, 4 already finished');
     const grown = lines(results(dir));
-    expect(grown).toHaveLength(9 * 5 * 2 + 1);
+    expect(grown).toHaveLength(9 * 5 * (2 + 3) + 1);
     expect(lines(undisturbed).every((row) => grown.includes(row))).toBe(true);
 
     const forced = await spawnWithFake(['run', join(dir, 'other.yaml'), '--jobs', '2', '--force']);
@@ -193,7 +193,7 @@ describe('faults in a real tiny sweep', () => {
     // The autoencoder's cells are the same cells (same settings); the predictor's are new.
     expect(forced.stdout).toContain('4 cells, 2 already finished');
     const taken = lines(results(dir));
-    expect(taken).toHaveLength(4 * 5 * 2 + 1);
+    expect(taken).toHaveLength(4 * 5 * (2 + 3) + 1);
     expect(taken.filter((row) => row.includes(',sight-autoencoder,'))).toEqual(lines(undisturbed).filter((row) => row.includes(',sight-autoencoder,')));
     expect(taken.filter((row) => row.includes(',sound-from-sight,')).some((row) => undisturbed.includes(row.split(',')[0]))).toBe(false);
   });

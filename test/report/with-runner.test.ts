@@ -43,9 +43,12 @@ async function checkReport(dir: string): Promise<void> {
   expect(summary).toContain('Baseline learner: `sight-autoencoder`.');
   expect(summary).toContain('## Combination 2: `collect.steps` = 2000');
   expect(summary).toContain('| sight-diverge | 1 | 1000 | LearnerDivergedError: loss became NaN at epoch 1 |');
-  // 2 combinations × 5 default targets × 2 severities, sound-from-sight against the baseline.
+  // 2 combinations × 5 default targets × (2 severities + noisy, drop and area), sound-from-sight against the baseline;
+  // its noisy comparisons (2 × 5) are the primary family.
   const records = parseCsv(await readFile(files.comparisonsPath, 'utf8'), 'comparisons.csv');
-  expect(records.length - 1).toBe(2 * 5 * 2);
+  expect(records.length - 1).toBe(2 * 5 * (2 + 3));
+  const family = records[0].fields.indexOf('family');
+  expect(records.slice(1).filter((r) => r.fields[family] === 'primary')).toHaveLength(2 * 5);
   expect(files.plots.filter((p) => p.includes('training')).length).toBe(2);
   const written = await readFile(files.resultsPath, 'utf8');
   await writeFile(files.resultsPath, '');

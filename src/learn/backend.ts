@@ -6,6 +6,7 @@ import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
 import { registerSpikingKernels } from './spiking-kernels.js';
 import { registerStockGradients } from './stock-gradients.js';
+import { registerWasmMatMul } from './wasm-matmul.js';
 import type { BackendName } from './spec.js';
 
 let gradientsReady = false;
@@ -25,6 +26,7 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     registerOptimizerKernels();
     registerDenseKernels();
     registerSpikingKernels();
+    registerWasmMatMul();
     gradientsReady = true;
   }
   // engine().backendName stays null until a backend is chosen; getBackend() would pick one.

@@ -79,7 +79,13 @@ export function columnSums(x: tf.Tensor2D): tf.Tensor1D {
   return runHostKernel(COLUMN_SUMS.name, [x], rowsAndCols(x))[0] as tf.Tensor1D;
 }
 
-/** a·b, a·bᵀ, aᵀ·b or aᵀ·bᵀ with explicit transposes: wasm's matMul runs far slower with a transpose flag. */
+/**
+ * a·b, a·bᵀ, aᵀ·b or aᵀ·bᵀ, with the same bits as tf.matMul of explicitly transposed operands.
+ * bᵀ is always copied (tfjs's kernels run far slower with that flag); on wasm, aᵀ is read in
+ * place by the product itself (wasm-matmul.ts), elsewhere it is copied too.
+ */
 export function matMulT(a: tf.Tensor2D, b: tf.Tensor2D, transposeA: boolean, transposeB: boolean): tf.Tensor2D {
-  return tf.matMul(transposeA ? transpose2d(a) : a, transposeB ? transpose2d(b) : b);
+  const opB = transposeB ? transpose2d(b) : b;
+  if (transposeA && tf.getBackend() === 'wasm') return tf.matMul(a, opB, true, false);
+  return tf.matMul(transposeA ? transpose2d(a) : a, opB);
 }

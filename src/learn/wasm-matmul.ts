@@ -1,19 +1,12 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { BackendWasm } from '@tensorflow/tfjs-backend-wasm';
-import { wasmKernels } from './wasm-module.js';
+import { wasmHeap, wasmKernels } from './wasm-module.js';
 
 type MatMul = (a: number, b: number, c: number, m: number, k: number, n: number, transposeA: number) => void;
 
 interface MatMulAttrs {
   readonly transposeA: boolean;
   readonly transposeB: boolean;
-}
-
-/** The wasm backend's heap (tfjs-backend-wasm keeps its Emscripten module's exports on `wasm.asm`). */
-function heapOf(backend: BackendWasm): WebAssembly.Memory {
-  const memory = (backend.wasm as unknown as { asm?: { memory?: unknown } }).asm?.memory;
-  if (!(memory instanceof WebAssembly.Memory)) throw new Error('the tfjs wasm backend does not expose its memory');
-  return memory;
 }
 
 const address = (backend: BackendWasm, t: tf.TensorInfo): number => backend.dataIdMap.get(t.dataId)!.memoryOffset;
@@ -50,7 +43,7 @@ export function registerWasmMatMul(): void {
     const backend = args.backend as BackendWasm;
     const rank = Math.max(a.shape.length, b.shape.length);
     const out = backend.makeOutput([...new Array<number>(rank - 2).fill(1), m, n], 'float32');
-    const matmul = wasmKernels('matmul', heapOf(backend)).matmul as MatMul;
+    const matmul = wasmKernels('matmul', wasmHeap(backend)).matmul as MatMul;
     matmul(address(backend, a), address(backend, b), address(backend, out), m, k, n, transposeA ? 1 : 0);
     return out;
   };

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
+import type { BackendWasm } from '@tensorflow/tfjs-backend-wasm';
 
 const instances = new Map<string, WeakMap<WebAssembly.Memory, WebAssembly.Exports>>();
 
@@ -36,4 +37,11 @@ function compiled(name: string): WebAssembly.Module {
     modules.set(name, module);
   }
   return module;
+}
+
+/** The wasm backend's heap (tfjs-backend-wasm keeps its Emscripten module's exports on `wasm.asm`). */
+export function wasmHeap(backend: BackendWasm): WebAssembly.Memory {
+  const memory = (backend.wasm as unknown as { asm?: { memory?: unknown } }).asm?.memory;
+  if (!(memory instanceof WebAssembly.Memory)) throw new Error('the tfjs wasm backend does not expose its memory');
+  return memory;
 }

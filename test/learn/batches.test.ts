@@ -15,6 +15,10 @@ describe('batchOf', () => {
     expect(Array.from(takeRows(m, [3, 0, 3]))).toEqual([30, 31, 32, 0, 1, 2, 30, 31, 32]);
   });
 
+  it('copies rows four at a time and the rest one by one alike: 6 rows of 4 taken in reverse', () => {
+    expect(Array.from(takeRows(m, [3, 2, 1, 0, 3, 2]))).toEqual([30, 31, 32, 20, 21, 22, 10, 11, 12, 0, 1, 2, 30, 31, 32, 20, 21, 22]);
+  });
+
   it('uploads a matrix used as both input and target once (an autoencoder\'s batch)', () => {
     const before = tf.memory().numTensors;
     const batch = batchOf({ n: 4, inputs: [m], extra: null, target: m }, Int32Array.from([2, 1]));

@@ -59,9 +59,15 @@ await build({
 const wabt = await require('wabt')();
 for (const file of sources.filter((f) => f.endsWith('.wat'))) {
   const text = readFileSync(file, 'utf8');
-  const module = wabt.parseWat(relative(root, file), text, { simd: true });
+  let module;
   try {
+    module = wabt.parseWat(relative(root, file), text, { simd: true });
     module.validate();
+  } catch (error) {
+    // Thrown anew so that Node prints this line, not a line of wabt's minified source.
+    throw new Error(error.message);
+  }
+  try {
     const name = `${basename(file, '.wat')}-${createHash('sha256').update(text).digest('hex').slice(0, 16)}.wasm`;
     mkdirSync(join(dist, 'wasm'), { recursive: true });
     writeFileSync(join(dist, 'wasm', name), module.toBinary({}).buffer);

@@ -1,5 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import { registerHostKernel, runHostKernel, type HostBackend, type HostKernel } from './host-kernels.js';
+import { wasmKernels } from './wasm-module.js';
 
 // The two data movements of a dense layer's backward pass, as host kernels: on wasm,
 // tfjs's Transpose walks every element through a general N-d index and its Sum over
@@ -52,10 +53,15 @@ const TRANSPOSE: HostKernel = {
   run: ([x], [out], { rows, cols }) => transposeInto(x, rows, cols, out),
 };
 
+type ColumnSumsOnHeap = (x: number, out: number, rows: number, cols: number) => void;
+
 const COLUMN_SUMS: HostKernel = {
   name: 'CrosswiseColumnSums',
   outputShapes: ([[, cols]]) => [[cols]],
-  run: ([x], [out], { rows, cols }, backend) => columnSumsInto(x, rows, cols, out, backend),
+  // On wasm, dense-kernels.wat runs the same float32 additions four columns at a time.
+  run: ([x], [out], { rows, cols }, backend, heap) => (heap == null
+    ? columnSumsInto(x, rows, cols, out, backend)
+    : (wasmKernels('dense-kernels', heap).columnSums as ColumnSumsOnHeap)(x.byteOffset, out.byteOffset, rows, cols)),
 };
 
 /** Registers the dense-layer kernels on the wasm and cpu backends. */

@@ -4,6 +4,7 @@ import '@tensorflow/tfjs-backend-wasm';
 import { registerDenseKernels } from './dense-kernels.js';
 import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
+import { registerReluKernels } from './relu-kernels.js';
 import { registerSpikingKernels } from './spiking-kernels.js';
 import { registerStockGradients } from './stock-gradients.js';
 import { registerWasmMatMul } from './wasm-matmul.js';
@@ -25,6 +26,7 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     registerFastMatMulGradient();
     registerOptimizerKernels();
     registerDenseKernels();
+    registerReluKernels();
     registerSpikingKernels();
     registerWasmMatMul();
     gradientsReady = true;

@@ -6,6 +6,7 @@ import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
 import { registerReluKernels } from './relu-kernels.js';
 import { registerSpikingKernels } from './spiking-kernels.js';
+import { registerSquaredErrorKernel } from './squared-error.js';
 import { registerStockGradients } from './stock-gradients.js';
 import { registerWasmMatMul } from './wasm-matmul.js';
 import type { BackendName } from './spec.js';
@@ -27,6 +28,7 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     registerOptimizerKernels();
     registerDenseKernels();
     registerReluKernels();
+    registerSquaredErrorKernel();
     registerSpikingKernels();
     registerWasmMatMul();
     gradientsReady = true;

@@ -64,10 +64,11 @@ const COLUMN_SUMS: HostKernel = {
     : (wasmKernels('dense-kernels', heap).columnSums as ColumnSumsOnHeap)(x.byteOffset, out.byteOffset, rows, cols)),
 };
 
-/** Registers the dense-layer kernels on the wasm and cpu backends. */
+/** Registers the dense-layer kernels on the wasm and cpu backends, and the transpose's gradient (the transpose of dy). */
 export function registerDenseKernels(): void {
   registerHostKernel(TRANSPOSE);
   registerHostKernel(COLUMN_SUMS);
+  tf.registerGradient({ kernelName: TRANSPOSE.name, gradFunc: (dy) => ({ 0: () => transpose2d(dy as tf.Tensor2D) }) });
 }
 
 function rowsAndCols(x: tf.Tensor2D): { rows: number; cols: number } {

@@ -64,16 +64,43 @@ const COLUMN_SUMS: HostKernel = {
     : (wasmKernels('dense-kernels', heap).columnSums as ColumnSumsOnHeap)(x.byteOffset, out.byteOffset, rows, cols)),
 };
 
+/** out [n, cols] = rows `rows[i]` of x [·, cols], in order. */
+export function gatherRowsInto(x: Float32Array, rows: Float32Array, cols: number, out: Float32Array): void {
+  for (let i = 0; i < rows.length; i++) out.set(x.subarray(rows[i] * cols, (rows[i] + 1) * cols), i * cols);
+}
+
+type GatherRowsOnHeap = (x: number, rows: number, out: number, n: number, cols: number) => void;
+
+const GATHER_ROWS: HostKernel = {
+  name: 'CrosswiseGatherRows',
+  outputShapes: ([[, cols], [n]]) => [[n, cols]],
+  // On wasm, dense-kernels.wat copies each row with memory.copy.
+  run: ([x, rows], [out], { cols }, _backend, heap) => (heap == null
+    ? gatherRowsInto(x, rows, cols, out)
+    : (wasmKernels('dense-kernels', heap).gatherRows as GatherRowsOnHeap)(x.byteOffset, rows.byteOffset, out.byteOffset, rows.length, cols)),
+};
+
 /** Registers the dense-layer kernels on the wasm and cpu backends, and the transpose's gradient (the transpose of dy). */
 export function registerDenseKernels(): void {
   registerHostKernel(TRANSPOSE);
   registerHostKernel(COLUMN_SUMS);
+  registerHostKernel(GATHER_ROWS);
   tf.registerGradient({ kernelName: TRANSPOSE.name, gradFunc: (dy) => ({ 0: () => transpose2d(dy as tf.Tensor2D) }) });
 }
 
 function rowsAndCols(x: tf.Tensor2D): { rows: number; cols: number } {
   if (x.rank !== 2) throw new Error(`expected a matrix, got shape [${x.shape.join(', ')}]`);
   return { rows: x.shape[0], cols: x.shape[1] };
+}
+
+/**
+ * The rows of x [N, cols] that `rows` ([n] float32, whole numbers below N) names, in order:
+ * [n, cols]. Rows are indexed in float32, so N must stay below 2²⁴.
+ */
+export function gatherRows(x: tf.Tensor2D, rows: tf.Tensor1D): tf.Tensor2D {
+  const { cols } = rowsAndCols(x);
+  if (rows.rank !== 1) throw new Error(`gatherRows: expected a vector of row indices, got shape [${rows.shape.join(', ')}]`);
+  return runHostKernel(GATHER_ROWS.name, [x, rows], { cols })[0] as tf.Tensor2D;
 }
 
 /** xᵀ of a matrix, [rows, cols] → [cols, rows]. */

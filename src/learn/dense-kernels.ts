@@ -47,10 +47,15 @@ function addRows<T extends Float32Array | Float64Array>(x: Float32Array, rows: n
   }
 }
 
+type TransposeOnHeap = (x: number, out: number, rows: number, cols: number) => void;
+
 const TRANSPOSE: HostKernel = {
   name: 'CrosswiseTranspose2D',
   outputShapes: ([[rows, cols]]) => [[cols, rows]],
-  run: ([x], [out], { rows, cols }) => transposeInto(x, rows, cols, out),
+  // On wasm, dense-kernels.wat copies four rows at a time.
+  run: ([x], [out], { rows, cols }, _backend, heap) => (heap == null
+    ? transposeInto(x, rows, cols, out)
+    : (wasmKernels('dense-kernels', heap).transpose as TransposeOnHeap)(x.byteOffset, out.byteOffset, rows, cols)),
 };
 
 type ColumnSumsOnHeap = (x: number, out: number, rows: number, cols: number) => void;

@@ -7,7 +7,7 @@ import { meanCi, table } from './markdown.js';
 import { robustnessPlotPath, trainingPlotPath } from './plots.js';
 import { powerLine } from './power-line.js';
 import { FEW_SEEDS, alignmentTable, comparisonTable, descriptiveTable, iqmTable, measureTable, scoreTable } from './sections.js';
-import { verdictLine } from './verdict.js';
+import { verdictLines } from './verdict.js';
 
 /** Everything summary.md is written from. */
 export interface SummaryInput {
@@ -87,7 +87,7 @@ function powerParagraph(run: StoredRun, seeds: number): string {
   return powerLine({ learners: primaryLearners(run).length, ...factors }, seeds);
 }
 
-/** One verdict line per target and noise (per combination), then the caution. */
+/** The verdict of each target and noise (per combination), then the caution. */
 function verdictBlock(input: SummaryInput, multi: boolean): string[] {
   const { run } = input;
   const baseline = run.baseline as string;
@@ -98,7 +98,7 @@ function verdictBlock(input: SummaryInput, multi: boolean): string[] {
     for (const group of scoreGroups(combo)) {
       const comparisons = input.comparisons.filter((c) => c.combination === combo.index && c.target === group.target
         && c.channel === group.channel && c.kind === group.kind);
-      lines.push(`- ${verdictLine({ group, baseline, primary: run.primary, comparisons, learners: primaryLearners(run), familySize: sizes.get(combo.index) ?? 0 })}`);
+      lines.push(...verdictLines({ group, baseline, primary: run.primary, comparisons, learners: primaryLearners(run), familySize: sizes.get(combo.index) ?? 0 }));
     }
     lines.push('');
   }

@@ -26,18 +26,21 @@ export interface VerdictInput {
 }
 
 /**
- * One plain-English line for a target and noise from the primary family: for each
- * learner, whether it kept reliably more (or less) of the world under noise than the
+ * The verdict of one target and noise from the primary family, as Markdown list lines: for
+ * each learner, whether it kept reliably more (or less) of the world under noise than the
  * baseline, the difference with its 95% CI beside the clean difference (both on the
- * chance-corrected scale), and what the seeds could have detected. It says "in these
- * runs" and never takes a non-significant difference for equality.
+ * chance-corrected scale), and what the seeds could have detected. One learner fits one
+ * line; several get one nested line each, so a sweep of many learners stays readable. It
+ * says "in these runs" and never takes a non-significant difference for equality.
  */
-export function verdictLine(input: VerdictInput): string {
+export function verdictLines(input: VerdictInput): string[] {
   const { group, baseline, primary } = input;
   const where = `${group.target} under ${group.channel} ${group.kind} noise`;
   const parts = input.learners.map((learner) => learnerVerdict(input, learner));
-  if (parts.length === 0) return `${where}: no learner other than the baseline and the controls, so there is no primary comparison.`;
-  return `${where} (${primary}, learner − ${baseline}, chance-corrected): in these runs, ${parts.join('; ')}.`;
+  if (parts.length === 0) return [`- ${where}: no learner other than the baseline and the controls, so there is no primary comparison.`];
+  const head = `${where} (${primary}, learner − ${baseline}, chance-corrected)`;
+  if (parts.length === 1) return [`- ${head}: in these runs, ${parts[0]}.`];
+  return [`- ${head}, in these runs:`, ...parts.map((part) => `  - ${part}.`)];
 }
 
 function learnerVerdict(input: VerdictInput, learner: string): string {

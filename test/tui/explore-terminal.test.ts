@@ -57,14 +57,14 @@ describe.skipIf(!hasTmux)('crosswise explore in a terminal', () => {
 
     tmux('send-keys', '-t', SESSION, 'a');
     const turned = await waitForScreen((t) => t.includes('step 2 '), 'step 2');
-    expect(statusLine(turned)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: stayed');
+    expect(statusLine(turned)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: turned');
     expect(mapRow(turned, '#..◓.................#')).toBe(true);
 
     // With the ground truth on the frame still fits: the status stays on the first row,
     // no line is longer than 80 and the footer is on the last row at most.
     tmux('send-keys', '-t', SESSION, 'l');
     const truth = await waitForScreen((t) => t.includes('ground truth'), 'the ground truth');
-    expect(statusLine(truth)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: stayed');
+    expect(statusLine(truth)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: turned');
     expect(paneLines(truth).length).toBe(24);
     expect(paneLines(truth).every((line) => line.length <= 80)).toBe(true);
     // The fan at (1, 1) from (3, 7) facing north: √(2² + 6²) cells × 0.5 m = 3.2 m, atan2(−2, 6) = −18° (left).
@@ -78,7 +78,7 @@ describe.skipIf(!hasTmux)('crosswise explore in a terminal', () => {
     // At 120×40 the whole map fits two characters per cell, and the motor panel finds room.
     tmux('resize-window', '-t', SESSION, '-x', '120', '-y', '40');
     const large = await waitForScreen((t) => t.includes('##. . ◓ . . '), 'the map at two characters per cell');
-    expect(statusLine(large)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: stayed');
+    expect(statusLine(large)).toBe('greenhouse · step 2 · x 3 y 7 facing north · turn-left: turned');
     expect(large).toContain('motor · last command');
     expect(mapRow(large, '#'.repeat(44))).toBe(true);
     expect(mapRow(large, `##. . ◓ ${'. '.repeat(17)}##`)).toBe(true);

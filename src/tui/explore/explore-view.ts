@@ -109,7 +109,8 @@ export function exploreView(state: ExploreState, size: TerminalSize, mode: Scree
 
 function statusLine(state: ExploreState, world: World): string {
   const { pose, transition } = state;
-  const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : 'stayed';
+  const turned = state.action === 'turn-left' || state.action === 'turn-right';
+  const outcome = transition.bumped ? 'bumped' : transition.moved ? 'moved' : turned ? 'turned' : 'stayed';
   const noisy = CHANNELS.filter((c) => state.noise[c].severity > 0);
   return `${world.name} · step ${state.stepIndex} · x ${pose.x} y ${pose.y} facing ${pose.heading} · ${state.action}: ${outcome}`
     + (noisy.length > 0 ? ` · noisy: ${noisy.join(', ')}` : '');

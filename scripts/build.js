@@ -1,9 +1,11 @@
 // The package's build (run by `npm install` through `prepare`, or `npm run build`):
-// compiles src/ to dist/ file by file, so the CLI starts without a TypeScript loader, and
-// bundles tfjs-core's gradient registrations, which Node cannot import from the package.
+// compiles src/ to dist/ file by file, so the CLI starts without a TypeScript loader,
+// assembles the WebAssembly kernels, and bundles tfjs-core's gradient registrations, which
+// Node cannot import from the package.
 import { copyFileSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
 import { createRequire } from 'node:module';
-import { dirname, join, relative } from 'node:path';
+import { basename, dirname, join, relative } from 'node:path';
 import { fileURLToPath, URL } from 'node:url';
 import { build } from 'esbuild';
 import { sourceStamp, STAMP_FILE } from './source-stamp.js';
@@ -50,6 +52,29 @@ await build({
   outfile: join(dist, 'vendor', `tfjs-core-${version}-register-all-gradients.js`),
   bundle: true, format: 'iife', platform: 'node', target: 'node20', logLevel: 'warning',
 });
+
+// WebAssembly kernels are written as text (src/**/*.wat) and assembled here, each to
+// dist/wasm/<name>-<first 16 hex digits of its source's SHA-256>.wasm, so a module running
+// from src/ after an edit finds no binary of an older text (src/learn/wasm-module.ts).
+const wabt = await require('wabt')();
+for (const file of sources.filter((f) => f.endsWith('.wat'))) {
+  const text = readFileSync(file, 'utf8');
+  let module;
+  try {
+    module = wabt.parseWat(relative(root, file), text, { simd: true });
+    module.validate();
+  } catch (error) {
+    // Thrown anew so that Node prints this line, not a line of wabt's minified source.
+    throw new Error(error.message);
+  }
+  try {
+    const name = `${basename(file, '.wat')}-${createHash('sha256').update(text).digest('hex').slice(0, 16)}.wasm`;
+    mkdirSync(join(dist, 'wasm'), { recursive: true });
+    writeFileSync(join(dist, 'wasm', name), module.toBinary({}).buffer);
+  } finally {
+    module.destroy();
+  }
+}
 
 // tfjs ships CommonJS. Imported from an ES module, Node 20 reads each of its 0.4–1.2 MB files
 // three times (module-syntax detection, export lexing, compilation): ~0.3 s of CPU at every

@@ -4,8 +4,11 @@ import '@tensorflow/tfjs-backend-wasm';
 import { registerDenseKernels } from './dense-kernels.js';
 import { registerOptimizerKernels } from './optimizers.js';
 import { registerFastMatMulGradient } from './plain-matmul.js';
+import { registerReluKernels } from './relu-kernels.js';
 import { registerSpikingKernels } from './spiking-kernels.js';
+import { registerSquaredErrorKernel } from './squared-error.js';
 import { registerStockGradients } from './stock-gradients.js';
+import { registerWasmMatMul } from './wasm-matmul.js';
 import type { BackendName } from './spec.js';
 
 let gradientsReady = false;
@@ -24,7 +27,10 @@ export async function initBackend(name: BackendName = 'wasm'): Promise<void> {
     registerFastMatMulGradient();
     registerOptimizerKernels();
     registerDenseKernels();
+    registerReluKernels();
+    registerSquaredErrorKernel();
     registerSpikingKernels();
+    registerWasmMatMul();
     gradientsReady = true;
   }
   // engine().backendName stays null until a backend is chosen; getBackend() would pick one.

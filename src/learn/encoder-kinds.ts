@@ -1,6 +1,6 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
-import { batchOf, takeRows } from './batches.js';
+import { batchOf, takeRows, type ExampleTensors } from './batches.js';
 import type { ExampleSet } from './examples.js';
 import { rateRepresentation, type Representation } from './extractor.js';
 import { spikingInit } from './init.js';
@@ -27,7 +27,7 @@ export interface EncoderKind {
   /** The gradient the rule's update is compared with in the alignment angles. */
   reference(towers: readonly Tower[], batch: Batch, loss: LossOfOutputs): { loss: tf.Scalar; grads: tf.Tensor[] };
   /** Rows of a split as the towers read them (call inside tf.tidy). */
-  batch(examples: ExampleSet, rows: Int32Array, use: BatchUse): Batch;
+  batch(split: ExampleTensors, rows: Int32Array, use: BatchUse): Batch;
   /** Head outputs of every tower (the action goes to tower 0's head). */
   outputs(towers: readonly Tower[], batch: Batch): tf.Tensor2D[];
   /** A trained tower without head as the probes read it. */
@@ -44,7 +44,7 @@ function mlpKind(spec: LearnerSpec, seed: number): EncoderKind {
     createTower: (shape, index) => createTower(shape, activation, towerStreams(seed, shape, activation, index)),
     gradients: (rule, towers, state, batch, loss) => ruleGradients(rule, towers, state, batch, loss),
     reference: trueGradients,
-    batch: (examples, rows) => batchOf(examples, rows),
+    batch: (split, rows) => batchOf(split, rows),
     outputs: towerOutputs,
     representation: rateRepresentation,
   };
@@ -69,9 +69,8 @@ function spikingKind(spec: LearnerSpec, seed: number): EncoderKind {
     },
     gradients: (rule, towers, state, batch, loss) => ruleGradients(rule, towers, state, batch, loss, pass),
     reference: (towers, batch, loss) => exact.gradients(towers, towers.map(() => []), batch, loss),
-    batch(examples, rows, use) {
-      const plain = batchOf({ ...examples, inputs: [] }, rows);
-      return { ...plain, inputs: examples.inputs.map((m) => input(m, rows, use)) };
+    batch(split, rows, use) {
+      return { ...batchOf(split, rows, false), inputs: split.examples.inputs.map((m) => input(m, rows, use)) };
     },
     outputs: (towers, batch) => towers.map((t, i) => spikingForward(t, batch.inputs[i], i === 0 ? batch.extra : null, d).output),
     representation: (tower) => ({

@@ -1,6 +1,7 @@
 import * as tf from '@tensorflow/tfjs-core';
 import type { MathBackendCPU } from '@tensorflow/tfjs-backend-cpu';
 import type { BackendWasm } from '@tensorflow/tfjs-backend-wasm';
+import { wasmHeap } from './wasm-module.js';
 
 /** The backends a host kernel runs on. */
 export type HostBackend = 'wasm' | 'cpu';
@@ -20,8 +21,10 @@ export interface HostKernel {
   /**
    * Reads `inputs`, fills every element of every `outputs` array. `backend` lets a kernel
    * reproduce the backend's own arithmetic where the two differ (e.g. reduction precision).
+   * On wasm `heap` is the backend's memory, which the arrays view (their byteOffset is their
+   * address), so a kernel may hand them to WebAssembly code (wasm-module.ts); null on cpu.
    */
-  run(inputs: readonly Float32Array[], outputs: Float32Array[], attrs: HostAttrs, backend: HostBackend): void;
+  run(inputs: readonly Float32Array[], outputs: Float32Array[], attrs: HostAttrs, backend: HostBackend, heap: WebAssembly.Memory | null): void;
 }
 
 const size = (shape: readonly number[]): number => shape.reduce((a, b) => a * b, 1);
@@ -80,7 +83,8 @@ function kernelConfig(kernel: HostKernel, backendName: HostBackend): tf.KernelCo
     const memory = BACKEND_ARRAYS[backendName](backend);
     const outputs = memory.outputs(kernel.outputShapes(infos.map((t) => t.shape), settings));
     // Inputs are viewed after the outputs exist: on wasm, growing the heap detaches earlier views.
-    kernel.run(infos.map(memory.input), outputs.arrays, settings, backendName);
+    const heap = backendName === 'wasm' ? wasmHeap(backend as BackendWasm) : null;
+    kernel.run(infos.map(memory.input), outputs.arrays, settings, backendName, heap);
     return outputs.infos();
   };
   return { kernelName: kernel.name, backendName, kernelFunc: kernelFunc as tf.KernelFunc };

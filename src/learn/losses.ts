@@ -1,9 +1,10 @@
 import * as tf from '@tensorflow/tfjs-core';
 import { transposeLast } from './plain-matmul.js';
+import { meanSquaredDifference } from './squared-error.js';
 
-/** Mean squared error over every element: mean((o − y)²). */
+/** Mean squared error over every element: mean((o − y)²) (its gradient in one kernel, squared-error.ts). */
 export function meanSquaredError(output: tf.Tensor2D, target: tf.Tensor2D): tf.Scalar {
-  return tf.mean(tf.squaredDifference(output, target));
+  return meanSquaredDifference(output, target);
 }
 
 /** Softmax cross-entropy, −mean_i log softmax(logits_i)[label_i]; labels are class indices. */

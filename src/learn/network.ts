@@ -2,6 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
 import type { ChannelName } from '../senses/channel.js';
 import { glorotUniform, hiddenInit } from './init.js';
+import { biasRelu, reluBackward } from './relu-kernels.js';
 import type { ActivationName } from './spec.js';
 
 /** One fully connected layer: y = x·W + b. */
@@ -30,18 +31,33 @@ export interface TowerShape {
   readonly extraWidth: number;
 }
 
-/** An activation and its derivative written from the pre- and post-activation values. */
+/**
+ * An activation and its derivative written from the pre- and post-activation values, with
+ * optional one-kernel forms of a layer's element-wise work for the hand-written passes
+ * (rules.ts): each gives the bits of the tfjs ops it stands for, but has no gradient, so
+ * autodiff runs the ops themselves.
+ */
 interface Activation {
   readonly f: (a: tf.Tensor2D) => tf.Tensor2D;
   readonly derivative: (pre: tf.Tensor2D, post: tf.Tensor2D) => tf.Tensor2D;
+  /** [a + b, f(a + b)] for a product a [rows, cols] and a bias b [cols]. */
+  readonly biasActivation?: (a: tf.Tensor2D, b: tf.Tensor1D) => [tf.Tensor2D, tf.Tensor2D];
+  /** g ⊙ f′(pre), the error at the pre-activation from the signal g at the output. */
+  readonly backward?: (g: tf.Tensor2D, pre: tf.Tensor2D, post: tf.Tensor2D) => tf.Tensor2D;
 }
 
 /** Every activation by its config name (the names are ACTIVATIONS in spec.ts). */
 export const ACTIVATION_REGISTRY: Record<ActivationName, Activation> = {
-  relu: { f: (a) => tf.relu(a), derivative: (pre) => tf.step(pre) },
+  relu: { f: (a) => tf.relu(a), derivative: (pre) => tf.step(pre), biasActivation: biasRelu, backward: (g, pre) => reluBackward(g, pre) },
   tanh: { f: (a) => tf.tanh(a), derivative: (_pre, h) => tf.sub(1, tf.square(h)) },
   sigmoid: { f: (a) => tf.sigmoid(a), derivative: (_pre, h) => tf.mul(h, tf.sub(1, h)) },
 };
+
+/** δ = g ⊙ f′(pre) of a layer, in one kernel where the activation has one. */
+export function activationBackward(name: ActivationName, g: tf.Tensor2D, pre: tf.Tensor2D, post: tf.Tensor2D): tf.Tensor2D {
+  const activation = ACTIVATION_REGISTRY[name];
+  return activation.backward?.(g, pre, post) ?? tf.mul(g, activation.derivative(pre, post));
+}
 
 /** The activation of a rate tower's hidden layers; a spiking tower has none. */
 export function activationOf(tower: Pick<Tower, 'activation'>): ActivationName {
@@ -105,25 +121,35 @@ export function encode(tower: Tower, x: tf.Tensor2D): tf.Tensor2D {
   return tower.encoder.reduce((h, layer) => f(affine(h, layer)), x);
 }
 
-/** Full forward pass with every intermediate kept. */
+/** The head's input: the representation, with the extra columns appended when there are any. */
+function headInputOf(representation: tf.Tensor2D, extra: tf.Tensor2D | null): tf.Tensor2D {
+  return extra == null ? representation : tf.concat([representation, extra], 1);
+}
+
+/**
+ * Full forward pass with every intermediate kept, for the hand-written backward passes: a
+ * layer's bias and activation run as one kernel where the activation has one (no gradient;
+ * the same bits as `forward`).
+ */
 export function forwardCached(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D | null): ForwardCache {
   if (tower.head == null) throw new Error('this tower has no head to train');
-  const { f } = ACTIVATION_REGISTRY[activationOf(tower)];
+  const { f, biasActivation } = ACTIVATION_REGISTRY[activationOf(tower)];
   const post = [x];
   const pre: tf.Tensor2D[] = [];
   for (const layer of tower.encoder) {
-    const a = affine(post[post.length - 1], layer);
+    const h = post[post.length - 1];
+    const [a, out] = biasActivation?.(tf.matMul(h, layer.W as tf.Tensor2D), layer.b as tf.Tensor1D) ?? [affine(h, layer)];
     pre.push(a);
-    post.push(f(a));
+    post.push(out ?? f(a));
   }
-  const representation = post[post.length - 1];
-  const headInput = extra == null ? representation : tf.concat([representation, extra], 1);
+  const headInput = headInputOf(post[post.length - 1], extra);
   return { post, pre, headInput, output: affine(headInput, tower.head) };
 }
 
-/** Head output only (autodiff path). */
+/** Head output only, by differentiable ops (the autodiff path). */
 export function forward(tower: Tower, x: tf.Tensor2D, extra: tf.Tensor2D | null): tf.Tensor2D {
-  return forwardCached(tower, x, extra).output;
+  if (tower.head == null) throw new Error('this tower has no head to train');
+  return affine(headInputOf(encode(tower, x), extra), tower.head);
 }
 
 /** Output width of a layer. */

@@ -1,6 +1,7 @@
 import * as tf from '@tensorflow/tfjs-core';
 import { registerHostKernel, runHostKernel, type HostAttrs, type HostKernel } from './host-kernels.js';
 import type { LearnerSpec, OptimizerName } from './spec.js';
+import { wasmKernels } from './wasm-module.js';
 
 /** Applies one update per step to every trainable variable. */
 export interface Optimizer {
@@ -52,10 +53,24 @@ export function sgdUpdate(inputs: readonly Float32Array[], outputs: Float32Array
   }
 }
 
+type AdamOnHeap = (w: number, g: number, m: number, v: number, wNext: number, mNext: number, vNext: number, n: number, ...constants: number[]) => void;
+
+/** adamUpdate's arithmetic in adam.wat, four elements at a time, on arrays that view `heap` (the same bits). */
+function adamOnHeap(heap: WebAssembly.Memory, inputs: readonly Float32Array[], outputs: Float32Array[], attrs: HostAttrs): void {
+  const { count, learningRate, correction1, correction2 } = attrs;
+  const adam = wasmKernels('adam', heap).adam as AdamOnHeap;
+  const constants = [BETA1, BETA2, 1 - BETA1, 1 - BETA2, EPSILON, -learningRate, correction1, correction2].map(f32);
+  const at = (a: Float32Array) => a.byteOffset;
+  for (let k = 0; k < count; k++) {
+    const w = inputs[k];
+    adam(at(w), at(inputs[count + k]), at(inputs[2 * count + k]), at(inputs[3 * count + k]), at(outputs[k]), at(outputs[count + k]), at(outputs[2 * count + k]), w.length, ...constants);
+  }
+}
+
 const ADAM_KERNEL: HostKernel = {
   name: 'CrosswiseAdamUpdate',
   outputShapes: (shapes, { count }) => [...shapes.slice(0, count), ...shapes.slice(0, count), ...shapes.slice(0, count)],
-  run: adamUpdate,
+  run: (inputs, outputs, attrs, _backend, heap) => (heap == null ? adamUpdate(inputs, outputs, attrs) : adamOnHeap(heap, inputs, outputs, attrs)),
 };
 
 const SGD_KERNEL: HostKernel = {

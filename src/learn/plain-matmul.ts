@@ -1,7 +1,9 @@
 import * as tf from '@tensorflow/tfjs-core';
+import { transpose2d } from './dense-kernels.js';
 
-/** Swaps the last two axes of a rank ≥ 2 tensor. */
+/** Swaps the last two axes of a rank ≥ 2 tensor (a matrix by dense-kernels.ts's faster copy). */
 export function transposeLast(x: tf.Tensor): tf.Tensor {
+  if (x.rank === 2) return transpose2d(x as tf.Tensor2D);
   const perm = x.shape.map((_, i) => i);
   const r = perm.length;
   [perm[r - 2], perm[r - 1]] = [perm[r - 1], perm[r - 2]];
@@ -45,8 +47,8 @@ export function registerFastMatMulGradient(): void {
           return transposeA ? transposeLast(dOpA) : dOpA;
         },
         b: () => {
-          const opA = transposeA ? transposeLast(a) : a;
-          const dOpB = tf.matMul(transposeLast(opA), dyT);
+          // op(A)ᵀ·dy: A itself when A was transposed; otherwise Aᵀ, which wasm-matmul.ts reads in place for a matrix.
+          const dOpB = transposeA ? tf.matMul(a, dyT) : a.rank === 2 ? tf.matMul(a, dyT, true, false) : tf.matMul(transposeLast(a), dyT);
           return transposeB ? transposeLast(dOpB) : dOpB;
         },
       };

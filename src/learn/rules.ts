@@ -2,7 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Rng } from '../random.js';
 import { columnSums, matMulT } from './dense-kernels.js';
 import { glorotUniform } from './init.js';
-import { ACTIVATION_REGISTRY, activationOf, forward, forwardCached, layerWidth, towerVariables, type ForwardCache, type Tower } from './network.js';
+import { activationBackward, activationOf, forward, forwardCached, layerWidth, towerVariables, type ForwardCache, type Tower } from './network.js';
 import type { RuleDefinition, RuleStep } from './rule-definition.js';
 
 /** One mini-batch as tensors: an input per tower, the action for tower 0's head, the target. */
@@ -110,7 +110,7 @@ export interface TowerPass<C extends { readonly output: tf.Tensor2D; readonly he
 export const RATE_PASS: TowerPass<ForwardCache> = {
   forward: forwardCached,
   layerInput: (cache, l) => cache.post[l],
-  derivative: (tower, cache, l, g) => tf.mul(g, ACTIVATION_REGISTRY[activationOf(tower)].derivative(cache.pre[l], cache.post[l + 1])),
+  derivative: (tower, cache, l, g) => activationBackward(activationOf(tower), g, cache.pre[l], cache.post[l + 1]),
 };
 
 /** What a rule sees of one tower at one step. */

@@ -2,10 +2,11 @@ import * as tf from '@tensorflow/tfjs-core';
 import type { Dataset, DatasetSplit } from '../collect/dataset.js';
 import { permutation, type Rng } from '../random.js';
 import { BatchLosses } from './batch-losses.js';
+import { ExampleTensors } from './batches.js';
 import { AngleAverage, weightAngles } from './alignment.js';
 import { LearnerDivergedError } from './errors.js';
 import { batchLoss, bindObjective, splitExamples, type BoundObjective } from './bound-objective.js';
-import { TrainingStatistics, type ExampleSet } from './examples.js';
+import { TrainingStatistics } from './examples.js';
 import { encoderKind, type EncoderKind } from './encoder-kinds.js';
 import { createExtractor } from './extractor.js';
 import { disposeTower, type Tower } from './network.js';
@@ -72,17 +73,18 @@ interface EpochContext {
  * Batch losses are read once, at the end: a loss that became NaN or infinite in any batch
  * fails the epoch with that value (the steps after it only move weights that are lost anyway).
  */
-function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss: number; angles: number[] } {
+function trainEpoch(ctx: EpochContext, train: ExampleTensors, epoch: number): { loss: number; angles: number[] } {
   const { spec, towers, kind, rule, state, objective, optimizer } = ctx;
   const vars = allVariables(towers);
-  const order = permutation(train.n, ctx.shuffle);
+  const { n } = train.examples;
+  const order = permutation(n, ctx.shuffle);
   const angles = new AngleAverage();
   const losses = new BatchLosses();
   try {
-    for (let start = 0; start < train.n; start += spec.train.batch) {
-      const rows = order.subarray(start, Math.min(start + spec.train.batch, train.n));
+    for (let start = 0; start < n; start += spec.train.batch) {
+      const rows = order.subarray(start, Math.min(start + spec.train.batch, n));
       if (rows.length < objective.minBatch) continue;
-      const last = start + spec.train.batch >= train.n;
+      const last = start + spec.train.batch >= n;
       const due = ctx.alignEvery != null && ctx.step % ctx.alignEvery === 0;
       const record = rule.name !== 'backprop' && (due || (last && !angles.recorded));
       losses.add(tf.tidy(() => {
@@ -110,11 +112,12 @@ function trainEpoch(ctx: EpochContext, train: ExampleSet, epoch: number): { loss
  * in a fixed shuffled order: consecutive steps are near-duplicates, and contrast batches
  * of them would be far harder than the shuffled training batches.
  */
-function evaluate(spec: LearnerSpec, kind: EncoderKind, towers: Tower[], objective: BoundObjective, split: ExampleSet, order: Int32Array): number {
+function evaluate(spec: LearnerSpec, kind: EncoderKind, towers: Tower[], objective: BoundObjective, split: ExampleTensors, order: Int32Array): number {
   const losses = new BatchLosses();
   try {
-    for (let start = 0; start < split.n; start += spec.train.batch) {
-      const end = Math.min(start + spec.train.batch, split.n);
+    const { n } = split.examples;
+    for (let start = 0; start < n; start += spec.train.batch) {
+      const end = Math.min(start + spec.train.batch, n);
       if (end - start < objective.minBatch && losses.count > 0) continue;
       const rows = order.subarray(start, end);
       losses.add(tf.tidy(() => {
@@ -136,10 +139,10 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  * epochs in a row bring no lower validation loss. When training ends the weights of the
  * epoch with the lowest validation loss are restored, and that epoch is returned.
  */
-async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: ExampleSet, options: TrainOptions, log: EpochLog[]): Promise<number> {
+async function runEpochs(ctx: EpochContext, train: ExampleTensors, validation: ExampleTensors, options: TrainOptions, log: EpochLog[]): Promise<number> {
   const { spec, towers, kind, objective } = ctx;
   const vars = allVariables(towers);
-  const validationOrder = permutation(validation.n, batchOrderStream(options.seed, 'validation'));
+  const validationOrder = permutation(validation.examples.n, batchOrderStream(options.seed, 'validation'));
   let best: tf.Tensor[] = [];
   let bestLoss = Infinity;
   let bestEpoch = 0;
@@ -151,7 +154,7 @@ async function runEpochs(ctx: EpochContext, train: ExampleSet, validation: Examp
       const validationLoss = evaluate(spec, kind, towers, objective, validation, validationOrder);
       if (!Number.isFinite(validationLoss)) throw new LearnerDivergedError(spec.name, 'validation', epoch, validationLoss);
       const seconds = (performance.now() - started) / 1000; // the firing measurement is not training time
-      const firing = kind.firing?.(towers[0], validation);
+      const firing = kind.firing?.(towers[0], validation.examples);
       const entry: EpochLog = { epoch, trainLoss: loss, validationLoss, seconds, alignmentDeg: angles, ...(firing == null ? {} : { firing }) };
       log.push(entry);
       options.onEpoch?.(entry);
@@ -198,7 +201,7 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   const towers = objective.towers.map((shape, i) => kind.createTower(shape, i));
   const log: EpochLog[] = [];
   if (examples == null) return { towers, kind, objective, stats, log, bestEpoch: 0 };
-  const [train, validation] = examples;
+  const [train, validation] = examples.map((e) => new ExampleTensors(e));
   const optimizer = createOptimizer(spec.train);
   let state: RuleState = [];
   let bestEpoch = 0;
@@ -212,6 +215,8 @@ export async function trainNetwork(spec: LearnerSpec, data: Dataset, split: Data
   } finally {
     tf.dispose(state.flat());
     optimizer.dispose();
+    train.dispose();
+    validation.dispose();
   }
   return { towers, kind, objective, stats, log, bestEpoch };
 }

@@ -2,7 +2,7 @@ import * as tf from '@tensorflow/tfjs-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { initBackend } from '../../src/learn/backend.js';
 import { BatchLosses } from '../../src/learn/batch-losses.js';
-import { batchOf, takeRows } from '../../src/learn/batches.js';
+import { batchOf, ExampleTensors, takeRows } from '../../src/learn/batches.js';
 import type { Matrix } from '../../src/learn/matrix.js';
 
 beforeAll(() => initBackend('wasm'));
@@ -15,14 +15,35 @@ describe('batchOf', () => {
     expect(Array.from(takeRows(m, [3, 0, 3]))).toEqual([30, 31, 32, 0, 1, 2, 30, 31, 32]);
   });
 
-  it('uploads a matrix used as both input and target once (an autoencoder\'s batch)', () => {
+  it('copies rows four at a time and the rest one by one alike: 6 rows of 4 taken in reverse', () => {
+    expect(Array.from(takeRows(m, [3, 2, 1, 0, 3, 2]))).toEqual([30, 31, 32, 20, 21, 22, 10, 11, 12, 0, 1, 2, 30, 31, 32, 20, 21, 22]);
+  });
+
+  it.each(['wasm', 'cpu'] as const)('gathers the rows on %s from one upload of a matrix used as both input and target (an autoencoder\'s batch)', async (backend) => {
+    await initBackend(backend);
     const before = tf.memory().numTensors;
-    const batch = batchOf({ n: 4, inputs: [m], extra: null, target: m }, Int32Array.from([2, 1]));
+    const split = new ExampleTensors({ n: 4, inputs: [m], extra: null, target: m });
+    const batch = batchOf(split, Int32Array.from([2, 1, 3, 2, 0]));
     expect(batch.target).toBe(batch.inputs[0]);
-    expect(batch.inputs[0].shape).toEqual([2, 3]);
-    expect(Array.from(batch.inputs[0].dataSync())).toEqual([20, 21, 22, 10, 11, 12]);
-    expect(tf.memory().numTensors).toBe(before + 1);
-    tf.dispose([...batch.inputs]);
+    expect(batch.inputs[0].shape).toEqual([5, 3]);
+    expect(Array.from(batch.inputs[0].dataSync())).toEqual([20, 21, 22, 10, 11, 12, 30, 31, 32, 20, 21, 22, 0, 1, 2]);
+    expect(tf.memory().numTensors).toBe(before + 2); // the uploaded matrix and the batch
+    const again = batchOf(split, Int32Array.from([3]));
+    expect(Array.from(again.inputs[0].dataSync())).toEqual([30, 31, 32]);
+    expect(tf.memory().numTensors).toBe(before + 3); // the matrix is not uploaded twice
+    tf.dispose([batch.inputs[0], again.inputs[0]]);
+    split.dispose();
+    expect(tf.memory().numTensors).toBe(before);
+    await initBackend('wasm');
+  });
+
+  it('leaves the inputs out when asked (a spiking tower codes its own)', () => {
+    const split = new ExampleTensors({ n: 4, inputs: [m], extra: null, target: m });
+    const batch = batchOf(split, Int32Array.from([1]), false);
+    expect(batch.inputs).toEqual([]);
+    expect(Array.from(batch.target!.dataSync())).toEqual([10, 11, 12]);
+    tf.dispose(batch.target!);
+    split.dispose();
   });
 });
 
